@@ -1,0 +1,5 @@
+import { SignInForm } from '../../components/forms/SignInForm';
+
+export default function SignInScreen() {
+  return <SignInForm />;
+}

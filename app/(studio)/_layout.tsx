@@ -1,0 +1,16 @@
+import { Redirect, Slot } from 'expo-router';
+import { useMe } from '../../hooks/useSession';
+import { StudioShell } from '../../components/layout/StudioShell';
+import { LoadingPage } from '../../components/layout/LoadingPage';
+
+export default function StudioLayout() {
+  const me = useMe();
+  if (me.isPending) return <LoadingPage />;
+  if (me.isError) return <LoadingPage problem={me.error.message} onRetry={() => me.refetch()} />;
+  if (!me.data) return <Redirect href="/sign-in" />;
+  return (
+    <StudioShell me={me.data}>
+      <Slot />
+    </StudioShell>
+  );
+}

@@ -1,0 +1,57 @@
+import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { roleLabels } from '../../schemas/roles';
+import type { Me } from '../../schemas/auth';
+import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
+import { TreadleMark } from '../ui/TreadleMark';
+
+/** The strip above every studio page: which studio, who you are in it, and the way out. */
+export function StudioHeader({ me, wide, onSignOut, signingOut }: { me: Me; wide: boolean; onSignOut(): void; signingOut: boolean }) {
+  return (
+    <View role="banner" style={styles.bar}>
+      {!wide && <TreadleMark size={24} />}
+      <View style={[styles.team, wide && styles.teamWide]}>
+        <Text numberOfLines={1} style={styles.teamName}>
+          {me.team.name}
+        </Text>
+        <Text numberOfLines={1} style={styles.who}>
+          {me.user.name} · {roleLabels[me.role]}
+        </Text>
+      </View>
+      <Pressable
+        accessibilityRole="button"
+        onPress={onSignOut}
+        disabled={signingOut}
+        style={({ pressed }) => [styles.signOut, pressed && styles.signOutPressed]}
+      >
+        <Text style={styles.signOutText}>{signingOut ? 'Signing out…' : 'Sign out'}</Text>
+      </Pressable>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  bar: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    paddingHorizontal: space.lg,
+    paddingVertical: space.sm,
+    backgroundColor: colors.paper,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.rule,
+  },
+  team: { flex: 1, alignItems: 'flex-end' },
+  teamWide: { alignItems: 'flex-start' },
+  teamName: { fontFamily: fonts.headingMedium, fontSize: 15, color: colors.ink },
+  who: { ...type.small, color: colors.graphite },
+  signOut: {
+    minHeight: touchTarget,
+    paddingHorizontal: space.md,
+    justifyContent: 'center',
+    borderRadius: radius.sm,
+    borderWidth: 1,
+    borderColor: colors.rule,
+  },
+  signOutPressed: { backgroundColor: colors.paperDeep },
+  signOutText: { fontFamily: fonts.bodyMedium, fontSize: 14, color: colors.ink },
+});

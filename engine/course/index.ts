@@ -1,0 +1,6 @@
+export * from './limits';
+export * from './heightfield';
+export * from './sample';
+export * from './generators';
+export * from './brushes';
+export * from './encoding';

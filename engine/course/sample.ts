@@ -1,0 +1,123 @@
+/**
+ * Ground queries on a heightfield: bilinear height, its normal, and tests of a
+ * segment against the ground (used to check swing paths). Outside the grid the
+ * edge heights continue. Nothing here allocates.
+ */
+import type { Heightfield } from './heightfield';
+
+/** Bilinear ground height at (x, z). */
+export function heightAt(hf: Heightfield, x: number, z: number): number {
+  const inv = 1 / hf.cellSize;
+  let u = x * inv + (hf.cols - 1) * 0.5;
+  let v = z * inv;
+  const cm = hf.cols - 1;
+  const rm = hf.rows - 1;
+  u = u < 0 ? 0 : u > cm ? cm : u;
+  v = v < 0 ? 0 : v > rm ? rm : v;
+  let c = Math.floor(u);
+  let r = Math.floor(v);
+  if (c >= cm) c = cm - 1;
+  if (r >= rm) r = rm - 1;
+  const fu = u - c;
+  const fv = v - r;
+  const h = hf.heights;
+  const i = r * hf.cols + c;
+  const h00 = h[i];
+  const h10 = h[i + 1];
+  const h01 = h[i + hf.cols];
+  const h11 = h[i + hf.cols + 1];
+  return (h00 * (1 - fu) + h10 * fu) * (1 - fv) + (h01 * (1 - fu) + h11 * fu) * fv;
+}
+
+/**
+ * Unit ground normal at (x, z) from the gradient of the bilinear surface,
+ * written into out[offset..offset+2]; returns out.
+ */
+export function normalAt<T extends { [i: number]: number }>(hf: Heightfield, x: number, z: number, out: T, offset = 0): T {
+  const inv = 1 / hf.cellSize;
+  const cm = hf.cols - 1;
+  const rm = hf.rows - 1;
+  let u = x * inv + cm * 0.5;
+  let v = z * inv;
+  const outside = u < 0 || u > cm;
+  const outsideV = v < 0 || v > rm;
+  u = u < 0 ? 0 : u > cm ? cm : u;
+  v = v < 0 ? 0 : v > rm ? rm : v;
+  let c = Math.floor(u);
+  let r = Math.floor(v);
+  if (c >= cm) c = cm - 1;
+  if (r >= rm) r = rm - 1;
+  const fu = u - c;
+  const fv = v - r;
+  const h = hf.heights;
+  const i = r * hf.cols + c;
+  const h00 = h[i];
+  const h10 = h[i + 1];
+  const h01 = h[i + hf.cols];
+  const h11 = h[i + hf.cols + 1];
+  // Beyond the edge the heights are held constant, so the slope across it is zero.
+  const dx = outside ? 0 : ((h10 - h00) * (1 - fv) + (h11 - h01) * fv) * inv;
+  const dz = outsideV ? 0 : ((h01 - h00) * (1 - fu) + (h11 - h10) * fu) * inv;
+  const n = 1 / Math.sqrt(dx * dx + 1 + dz * dz);
+  out[offset] = -dx * n;
+  out[offset + 1] = n;
+  out[offset + 2] = -dz * n;
+  return out;
+}
+
+/** Samples per cell used by the segment tests: enough to catch every bilinear ridge within a few mm. */
+const SAMPLES_PER_CELL = 2;
+
+function sampleCount(hf: Heightfield, ax: number, az: number, bx: number, bz: number): number {
+  const d = Math.sqrt((bx - ax) * (bx - ax) + (bz - az) * (bz - az));
+  return Math.max(1, Math.ceil((d / hf.cellSize) * SAMPLES_PER_CELL));
+}
+
+/** Highest ground under the straight line from (ax, az) to (bx, bz), ends included. */
+export function maxHeightAlong(hf: Heightfield, ax: number, az: number, bx: number, bz: number): number {
+  const n = sampleCount(hf, ax, az, bx, bz);
+  let best = -Infinity;
+  for (let k = 0; k <= n; k++) {
+    const t = k / n;
+    const g = heightAt(hf, ax + (bx - ax) * t, az + (bz - az) * t);
+    if (g > best) best = g;
+  }
+  return best;
+}
+
+/**
+ * Smallest height of the 3D segment a→b above the ground along it (negative:
+ * the segment dips below the ground by that much).
+ */
+export function segmentClearance(
+  hf: Heightfield,
+  ax: number,
+  ay: number,
+  az: number,
+  bx: number,
+  by: number,
+  bz: number,
+): number {
+  const n = sampleCount(hf, ax, az, bx, bz);
+  let least = Infinity;
+  for (let k = 0; k <= n; k++) {
+    const t = k / n;
+    const c = ay + (by - ay) * t - heightAt(hf, ax + (bx - ax) * t, az + (bz - az) * t);
+    if (c < least) least = c;
+  }
+  return least;
+}
+
+/** True when the segment a→b stays at least `margin` metres above the ground. */
+export function segmentClears(
+  hf: Heightfield,
+  ax: number,
+  ay: number,
+  az: number,
+  bx: number,
+  by: number,
+  bz: number,
+  margin = 0,
+): boolean {
+  return segmentClearance(hf, ax, ay, az, bx, by, bz) >= margin;
+}

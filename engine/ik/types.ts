@@ -1,0 +1,85 @@
+/** Public types of the leg IK engine. */
+
+export type SolverMethod = 'transpose' | 'pseudoinverse' | 'dls' | 'sdls' | 'adaptive' | 'ccd';
+
+export const SOLVER_METHODS: readonly SolverMethod[] = ['dls', 'sdls', 'transpose', 'pseudoinverse', 'adaptive', 'ccd'];
+
+/**
+ * 'manipulability': λ² = λ0²·(1 − w/w0)² when w = √det(JJᵀ) < w0, else 0
+ *   (Nakamura & Hanafusa 1986).
+ * 'error': Levenberg–Marquardt with λ² = E + w̄, E = ½·|e|² the error energy
+ *   (Sugihara 2011).
+ */
+export type AdaptiveMode = 'manipulability' | 'error';
+
+/** Null-space bias (secondary task), applied by the Jacobian methods (not CCD). */
+export type NullSpaceBias =
+  | { kind: 'none' }
+  /** Pull every DOF toward its rest value with gain `gain` (per iteration, 0..1). */
+  | { kind: 'rest'; gain: number }
+  /**
+   * Pull the knee joint (chain.knee) toward a pole point given in world
+   * coordinates, with gain `gain` (metres of knee motion asked per iteration per metre of miss).
+   */
+  | { kind: 'pole'; gain: number; pole: [number, number, number] };
+
+export interface SolverOptions {
+  method: SolverMethod;
+  /** Cap on solver iterations (steps). */
+  maxIterations: number;
+  /** Position tolerance, metres: converged when |foot − target| ≤ tolerance (and orientation within its tolerance). */
+  tolerance: number;
+  /** Orientation tolerance, radians (used only with an orientation target). */
+  orientationTolerance: number;
+  /** Largest change of any rotational DOF in one iteration, radians (the whole step is scaled down). */
+  maxStepAngle: number;
+  /** Largest change of any slider DOF in one iteration, metres. */
+  maxStepLength: number;
+  /** Target clamp: the task error is clamped to this length per iteration, metres (Buss 2004, §... "clamping"). Infinity = off. */
+  clampDistance: number;
+  /** Orientation rows weight, metres per radian. */
+  orientationWeight: number;
+  /** DLS damping λ (metres). Also the base λ0 for adaptive 'manipulability'. */
+  lambda: number;
+  /** Pseudoinverse: singular values below this are dropped. */
+  svdThreshold: number;
+  /** SDLS γmax, radians (Buss & Kim 2005 use π/4). */
+  gammaMax: number;
+  adaptiveMode: AdaptiveMode;
+  /** Adaptive 'manipulability': threshold w0 on √det(JJᵀ) (units m^m). */
+  manipulabilityThreshold: number;
+  /** Adaptive 'error': the bias w̄ added to E (metres²). */
+  lmBias: number;
+  /** Per-DOF weights (length = chain DOF count); overrides the chain's joint weights. null = use the chain's. */
+  weights: Float64Array | number[] | null;
+  nullSpace: NullSpaceBias;
+  /** Stop when the largest DOF change of an iteration is below this (stalled, e.g. out of reach). */
+  minStep: number;
+  /** Re-solve without saturated DOFs when a step hits joint limits. */
+  resolveSaturated: boolean;
+  /** Record the error after each iteration into result.errorHistory. */
+  recordErrors: boolean;
+  /**
+   * Starting pose: 'current' = the workspace's pose (the last solve's result: warm start),
+   * 'rest' = the chain's rest pose, or explicit DOF values (ball entries as rotation vectors).
+   */
+  warmStart: 'current' | 'rest' | ArrayLike<number>;
+}
+
+export interface SolveResult {
+  /** DOF values after the solve (view onto the workspace's pose; copy it to keep it). */
+  pose: Float64Array;
+  /** Steps taken. */
+  iterations: number;
+  /** Final |foot − target|, metres. */
+  positionError: number;
+  /** Final angle between the sole normal and the target normal, radians (0 without an orientation target). */
+  orientationError: number;
+  converged: boolean;
+  /** Number of DOF clamps against joint limits during the solve. */
+  limitHits: number;
+  /** Error after each iteration (index 0 = before the first step), when recordErrors; else null. */
+  errorHistory: Float64Array | null;
+  /** Length of the meaningful part of errorHistory (iterations + 1). */
+  errorHistoryLength: number;
+}

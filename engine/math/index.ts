@@ -1,0 +1,3 @@
+export * from './cholesky';
+export * from './svd';
+export * from './random';

@@ -1,0 +1,48 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { Me, SignInInput, SignUpInput } from '../schemas/auth';
+import { api, ApiError } from './api';
+
+export const meQueryKey = ['me'] as const;
+
+/** The signed-in viewer, or null when signed out. */
+export function useMe() {
+  return useQuery({
+    queryKey: meQueryKey,
+    queryFn: async (): Promise<Me | null> => {
+      try {
+        return await api<Me>('/me');
+      } catch (err) {
+        if (err instanceof ApiError && err.status === 401) return null;
+        throw err;
+      }
+    },
+    staleTime: 60_000,
+  });
+}
+
+export function useSignIn() {
+  const client = useQueryClient();
+  return useMutation<unknown, ApiError, SignInInput>({
+    mutationFn: (input) => api('/auth/sign-in', { method: 'POST', body: input }),
+    onSuccess: () => client.invalidateQueries({ queryKey: meQueryKey }),
+  });
+}
+
+export function useSignUp() {
+  const client = useQueryClient();
+  return useMutation<unknown, ApiError, SignUpInput>({
+    mutationFn: (input) => api('/auth/sign-up', { method: 'POST', body: input }),
+    onSuccess: () => client.invalidateQueries({ queryKey: meQueryKey }),
+  });
+}
+
+export function useSignOut() {
+  const client = useQueryClient();
+  return useMutation<unknown, ApiError, void>({
+    mutationFn: () => api('/auth/sign-out', { method: 'POST' }),
+    onSuccess: () => {
+      client.clear();
+      client.setQueryData(meQueryKey, null);
+    },
+  });
+}

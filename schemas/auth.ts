@@ -1,0 +1,47 @@
+import { z } from 'zod';
+import { roleSchema } from './roles';
+
+/** NIST SP 800-63B §5.1.1: at least 8 characters, at least 64 allowed, no composition rules. */
+export const PASSWORD_MIN = 8;
+export const PASSWORD_MAX = 128;
+
+export const emailSchema = z
+  .string({ error: 'Enter your e-mail address.' })
+  .trim()
+  .toLowerCase()
+  .min(1, 'Enter your e-mail address.')
+  .max(254, 'That e-mail address is too long.')
+  .pipe(z.email({ error: 'That does not look like an e-mail address.' }));
+
+export const newPasswordSchema = z
+  .string({ error: 'Choose a password.' })
+  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
+  .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
+
+export const signInSchema = z.object({
+  email: emailSchema,
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(PASSWORD_MAX, 'Wrong e-mail or password.'),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
+
+export const signUpSchema = z.object({
+  name: z.string({ error: 'Enter your name.' }).trim().min(1, 'Enter your name.').max(80, 'Use at most 80 characters.'),
+  email: emailSchema,
+  password: newPasswordSchema,
+  teamName: z
+    .string({ error: 'Name your studio.' })
+    .trim()
+    .min(1, 'Name your studio.')
+    .max(80, 'Use at most 80 characters.'),
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const userSchema = z.object({ id: z.number().int(), email: z.string(), name: z.string() });
+export const teamSchema = z.object({ id: z.number().int(), name: z.string() });
+
+export const meSchema = z.object({
+  user: userSchema,
+  team: teamSchema,
+  role: roleSchema,
+});
+export type Me = z.infer<typeof meSchema>;

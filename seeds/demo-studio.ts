@@ -1,0 +1,42 @@
+import type { Db } from '../server/db';
+import type { Role } from '../schemas/roles';
+import { hashPassword } from '../server/services/accounts';
+
+/** Demo-only sign-ins for the invented studio; never use these outside a local demo. */
+export const DEMO_PASSWORD = 'treadle-demo';
+export const DEMO_TEAM = 'Brassmoth Interactive';
+export const DEMO_USERS: readonly { email: string; name: string; role: Role }[] = [
+  { email: 'owner@brassmoth.test', name: 'Ottilie Brass', role: 'owner' },
+  { email: 'designer@brassmoth.test', name: 'Dario Moth', role: 'designer' },
+  { email: 'programmer@brassmoth.test', name: 'Priya Kettle', role: 'programmer' },
+  { email: 'artlead@brassmoth.test', name: 'Anselm Vane', role: 'art_lead' },
+];
+
+/** Creates the demo studio and its members; running it again changes nothing. */
+export async function seedDemoStudio(db: Db, now: number): Promise<{ teamId: number }> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  return db.transaction(async (trx) => {
+    let team = await trx('teams').where({ name: DEMO_TEAM }).first('id');
+    if (!team) {
+      const [id] = await trx('teams').insert({ name: DEMO_TEAM, created_at: now });
+      team = { id };
+    }
+    for (const [index, demo] of DEMO_USERS.entries()) {
+      let user = await trx('users').where({ email: demo.email }).first('id');
+      if (!user) {
+        const [id] = await trx('users').insert({ email: demo.email, name: demo.name, password_hash: passwordHash, created_at: now });
+        user = { id };
+      }
+      const member = await trx('memberships').where({ team_id: team.id, user_id: user.id }).first();
+      if (!member) {
+        await trx('memberships').insert({ team_id: team.id, user_id: user.id, role: demo.role, created_at: now + index });
+      }
+    }
+    return { teamId: team.id as number };
+  });
+}
+
+export async function databaseIsEmpty(db: Db): Promise<boolean> {
+  const row = await db('users').count<{ n: number }[]>({ n: '*' }).first();
+  return Number(row?.n ?? 0) === 0;
+}

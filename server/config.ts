@@ -1,0 +1,33 @@
+import crypto from 'node:crypto';
+import path from 'node:path';
+import { developmentDatabaseFile } from '../knexfile';
+
+export const projectRoot = path.resolve(__dirname, '..');
+
+export interface ServerConfig {
+  port: number;
+  host: string;
+  databaseFile: string;
+  webDir: string;
+  sessionSecret: string;
+  secureCookies: boolean;
+}
+
+export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const port = Number(env.PORT ?? 8080);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new Error(`PORT must be a port number, got "${env.PORT}".`);
+  return {
+    port,
+    host: env.HOST ?? '127.0.0.1',
+    databaseFile: env.TREADLE_DB ?? developmentDatabaseFile,
+    webDir: env.TREADLE_WEB_DIR ?? path.join(projectRoot, 'dist'),
+    // A random secret per start signs everyone out on restart; set SESSION_SECRET to keep sessions.
+    sessionSecret: env.SESSION_SECRET ?? crypto.randomBytes(32).toString('hex'),
+    secureCookies: env.SECURE_COOKIES === '1',
+  };
+}
+
+export function packageVersion(): string {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  return (require(path.join(projectRoot, 'package.json')) as { version: string }).version;
+}

@@ -1,0 +1,106 @@
+import {
+  CODE_STAIRS,
+  codeStairsCourse,
+  courseLength,
+  curbCourse,
+  flatCourse,
+  generateCourse,
+  heightAt,
+  heightRange,
+  maxHeightAlong,
+  mixedCourse,
+  normalAt,
+  rampCourse,
+  rubbleCourse,
+  segmentClearance,
+  trenchCourse,
+} from '../../engine/course';
+
+describe('code stairs preset', () => {
+  it('riser ≤ 178 mm and tread ≥ 279 mm (IBC 2021 §1011.5.2)', () => {
+    expect(CODE_STAIRS.riser).toBeLessThanOrEqual(0.178);
+    expect(CODE_STAIRS.tread).toBeGreaterThanOrEqual(0.279);
+  });
+  it('the generated flight climbs one riser per tread (IBC 2021 §1011.5.2 dimensions)', () => {
+    const hf = codeStairsCourse(5, 'up', { leadIn: 1, leadOut: 1 });
+    // Middle of each tread, away from the bilinear ramp at the nosing.
+    for (let k = 0; k < 5; k++) {
+      const z = 1 + (k + 0.5) * CODE_STAIRS.tread;
+      expect(heightAt(hf, 0, z)).toBeCloseTo((k + 1) * CODE_STAIRS.riser, 9);
+    }
+    expect(heightAt(hf, 0, courseLength(hf))).toBeCloseTo(5 * CODE_STAIRS.riser, 9);
+  });
+});
+
+describe('sampling (bilinear interpolation; common practice, no source)', () => {
+  it('a ramp samples exactly between grid points and its normal tilts by the ramp angle', () => {
+    const hf = rampCourse(4, 10, { cellSize: 0.1 });
+    const slope = Math.tan((10 * Math.PI) / 180);
+    expect(heightAt(hf, 0.033, 1.2345)).toBeCloseTo(slope * 1.2345, 9);
+    const n = normalAt(hf, 0.2, 2.05, [0, 0, 0]);
+    // Normal of the plane y = s·z is (0, 1, −s)/√(1+s²): its angle from +Y is the ramp angle.
+    expect(Math.acos(n[1]) * (180 / Math.PI)).toBeCloseTo(10, 6);
+    expect(n[2]).toBeLessThan(0);
+    expect(Math.hypot(n[0], n[1], n[2])).toBeCloseTo(1, 12);
+  });
+  it('holds the edge heights beyond the grid', () => {
+    const hf = curbCourse(2, 0.2);
+    expect(heightAt(hf, 0, -5)).toBe(0);
+    expect(heightAt(hf, 0, 50)).toBeCloseTo(0.2, 12);
+    expect(heightAt(hf, 99, 1.5)).toBeCloseTo(0.2, 12);
+    expect(normalAt(hf, 0, 50, [0, 0, 0])).toEqual([-0, 1, -0]);
+  });
+  it('segment tests see a curb between the ends of a segment', () => {
+    const hf = curbCourse(2, 0.15, { cellSize: 0.02 });
+    expect(maxHeightAlong(hf, 0, 0.2, 0, 1.8)).toBeCloseTo(0.15, 9);
+    // A segment 10 cm above the low side crosses the curb 5 cm too low.
+    expect(segmentClearance(hf, 0, 0.1, 0.2, 0, 0.1, 1.8)).toBeCloseTo(-0.05, 9);
+    expect(segmentClearance(hf, 0, 0.2, 0.2, 0, 0.2, 1.8)).toBeCloseTo(0.05, 9);
+  });
+});
+
+describe('generators', () => {
+  it('flat is flat', () => {
+    const r = heightRange(flatCourse(3));
+    expect(r.min).toBe(0);
+    expect(r.max).toBe(0);
+  });
+  it('rubble stays within its amplitude, depends on the seed only, and is repeatable', () => {
+    const a = rubbleCourse(6, 0.08, 0.4, 7);
+    const b = rubbleCourse(6, 0.08, 0.4, 7);
+    const c = rubbleCourse(6, 0.08, 0.4, 8);
+    expect(Array.from(a.heights)).toEqual(Array.from(b.heights));
+    expect(Array.from(a.heights)).not.toEqual(Array.from(c.heights));
+    const r = heightRange(a);
+    expect(r.max).toBeLessThanOrEqual(0.08);
+    expect(r.min).toBeGreaterThanOrEqual(-0.08);
+    expect(r.max - r.min).toBeGreaterThan(0.04);
+  });
+  it('trench has its width and depth, centred in its segment', () => {
+    const hf = trenchCourse(4, 1, 0.5, { cellSize: 0.02 });
+    expect(heightAt(hf, 0, 2)).toBeCloseTo(-0.5, 12);
+    expect(heightAt(hf, 0, 1.45)).toBe(0);
+    expect(heightAt(hf, 0, 2.55)).toBe(0);
+  });
+  it('a mixed course continues each segment from the height where the previous ended', () => {
+    const hf = mixedCourse(
+      [
+        { kind: 'flat', length: 1 },
+        { kind: 'stairs', steps: 3, riser: 0.15, tread: 0.3 },
+        { kind: 'ramp', length: 2, angleDeg: -5 },
+        { kind: 'curb', length: 1, height: 0.1 },
+      ],
+      { cellSize: 0.02 },
+    );
+    expect(heightAt(hf, 0, 2.5)).toBeCloseTo(0.45 - Math.tan((5 * Math.PI) / 180) * 0.6, 9);
+    const end = 0.45 - Math.tan((5 * Math.PI) / 180) * 2 + 0.1;
+    expect(heightAt(hf, 0, 1.9 + 2 + 0.9)).toBeCloseTo(end, 9);
+  });
+  it('rejects bad specs naming the problem', () => {
+    expect(() => generateCourse({ segments: [] })).toThrow(/segments/);
+    expect(() => generateCourse({ segments: [{ kind: 'ramp', length: 2, angleDeg: 80 }] })).toThrow(/angleDeg/);
+    expect(() => generateCourse({ segments: [{ kind: 'trench', length: 1, width: 2, depth: 1 }] })).toThrow(/trench width/);
+    expect(() => generateCourse({ segments: [{ kind: 'stairs', steps: 400, riser: 0.2, tread: 0.3 }] })).toThrow(/height bound/);
+    expect(() => generateCourse({ segments: [{ kind: 'bumps', length: 1 } as never] })).toThrow(/kind/);
+  });
+});
