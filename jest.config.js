@@ -13,6 +13,7 @@ module.exports = {
   projects: [
     nodeProject('engine', ['<rootDir>/tests/engine']),
     nodeProject('server', ['<rootDir>/tests/server']),
+    nodeProject('e2e', ['<rootDir>/tests/e2e']),
     {
       displayName: 'app',
       preset: 'jest-expo',

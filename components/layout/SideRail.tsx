@@ -16,7 +16,7 @@ export function SideRail({ active }: { active: Section }) {
         const on = s.name === active.name;
         return (
           <Link key={s.name} href={s.href} asChild>
-            <Pressable aria-current={on ? 'page' : undefined} style={({ hovered }) => [styles.item, on && styles.itemOn, hovered && !on && styles.itemHover]}>
+            <Pressable aria-current={on ? 'page' : undefined} style={[styles.item, on && styles.itemOn]}>
               <SectionIcon name={s.name} color={on ? colors.ember : colors.onInk} size={20} />
               <Text style={[styles.label, on && styles.labelOn]}>{s.label}</Text>
             </Pressable>
@@ -39,7 +39,6 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
   },
   itemOn: { backgroundColor: '#2C353C' },
-  itemHover: { backgroundColor: '#262E34' },
   label: { fontFamily: fonts.bodyMedium, fontSize: 15, color: colors.onInk },
   labelOn: { color: colors.paper, fontFamily: fonts.bodyStrong },
 });

@@ -109,6 +109,7 @@ export interface IKWorkspace {
   readonly A: Float64Array; // 6×6
   readonly e: Float64Array; // 6
   readonly e2: Float64Array; // 6
+  readonly eRes: Float64Array; // 6
   readonly y: Float64Array; // 6
   readonly dq: Float64Array; // n
   readonly z: Float64Array; // n (null-space bias)
@@ -316,6 +317,7 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     A: new Float64Array(36),
     e: new Float64Array(6),
     e2: new Float64Array(6),
+    eRes: new Float64Array(6),
     y: new Float64Array(6),
     dq: new Float64Array(n),
     z: new Float64Array(n),

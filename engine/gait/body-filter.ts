@@ -1,0 +1,32 @@
+/**
+ * Critically damped second-order filter (ζ = 1): the body follows its target
+ * height, pitch and roll without overshoot. The update is the exact solution
+ * over a step with the target held, so it is stable for any time step.
+ */
+
+/** ωn·t at which a critically damped step response enters the 2 % band: (1 + x)·e^(−x) = 0.02. */
+export const CRITICAL_SETTLE_2PCT = 5.8339;
+
+export interface DampedState {
+  value: number;
+  velocity: number;
+}
+
+export function createDampedState(value = 0): DampedState {
+  return { value, velocity: 0 };
+}
+
+/** Natural frequency giving a 2 % settling time of `settleTime` seconds. */
+export function omegaForSettleTime(settleTime: number): number {
+  return CRITICAL_SETTLE_2PCT / settleTime;
+}
+
+/** Advance s by dt toward target with natural frequency omega (rad/s). */
+export function stepCriticallyDamped(s: DampedState, target: number, omega: number, dt: number): void {
+  const e0 = s.value - target;
+  const v0 = s.velocity;
+  const k = v0 + omega * e0;
+  const decay = Math.exp(-omega * dt);
+  s.value = target + (e0 + k * dt) * decay;
+  s.velocity = (v0 - omega * k * dt) * decay;
+}

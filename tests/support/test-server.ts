@@ -1,0 +1,29 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { startServer, type RunningServer } from '../../server/index';
+import { projectRoot } from '../../server/config';
+import { seedDemoStudio } from '../../seeds/demo-studio';
+
+/** The real server on a random loopback port, over a fresh SQLite file seeded with the demo studio. */
+export async function startTestServer(): Promise<RunningServer & { stop(): Promise<void> }> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-e2e-'));
+  const webDir = path.join(projectRoot, 'dist');
+  if (!fs.existsSync(path.join(webDir, 'index.html'))) throw new Error('No web export in dist/: run `npm run build:web` (npm test does it).');
+  const running = await startServer({
+    port: 0,
+    host: '127.0.0.1',
+    databaseFile: path.join(dir, 'e2e.sqlite'),
+    webDir,
+    sessionSecret: 'e2e-secret',
+    secureCookies: false,
+  });
+  await seedDemoStudio(running.db, Date.now());
+  return {
+    ...running,
+    async stop() {
+      await running.close();
+      fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
