@@ -1,6 +1,7 @@
 import type { Db } from '../server/db';
 import type { Role } from '../schemas/roles';
 import { hashPassword } from '../server/services/accounts';
+import { seedDemoCharacters } from './demo-characters';
 
 /** Demo-only sign-ins for the invented studio; never use these outside a local demo. */
 export const DEMO_PASSWORD = 'treadle-demo';
@@ -12,10 +13,17 @@ export const DEMO_USERS: readonly { email: string; name: string; role: Role }[] 
   { email: 'artlead@brassmoth.test', name: 'Anselm Vane', role: 'art_lead' },
 ];
 
-/** Creates the demo studio and its members; running it again changes nothing. */
-export async function seedDemoStudio(db: Db, now: number): Promise<{ teamId: number }> {
+/** Creates the demo studio, its members and its content; running it again changes nothing. */
+export async function seedDemoStudio(db: Db, { now, dataDir }: { now: number; dataDir: string }): Promise<{ teamId: number }> {
+  const { teamId, ownerId } = await seedMembers(db, now);
+  await seedDemoCharacters(db, teamId, ownerId, dataDir, now);
+  return { teamId };
+}
+
+async function seedMembers(db: Db, now: number): Promise<{ teamId: number; ownerId: number }> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   return db.transaction(async (trx) => {
+    let ownerId = 0;
     let team = await trx('teams').where({ name: DEMO_TEAM }).first('id');
     if (!team) {
       const [id] = await trx('teams').insert({ name: DEMO_TEAM, created_at: now });
@@ -27,12 +35,13 @@ export async function seedDemoStudio(db: Db, now: number): Promise<{ teamId: num
         const [id] = await trx('users').insert({ email: demo.email, name: demo.name, password_hash: passwordHash, created_at: now });
         user = { id };
       }
+      if (demo.role === 'owner') ownerId = user.id;
       const member = await trx('memberships').where({ team_id: team.id, user_id: user.id }).first();
       if (!member) {
         await trx('memberships').insert({ team_id: team.id, user_id: user.id, role: demo.role, created_at: now + index });
       }
     }
-    return { teamId: team.id as number };
+    return { teamId: team.id as number, ownerId };
   });
 }
 

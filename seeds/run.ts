@@ -7,7 +7,7 @@ async function main() {
   const db = openDatabase(readConfig().databaseFile);
   try {
     await migrateToLatest(db);
-    await seedDemoStudio(db, Date.now());
+    await seedDemoStudio(db, { now: Date.now(), dataDir: readConfig().dataDir });
     console.log('Demo studio seeded.');
   } finally {
     await db.destroy();

@@ -6,10 +6,13 @@ import pinoHttp from 'pino-http';
 import type { AppDeps } from './deps';
 import { sessionMiddleware } from './middleware/session';
 import { loadViewer } from './middleware/auth';
+import { rejectCrossSiteWrites } from './middleware/csrf';
+import { enforceRouteTable } from './permissions';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { authRouter } from './routes/auth';
 import { meRouter } from './routes/me';
 import { healthRouter } from './routes/health';
+import { charactersRouter } from './routes/characters';
 
 export function createApp(deps: AppDeps): Express {
   const app = express();
@@ -38,10 +41,13 @@ export function createApp(deps: AppDeps): Express {
   const api = express.Router();
   api.use(express.json({ limit: '2mb' }));
   api.use(sessionMiddleware(deps));
+  api.use(rejectCrossSiteWrites);
   api.use(loadViewer(deps.db));
+  api.use(enforceRouteTable);
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
   api.use('/me', meRouter());
+  api.use('/characters', charactersRouter(deps));
   api.use(apiNotFound);
   app.use('/api', api);
 

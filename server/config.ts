@@ -8,6 +8,8 @@ export interface ServerConfig {
   port: number;
   host: string;
   databaseFile: string;
+  /** Uploaded files, content-addressed. */
+  dataDir: string;
   webDir: string;
   sessionSecret: string;
   secureCookies: boolean;
@@ -20,6 +22,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     port,
     host: env.HOST ?? '127.0.0.1',
     databaseFile: env.TREADLE_DB ?? developmentDatabaseFile,
+    dataDir: env.TREADLE_DATA_DIR ?? path.join(projectRoot, 'data', 'files'),
     webDir: env.TREADLE_WEB_DIR ?? path.join(projectRoot, 'dist'),
     // A random secret per start signs everyone out on restart; set SESSION_SECRET to keep sessions.
     sessionSecret: env.SESSION_SECRET ?? crypto.randomBytes(32).toString('hex'),

@@ -13,4 +13,6 @@ export interface AppDeps {
   /** Logs each request (off in tests). */
   logRequests?: boolean;
   version: string;
+  /** Where uploaded files are kept (content-addressed); tests pass a temporary folder. */
+  dataDir: string;
 }

@@ -24,6 +24,7 @@ export async function startServer(config: ServerConfig, options: { logRequests?:
     secureCookies: config.secureCookies,
     logRequests: options.logRequests ?? false,
     version: packageVersion(),
+    dataDir: config.dataDir,
   });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));

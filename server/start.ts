@@ -10,7 +10,7 @@ async function main() {
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   if (await databaseIsEmpty(db)) {
-    await seedDemoStudio(db, Date.now());
+    await seedDemoStudio(db, { now: Date.now(), dataDir: config.dataDir });
     console.log('Seeded the demo studio.');
   }
   await db.destroy();

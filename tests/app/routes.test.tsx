@@ -27,8 +27,8 @@ const me = {
 describe('routes', () => {
   it('sends a signed-out visitor of /characters to sign-in', async () => {
     fakeServer(signedOut);
-    renderRouter('./app', { initialUrl: '/characters' });
-    await waitFor(() => expect(screen).toHavePathname('/sign-in'));
+    const router = renderRouter('./app', { initialUrl: '/characters' });
+    await waitFor(() => expect(router.getPathname()).toBe('/sign-in'));
     expect(await screen.findByText('Sign in to your studio')).toBeTruthy();
   });
 

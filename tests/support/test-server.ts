@@ -14,11 +14,12 @@ export async function startTestServer(): Promise<RunningServer & { stop(): Promi
     port: 0,
     host: '127.0.0.1',
     databaseFile: path.join(dir, 'e2e.sqlite'),
+    dataDir: path.join(dir, 'files'),
     webDir,
     sessionSecret: 'e2e-secret',
     secureCookies: false,
   });
-  await seedDemoStudio(running.db, Date.now());
+  await seedDemoStudio(running.db, { now: Date.now(), dataDir: path.join(dir, 'files') });
   return {
     ...running,
     async stop() {

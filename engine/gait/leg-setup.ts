@@ -1,0 +1,228 @@
+/**
+ * The leg setup: every tunable setting of one character's legs. This one
+ * schema is shared by the server, the app's form and the exported profile.
+ * Angles are radians, lengths metres, times seconds.
+ */
+import { z } from 'zod';
+import { parseOrThrow } from '../course/parse';
+import { SOLVER_METHODS, type SolverMethod, type SolverOptions } from '../ik/types';
+import { DEFAULT_OPTIONS, dofCount } from '../ik/workspace';
+import { GAIT_PATTERNS, PRESET_GAITS, defaultPatternFor, evenPhaseOffsets } from './patterns';
+import type { Rig } from './rig';
+import { DEFAULT_FROUDE, speedForFroude } from './stride';
+
+export const LEG_SETUP_VERSION = 1;
+
+export const SolverSettingsSchema = z.object({
+  method: z.enum(SOLVER_METHODS as unknown as [SolverMethod, ...SolverMethod[]]),
+  maxIterations: z.number().int().min(1).max(1000),
+  tolerance: z.number().positive().max(0.1).describe('m'),
+  orientationTolerance: z.number().positive().max(1).describe('rad'),
+  maxStepAngle: z.number().positive().max(Math.PI).describe('largest joint change per iteration, rad'),
+  maxStepLength: z.number().positive().max(1).describe('largest slider change per iteration, m'),
+  /** Task error clamp per iteration (Buss & Kim 2005); null = off. */
+  clampDistance: z.number().positive().max(10).nullable(),
+  orientationWeight: z.number().min(0).max(10).describe('m per rad'),
+  lambda: z.number().min(0).max(10).describe('DLS damping, m'),
+  svdThreshold: z.number().min(0).max(1),
+  gammaMax: z.number().positive().max(Math.PI).describe('SDLS largest joint change, rad'),
+  adaptiveMode: z.enum(['manipulability', 'error']),
+  manipulabilityThreshold: z.number().positive().max(10),
+  lmBias: z.number().min(0).max(1),
+  nullSpace: z.discriminatedUnion('kind', [
+    z.object({ kind: z.literal('none') }),
+    z.object({ kind: z.literal('rest'), gain: z.number().min(0).max(1) }),
+  ]),
+  minStep: z.number().min(0).max(0.1),
+  resolveSaturated: z.boolean(),
+  /** Align the sole with the ground normal (needs an ankle; off for legs with fewer than 5 DOFs). */
+  footOrientation: z.boolean(),
+});
+
+export const GaitSettingsSchema = z.object({
+  pattern: z.enum(GAIT_PATTERNS),
+  /** Touchdown time of each leg as a fraction of the cycle, in rig leg order; null = the pattern's. */
+  phaseOffsets: z.array(z.number().min(0).max(1)).min(1).max(16).nullable(),
+  dutyFactor: z.number().min(0.05).max(0.98),
+  timing: z.discriminatedUnion('mode', [
+    z.object({ mode: z.literal('speed'), speed: z.number().positive().max(20).describe('m/s') }),
+    z.object({ mode: z.literal('cycle'), cycleTime: z.number().min(0.1).max(10).describe('s') }),
+  ]),
+  /** Stride length (one foot, one full cycle); null = Alexander (1976) from hip height and speed. */
+  stride: z.number().min(0.01).max(10).nullable(),
+  /** Swing clearance over the highest ground under the swing path, m. */
+  stepHeight: z.number().min(0).max(1),
+});
+
+export const BodySettingsSchema = z.object({
+  /** Added to the rig's neutral hip height, m. */
+  heightOffset: z.number().min(-2).max(2),
+  /** How much of the planted feet's height change the body follows, 0..1. */
+  followHeight: z.number().min(0).max(1),
+  followPitch: z.number().min(0).max(1),
+  followRoll: z.number().min(0).max(1),
+  /** 2 % settling time of the critically damped body filter, s. */
+  settleTime: z.number().min(0.02).max(5),
+  /** Body lowering per radian of ground slope, as a fraction of hip height. */
+  slopeCrouch: z.number().min(0).max(2),
+});
+
+export const JointLimitOverrideSchema = z
+  .object({
+    joint: z.string().min(1),
+    /** DOF of the joint (0 for a hinge or slider; 0–1 for a universal joint). */
+    dof: z.number().int().min(0).max(1).default(0),
+    /** Radians for rotations, metres for sliders. */
+    min: z.number(),
+    max: z.number(),
+  })
+  .refine((l) => l.min <= l.max, { message: 'min must not exceed max', path: ['max'] });
+
+export const LegOverrideSchema = z.object({
+  leg: z.string().min(1),
+  limits: z.array(JointLimitOverrideSchema).max(32),
+});
+
+export const LegSetupSchema = z
+  .object({
+    version: z.literal(LEG_SETUP_VERSION),
+    solver: SolverSettingsSchema,
+    gait: GaitSettingsSchema,
+    body: BodySettingsSchema,
+    legs: z.array(LegOverrideSchema).max(16).default([]),
+  })
+  .superRefine((s, ctx) => {
+    if (s.gait.pattern === 'custom' && s.gait.phaseOffsets === null) {
+      ctx.addIssue({ code: 'custom', path: ['gait', 'phaseOffsets'], message: 'the custom pattern needs phaseOffsets' });
+    }
+  });
+
+export type SolverSettings = z.infer<typeof SolverSettingsSchema>;
+export type GaitSettings = z.infer<typeof GaitSettingsSchema>;
+export type BodySettings = z.infer<typeof BodySettingsSchema>;
+export type LegOverride = z.infer<typeof LegOverrideSchema>;
+export type LegSetup = z.infer<typeof LegSetupSchema>;
+export type LegSetupInput = z.input<typeof LegSetupSchema>;
+
+export class LegSetupError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'LegSetupError';
+  }
+}
+
+/** Legs with fewer DOFs cannot place the sole and also turn it to the ground. */
+const MIN_DOFS_FOR_ORIENTATION = 5;
+
+/** Body defaults: common practice, no source (a filter that settles in about a step). */
+export const DEFAULT_BODY: BodySettings = {
+  heightOffset: 0,
+  followHeight: 1,
+  followPitch: 1,
+  followRoll: 1,
+  settleTime: 0.3,
+  slopeCrouch: 0.15,
+};
+
+/** Default step height as a fraction of hip height (common practice, no source). */
+export const DEFAULT_STEP_HEIGHT_RATIO = 0.1;
+
+export function defaultSolverSettings(footOrientation: boolean): SolverSettings {
+  const o = DEFAULT_OPTIONS;
+  return {
+    method: o.method,
+    maxIterations: o.maxIterations,
+    tolerance: o.tolerance,
+    orientationTolerance: o.orientationTolerance,
+    maxStepAngle: o.maxStepAngle,
+    maxStepLength: o.maxStepLength,
+    clampDistance: Number.isFinite(o.clampDistance) ? o.clampDistance : null,
+    orientationWeight: o.orientationWeight,
+    lambda: o.lambda,
+    svdThreshold: o.svdThreshold,
+    gammaMax: o.gammaMax,
+    adaptiveMode: o.adaptiveMode,
+    manipulabilityThreshold: o.manipulabilityThreshold,
+    lmBias: o.lmBias,
+    nullSpace: o.nullSpace.kind === 'rest' ? { kind: 'rest', gain: o.nullSpace.gain } : { kind: 'none' },
+    minStep: o.minStep,
+    resolveSaturated: o.resolveSaturated,
+    footOrientation,
+  };
+}
+
+/** The engine's default leg setup for a rig. */
+export function defaultLegSetup(rig: Rig): LegSetup {
+  const pattern = defaultPatternFor(rig.legs.length);
+  const preset = pattern === 'custom' ? null : PRESET_GAITS[pattern];
+  const orient = rig.legs.every((l) => dofCount(l.chain) >= MIN_DOFS_FOR_ORIENTATION);
+  return {
+    version: LEG_SETUP_VERSION,
+    solver: defaultSolverSettings(orient),
+    gait: {
+      pattern,
+      phaseOffsets: preset ? null : evenPhaseOffsets(rig.legs.length),
+      dutyFactor: preset ? preset.dutyFactor : 0.75,
+      timing: { mode: 'speed', speed: speedForFroude(DEFAULT_FROUDE, rig.hipHeight) },
+      stride: null,
+      stepHeight: DEFAULT_STEP_HEIGHT_RATIO * rig.hipHeight,
+    },
+    body: { ...DEFAULT_BODY },
+    legs: [],
+  };
+}
+
+/** Parse unknown input (API body, form, profile); the error names every problem. */
+export function parseLegSetup(input: unknown): LegSetup {
+  return parseOrThrow(LegSetupSchema, input, 'leg setup', (m) => new LegSetupError(m));
+}
+
+/** The solver options the IK engine takes for this setup. */
+export function solverOptionsOf(s: SolverSettings): Partial<SolverOptions> {
+  return {
+    method: s.method,
+    maxIterations: s.maxIterations,
+    tolerance: s.tolerance,
+    orientationTolerance: s.orientationTolerance,
+    maxStepAngle: s.maxStepAngle,
+    maxStepLength: s.maxStepLength,
+    clampDistance: s.clampDistance ?? Infinity,
+    orientationWeight: s.orientationWeight,
+    lambda: s.lambda,
+    svdThreshold: s.svdThreshold,
+    gammaMax: s.gammaMax,
+    adaptiveMode: s.adaptiveMode,
+    manipulabilityThreshold: s.manipulabilityThreshold,
+    lmBias: s.lmBias,
+    nullSpace: s.nullSpace,
+    minStep: s.minStep,
+    resolveSaturated: s.resolveSaturated,
+    warmStart: 'current',
+  };
+}
+
+/** Checks that need the rig: leg and joint names, number of phase offsets. Throws a LegSetupError. */
+export function checkLegSetupForRig(setup: LegSetup, rig: Rig): void {
+  const offsets = setup.gait.phaseOffsets;
+  const pattern = setup.gait.pattern;
+  if (offsets && offsets.length !== rig.legs.length) {
+    throw new LegSetupError(`gait.phaseOffsets: rig ${rig.name} has ${rig.legs.length} legs, got ${offsets.length} offsets`);
+  }
+  if (!offsets && pattern !== 'custom' && PRESET_GAITS[pattern].legs !== rig.legs.length) {
+    throw new LegSetupError(
+      `gait.pattern: ${pattern} is for ${PRESET_GAITS[pattern].legs} legs, rig ${rig.name} has ${rig.legs.length}; give phaseOffsets`,
+    );
+  }
+  setup.legs.forEach((o, i) => {
+    const leg = rig.legs.find((l) => l.name === o.leg);
+    if (!leg) throw new LegSetupError(`legs[${i}].leg: rig ${rig.name} has no leg named ${o.leg}`);
+    o.limits.forEach((lim, k) => {
+      const joint = leg.chain.joints.find((j) => j.name === lim.joint);
+      const where = `legs[${i}].limits[${k}]`;
+      if (!joint) throw new LegSetupError(`${where}.joint: leg ${o.leg} has no joint named ${lim.joint}`);
+      if (joint.kind === 'ball') throw new LegSetupError(`${where}.joint: ${lim.joint} is a ball joint; only hinge, universal and slider limits can be overridden`);
+      const dofs = joint.kind === 'universal' ? 2 : 1;
+      if (lim.dof >= dofs) throw new LegSetupError(`${where}.dof: ${lim.joint} has ${dofs} DOF(s), got dof ${lim.dof}`);
+    });
+  });
+}

@@ -1,0 +1,181 @@
+/**
+ * Stumble detection. One detector, fed frame by frame: the trial loop feeds
+ * it every simulated frame, and `detectStumbles` feeds it a recorded series.
+ * Per leg and frame it needs the contact flag, the foot and its target, the
+ * ground height under the foot and the leg's fastest joint speed.
+ *
+ *  - sink: in stance, sole below the ground by more than sinkDepth for
+ *    sinkFrames frames or more; one event per run, size = deepest.
+ *  - skid: in stance, horizontal distance from where the foot was at
+ *    touchdown above skidDistance; one event per stance, size = largest.
+ *  - reach-miss: at touchdown, |target − foot| above reachMissResidual.
+ *  - scuff: in swing, sole below the ground by more than scuffDepth; one
+ *    event per run, size = deepest.
+ *  - snap: fastest joint above snapSpeed; one event per run, size = fastest.
+ * Events live in growable typed arrays; a frame without events allocates nothing.
+ */
+import { STUMBLE_KINDS, type StumbleKind, type StumbleThresholds } from './stumble-thresholds';
+import type { StumbleEvent } from './trial-metrics';
+
+const SINK = 0;
+const SKID = 1;
+const REACH_MISS = 2;
+const SCUFF = 3;
+const SNAP = 4;
+
+export class StumbleDetector {
+  readonly legs: number;
+  readonly thresholds: StumbleThresholds;
+  /** Touchdowns seen, all legs. */
+  steps = 0;
+  readonly counts = new Int32Array(STUMBLE_KINDS.length);
+
+  private time = 0;
+  private started: Uint8Array;
+  private contact: Uint8Array;
+  private anchorX: Float64Array;
+  private anchorZ: Float64Array;
+  private sinkRun: Int32Array;
+  private sinkMax: Float64Array;
+  private sinkStart: Float64Array;
+  /** Index of the open event of each kind per leg (−1 = none): legs × 5. */
+  private open: Int32Array;
+
+  private evKind = new Uint8Array(64);
+  private evLeg = new Uint16Array(64);
+  private evTime = new Float64Array(64);
+  private evSize = new Float64Array(64);
+  eventCount = 0;
+
+  constructor(legs: number, thresholds: StumbleThresholds) {
+    this.legs = legs;
+    this.thresholds = thresholds;
+    this.started = new Uint8Array(legs);
+    this.contact = new Uint8Array(legs);
+    this.anchorX = new Float64Array(legs);
+    this.anchorZ = new Float64Array(legs);
+    this.sinkRun = new Int32Array(legs);
+    this.sinkMax = new Float64Array(legs);
+    this.sinkStart = new Float64Array(legs);
+    this.open = new Int32Array(legs * 5).fill(-1);
+  }
+
+  /** Start a frame at `time` seconds; then call `leg` once per leg. */
+  frame(time: number): void {
+    this.time = time;
+  }
+
+  private push(kind: number, leg: number, time: number, size: number): number {
+    if (this.eventCount === this.evKind.length) {
+      const n = this.eventCount * 2;
+      const grow = <T extends Uint8Array | Uint16Array | Float64Array>(a: T, make: (n: number) => T): T => {
+        const b = make(n);
+        b.set(a);
+        return b;
+      };
+      this.evKind = grow(this.evKind, (k) => new Uint8Array(k));
+      this.evLeg = grow(this.evLeg, (k) => new Uint16Array(k));
+      this.evTime = grow(this.evTime, (k) => new Float64Array(k));
+      this.evSize = grow(this.evSize, (k) => new Float64Array(k));
+    }
+    const i = this.eventCount++;
+    this.evKind[i] = kind;
+    this.evLeg[i] = leg;
+    this.evTime[i] = time;
+    this.evSize[i] = size;
+    this.counts[kind]++;
+    return i;
+  }
+
+  /** Grow the open event of `kind` on `leg` to `size`, or open one. */
+  private runEvent(kind: number, leg: number, size: number): void {
+    const slot = leg * 5 + kind;
+    const i = this.open[slot];
+    if (i < 0) this.open[slot] = this.push(kind, leg, this.time, size);
+    else if (size > this.evSize[i]) this.evSize[i] = size;
+  }
+
+  private close(kind: number, leg: number): void {
+    this.open[leg * 5 + kind] = -1;
+  }
+
+  leg(
+    leg: number,
+    inContact: boolean,
+    footX: number,
+    footY: number,
+    footZ: number,
+    targetX: number,
+    targetY: number,
+    targetZ: number,
+    groundY: number,
+    jointSpeedDeg: number,
+  ): void {
+    const th = this.thresholds;
+    const c = inContact ? 1 : 0;
+    const first = this.started[leg] === 0;
+    const touchdown = !first && c === 1 && this.contact[leg] === 0;
+    const liftoff = !first && c === 0 && this.contact[leg] === 1;
+    this.started[leg] = 1;
+    this.contact[leg] = c;
+
+    if (touchdown || (first && c === 1)) {
+      this.anchorX[leg] = footX;
+      this.anchorZ[leg] = footZ;
+      this.close(SKID, leg);
+    }
+    if (touchdown) {
+      this.steps++;
+      const dx = targetX - footX;
+      const dy = targetY - footY;
+      const dz = targetZ - footZ;
+      const residual = Math.sqrt(dx * dx + dy * dy + dz * dz);
+      if (residual > th.reachMissResidual) this.push(REACH_MISS, leg, this.time, residual);
+    }
+    if (liftoff) {
+      this.close(SINK, leg);
+      this.sinkRun[leg] = 0;
+      this.close(SKID, leg);
+    }
+    if (touchdown) this.close(SCUFF, leg);
+
+    const depth = groundY - footY;
+    if (c === 1) {
+      if (depth > th.sinkDepth) {
+        if (this.sinkRun[leg] === 0) {
+          this.sinkStart[leg] = this.time;
+          this.sinkMax[leg] = depth;
+        } else if (depth > this.sinkMax[leg]) this.sinkMax[leg] = depth;
+        this.sinkRun[leg]++;
+        // The event is dated to the first frame of the run.
+        if (this.sinkRun[leg] === th.sinkFrames) this.open[leg * 5 + SINK] = this.push(SINK, leg, this.sinkStart[leg], this.sinkMax[leg]);
+        else if (this.sinkRun[leg] > th.sinkFrames) this.runEvent(SINK, leg, depth);
+      } else {
+        this.sinkRun[leg] = 0;
+        this.close(SINK, leg);
+      }
+      const sx = footX - this.anchorX[leg];
+      const sz = footZ - this.anchorZ[leg];
+      const slide = Math.sqrt(sx * sx + sz * sz);
+      if (slide > th.skidDistance) this.runEvent(SKID, leg, slide);
+    } else {
+      if (depth > th.scuffDepth) this.runEvent(SCUFF, leg, depth);
+      else this.close(SCUFF, leg);
+    }
+
+    if (jointSpeedDeg > th.snapSpeed) this.runEvent(SNAP, leg, jointSpeedDeg);
+    else this.close(SNAP, leg);
+  }
+
+  events(): StumbleEvent[] {
+    const out: StumbleEvent[] = [];
+    for (let i = 0; i < this.eventCount; i++) {
+      out.push({ kind: STUMBLE_KINDS[this.evKind[i]], time: this.evTime[i], leg: this.evLeg[i], size: this.evSize[i] });
+    }
+    return out;
+  }
+
+  countOf(kind: StumbleKind): number {
+    return this.counts[STUMBLE_KINDS.indexOf(kind)];
+  }
+}
