@@ -8,7 +8,8 @@ import { seedDemoStudio } from '../../seeds/demo-studio';
 /** The real server on a random loopback port, over a fresh SQLite file seeded with the demo studio. */
 export async function startTestServer(): Promise<RunningServer & { stop(): Promise<void> }> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-e2e-'));
-  const webDir = path.join(projectRoot, 'dist');
+  // Helpers building their own export (npx expo export --output-dir DIR) point TREADLE_WEB_DIR at it.
+  const webDir = process.env.TREADLE_WEB_DIR ?? path.join(projectRoot, 'dist');
   if (!fs.existsSync(path.join(webDir, 'index.html'))) throw new Error('No web export in dist/: run `npm run build:web` (npm test does it).');
   const running = await startServer({
     port: 0,
