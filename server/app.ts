@@ -13,6 +13,7 @@ import { authRouter } from './routes/auth';
 import { meRouter } from './routes/me';
 import { healthRouter } from './routes/health';
 import { charactersRouter } from './routes/characters';
+import { billingRouter, billingWebhookRouter } from './routes/billing';
 
 export function createApp(deps: AppDeps): Express {
   const app = express();
@@ -39,6 +40,7 @@ export function createApp(deps: AppDeps): Express {
   if (deps.logRequests) app.use(pinoHttp({ autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
 
   const api = express.Router();
+  api.use('/billing/webhook', billingWebhookRouter(deps));
   api.use(express.json({ limit: '2mb' }));
   api.use(sessionMiddleware(deps));
   api.use(rejectCrossSiteWrites);
@@ -48,6 +50,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/auth', authRouter(deps));
   api.use('/me', meRouter());
   api.use('/characters', charactersRouter(deps));
+  api.use(billingRouter(deps));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -4,6 +4,7 @@ import { roleSchema, type Role } from '../schemas/roles';
 import { rolesOf, type Access, type PermissionRow } from '../schemas/permissions';
 import { HttpError, unauthenticated } from './errors';
 import { characterRules } from './routes/characters.rules';
+import { billingRules } from './routes/billing.rules';
 
 const ALL: readonly Role[] = roleSchema.options;
 const OWNER: Role[] = ['owner'];
@@ -30,6 +31,7 @@ export const ROUTE_TABLE: RouteRule[] = [
   { method: 'POST', path: '/auth/sign-out', action: 'auth.sign-out', label: 'Sign out', access: 'public' },
   { method: 'GET', path: '/me', action: 'me.read', label: 'See your own account', access: 'member' },
   ...characterRules,
+  ...billingRules,
 ];
 
 /** Named role sets, for routes added by other modules. */

@@ -20,8 +20,8 @@ export const SolverSettingsSchema = z.object({
   orientationTolerance: z.number().positive().max(1).describe('rad'),
   maxStepAngle: z.number().positive().max(Math.PI).describe('largest joint change per iteration, rad'),
   maxStepLength: z.number().positive().max(1).describe('largest slider change per iteration, m'),
-  /** Task error clamp per iteration (Buss & Kim 2005); null = off. */
-  clampDistance: z.number().positive().max(10).nullable(),
+  /** Task error clamp per iteration (Buss & Kim 2005), m; 0 = the engine's automatic clamp, null = off. */
+  clampDistance: z.number().min(0).max(10).nullable(),
   orientationWeight: z.number().min(0).max(10).describe('m per rad'),
   lambda: z.number().min(0).max(10).describe('DLS damping, m'),
   svdThreshold: z.number().min(0).max(1),

@@ -29,8 +29,9 @@ export const PRESET_GAITS: Record<Exclude<GaitPatternName, 'custom'>, GaitPatter
     legs: 4,
     // Lateral-sequence walk: LH, LF, RH, RF a quarter cycle apart.
     phaseOffsets: [0.25, 0.75, 0, 0.5],
-    dutyFactor: 0.75,
-    source: 'common practice, no source: lateral-sequence walk, three feet down most of the time',
+    // Lower than a slow walk's 0.75 so that at the default speed the swing stays under the snap limit.
+    dutyFactor: 0.6,
+    source: 'common practice, no source: lateral-sequence walk',
   },
   'quadruped-trot': {
     legs: 4,

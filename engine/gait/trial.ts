@@ -19,7 +19,7 @@ import type { Heightfield } from '../course/heightfield';
 import { courseLength } from '../course/heightfield';
 import { parseOrThrow } from '../course/parse';
 import { heightAt, normalAt } from '../course/sample';
-import { createWorkspace, forwardKinematics, setRootTransform, solve, type IKWorkspace } from '../ik';
+import { createWorkspace, setRootTransform, solve, type IKWorkspace } from '../ik';
 import { DOF_SLIDE } from '../ik/workspace';
 import type { LegChain } from '../rig/types';
 import { footingScore } from '../metrics/footing-score';
@@ -101,6 +101,9 @@ export interface Trial {
   /** Current target and target normal, actual foot: 3 per leg. */
   readonly target: Float64Array;
   readonly targetNormal: Float64Array;
+  /** Views of leg i's target and target normal (made once: subarray allocates). */
+  readonly targetOf: Float64Array[];
+  readonly targetNormalOf: Float64Array[];
   readonly foot: Float64Array;
   readonly prevPose: Float64Array[];
   readonly jointSpeed: Float64Array;
@@ -300,6 +303,8 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
   const capacity = Math.floor(totalFrames * dt * recordRate + 1e-9) + 2;
   const cycleFrames = Math.ceil(gait.cycleTime / dt) + Math.ceil(TOUCHDOWN_WINDOW_SECONDS / dt) + 4;
 
+  const target = new Float64Array(3 * L);
+  const targetNormal = new Float64Array(3 * L);
   const t: Trial = {
     rig,
     setup,
@@ -319,8 +324,10 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     swings: rig.legs.map(() => createSwingPlan()),
     liftNormal: new Float64Array(3 * L),
     landNormal: new Float64Array(3 * L),
-    target: new Float64Array(3 * L),
-    targetNormal: new Float64Array(3 * L),
+    target,
+    targetNormal,
+    targetOf: rig.legs.map((_, i) => target.subarray(3 * i, 3 * i + 3)),
+    targetNormalOf: rig.legs.map((_, i) => targetNormal.subarray(3 * i, 3 * i + 3)),
     foot: new Float64Array(3 * L),
     prevPose: solvers.map((s) => new Float64Array(s.nDof)),
     jointSpeed: new Float64Array(L),
@@ -372,7 +379,7 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
   placeHips(t);
   updateTargets(t, 0);
   for (let i = 0; i < L; i++) {
-    const r = solve(solvers[i], t.target.subarray(3 * i, 3 * i + 3), t.orient ? t.targetNormal.subarray(3 * i, 3 * i + 3) : null, {
+    const r = solve(solvers[i], t.targetOf[i], t.orient ? t.targetNormalOf[i] : null, {
       maxIterations: SETTLE_ITERATIONS,
       warmStart: 'rest',
     });
@@ -490,8 +497,8 @@ export function stepTrial(t: Trial): boolean {
     if (nowStance) {
       plantAt(t, i, sw.x1, sw.y1, sw.z1);
       supportChanged = true;
-      t.touchdownSummary.fold(t.touchdownWindows[i]);
     } else {
+      if (t.touchdownWindows[i].open) t.touchdownSummary.fold(t.touchdownWindows[i]);
       startSwing(t, i, time + (1 - phase) * T);
     }
   }
@@ -502,7 +509,7 @@ export function stepTrial(t: Trial): boolean {
   const rise = bodyTargets[0] - t.heightTarget;
   if (supportChanged && Math.abs(rise) >= BODY_STEP_UP_MIN) {
     if (t.bodyWindow.open) t.bodySummary.fold(t.bodyWindow);
-    if (rise > 0) t.bodyWindow.start(t.height.value, bodyTargets[0], time);
+    if (rise > 0) t.bodyWindow.start(t.height.value, bodyTargets[0], time, time + BODY_WINDOW_SECONDS);
   }
   t.heightTarget = bodyTargets[0];
   stepCriticallyDamped(t.height, bodyTargets[0], t.omega, dt);
@@ -524,7 +531,7 @@ export function stepTrial(t: Trial): boolean {
     const descent = 1 - (0.5 - 0.25 * sw.boxiness);
     if (tau >= descent) {
       const landTime = time + (1 - phase) * T;
-      w.start(t.solvers[i].foot[1], sw.y1, landTime);
+      w.start(t.solvers[i].foot[1], sw.y1, landTime, landTime + TOUCHDOWN_WINDOW_SECONDS);
     }
   }
 
@@ -532,7 +539,7 @@ export function stepTrial(t: Trial): boolean {
   for (let i = 0; i < t.legs; i++) {
     const ws = t.solvers[i];
     const o = 3 * i;
-    const r = solve(ws, t.target.subarray(o, o + 3), t.orient ? t.targetNormal.subarray(o, o + 3) : null);
+    const r = solve(ws, t.targetOf[i], t.orient ? t.targetNormalOf[i] : null);
     t.iterations[i] = r.iterations;
     t.error[i] = r.positionError;
     t.solves++;
@@ -601,5 +608,3 @@ export function runTrial(rig: Rig, setup: unknown, course: Heightfield, options:
   while (stepTrial(t));
   return finishTrial(t);
 }
-
-export { forwardKinematics };

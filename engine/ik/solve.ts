@@ -11,6 +11,7 @@ import {
   DOF_SLIDE,
   JOINT_BALL,
   JOINT_SLIDER,
+  applyClamp,
   applyWeights,
   clampBall,
   expRotationVector,
@@ -317,8 +318,8 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   // Target clamp (Buss 2004; Buss & Kim 2005).
   const e = ws.e;
   const el = Math.sqrt(e[0] * e[0] + e[1] * e[1] + e[2] * e[2]);
-  if (el > o.clampDistance) {
-    const k = o.clampDistance / el;
+  if (el > ws.clampDistance) {
+    const k = ws.clampDistance / el;
     e[0] *= k;
     e[1] *= k;
     e[2] *= k;
@@ -331,7 +332,6 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   let hits = 0;
   if (o.resolveSaturated && violates(ws)) {
     const locked = ws.locked;
-    locked.fill(0);
     const dql = ws.dqLocked;
     const J = ws.J;
     const eRem = ws.eRes; // remaining error (biasedStep uses ws.e2 as its own scratch)
@@ -362,6 +362,7 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
       for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = dql[i];
       if (!violates(ws)) break;
     }
+    locked.fill(0); // `violates` reads the mask: leave it clear for the next iteration
   }
   hits += applyStep(ws);
   return hits;
@@ -484,11 +485,13 @@ export function solve(
   ws.options = { ...saved, ...overrides };
   const weightsChanged = 'weights' in overrides;
   if (weightsChanged) applyWeights(ws);
+  applyClamp(ws);
   try {
     return solveImpl(ws, target, normal);
   } finally {
     ws.options = saved;
     if (weightsChanged) applyWeights(ws);
+    applyClamp(ws);
   }
 }
 

@@ -35,7 +35,11 @@ export interface SolverOptions {
   maxStepAngle: number;
   /** Largest change of any slider DOF in one iteration, metres. */
   maxStepLength: number;
-  /** Target clamp: the task error is clamped to this length per iteration, metres (Buss 2004, §... "clamping"). Infinity = off. */
+  /**
+   * Target clamp (Buss 2004; Buss & Kim 2005): the position error used for a
+   * step is clamped to this length, metres. 0 = auto (a tenth of the chain's
+   * reach); Infinity = off.
+   */
   clampDistance: number;
   /** Orientation rows weight, metres per radian. */
   orientationWeight: number;

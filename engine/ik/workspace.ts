@@ -25,9 +25,9 @@ export const DEFAULT_OPTIONS: SolverOptions = {
   orientationTolerance: 1e-3,
   maxStepAngle: 0.6,
   maxStepLength: 0.1,
-  clampDistance: Infinity,
+  clampDistance: 0,
   orientationWeight: 0.1,
-  lambda: 0.02,
+  lambda: 0.05,
   svdThreshold: 1e-4,
   gammaMax: Math.PI / 4,
   adaptiveMode: 'error',
@@ -84,6 +84,8 @@ export interface IKWorkspace {
   readonly soleNormal: Float64Array;
   readonly toe: Float64Array | null;
   readonly knee: number;
+  /** Effective target clamp (options.clampDistance, or 0.1·reach when that is 0). */
+  clampDistance: number;
 
   // ---- state ----
   /** DOF values; for ball joints the rotation vector of the quaternion (kept in sync after each solve). */
@@ -302,6 +304,7 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     soleNormal: Float64Array.from(normalize3(chain.soleNormal)),
     toe: chain.toe ? Float64Array.from(chain.toe.offset) : null,
     knee: chain.knee ?? Math.max(0, nJ - 2),
+    clampDistance: 0,
     pose,
     quat,
     rootPos: new Float64Array(3),
@@ -339,6 +342,7 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     result,
   };
   applyWeights(ws);
+  applyClamp(ws);
   resetPose(ws);
   return ws;
 }
@@ -355,6 +359,15 @@ export function applyWeights(ws: IKWorkspace): void {
   }
 }
 
+/** Resolve the effective target clamp distance. */
+export function applyClamp(ws: IKWorkspace): void {
+  const c = ws.options.clampDistance;
+  ws.clampDistance = c > 0 ? c : CLAMP_REACH_FRACTION * (ws.chain.reach > 0 ? ws.chain.reach : 1);
+}
+
+/** Default target clamp as a fraction of the chain's reach (clampDistance = 0). */
+export const CLAMP_REACH_FRACTION = 0.1;
+
 /** Replace some options (kept for later solves). */
 export function setOptions(ws: IKWorkspace, options: Partial<SolverOptions>): void {
   const next = { ...ws.options, ...options };
@@ -364,6 +377,7 @@ export function setOptions(ws: IKWorkspace, options: Partial<SolverOptions>): vo
   }
   ws.options = next;
   if ('weights' in options) applyWeights(ws);
+  applyClamp(ws);
 }
 
 /** Set the pose to the chain's rest pose (ball joints to identity). */

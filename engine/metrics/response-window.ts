@@ -15,31 +15,30 @@ export class ResponseWindow {
   final = 0;
   /** Settling is reported from this time on (e.g. the touchdown), not from the window start. */
   settleFrom = 0;
+  /** Samples after this time end the window. */
+  endTime = Infinity;
 
   constructor(capacity: number) {
     this.times = new Float64Array(capacity);
     this.values = new Float64Array(capacity);
   }
 
-  start(initial: number, final: number, settleFrom: number): void {
+  start(initial: number, final: number, settleFrom: number, endTime: number): void {
     this.open = true;
+    this.endTime = endTime;
     this.length = 0;
     this.initial = initial;
     this.final = final;
     this.settleFrom = settleFrom;
   }
 
-  /** Adds a sample; returns false when the buffer is full. */
+  /** Adds a sample; returns false (and adds nothing) when the window is over or full. */
   add(time: number, value: number): boolean {
-    if (this.length >= this.times.length) return false;
+    if (time > this.endTime || this.length >= this.times.length) return false;
     this.times[this.length] = time;
     this.values[this.length] = value;
     this.length++;
     return true;
-  }
-
-  get full(): boolean {
-    return this.length >= this.times.length;
   }
 }
 
