@@ -6,8 +6,8 @@ export async function up(knex: Knex): Promise<void> {
     t.string('email', 254).notNullable().unique();
     t.string('name', 80).notNullable();
     t.string('password_hash').notNullable();
-    // Sessions issued before this moment are void: "sign out everywhere" and password resets move it.
-    t.bigInteger('sessions_valid_after').notNullable().defaultTo(0);
+    // A session is valid only while it carries this number: "sign out everywhere" and password resets raise it.
+    t.integer('session_generation').notNullable().defaultTo(0);
     t.bigInteger('created_at').notNullable();
   });
   await knex.schema.createTable('teams', (t) => {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { roleSchema } from './roles';
+import { COMMON_PASSWORDS } from './common-passwords';
 
 /** NIST SP 800-63B §5.1.1: at least 8 characters, at least 64 allowed, no composition rules. */
 export const PASSWORD_MIN = 8;
@@ -16,7 +17,8 @@ export const emailSchema = z
 export const newPasswordSchema = z
   .string({ error: 'Choose a password.' })
   .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
-  .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
+  .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`)
+  .refine((p) => !COMMON_PASSWORDS.has(p.toLowerCase()), 'That password is one of the most common ones; choose another.');
 
 export const signInSchema = z.object({
   email: emailSchema,
@@ -39,9 +41,33 @@ export type SignUpInput = z.infer<typeof signUpSchema>;
 export const userSchema = z.object({ id: z.number().int(), email: z.string(), name: z.string() });
 export const teamSchema = z.object({ id: z.number().int(), name: z.string() });
 
+export const membershipSummarySchema = z.object({ id: z.number().int(), name: z.string(), role: roleSchema });
+
 export const meSchema = z.object({
   user: userSchema,
   team: teamSchema,
   role: roleSchema,
+  /** Action names from the permission table that this role may take. */
+  permissions: z.array(z.string()),
+  /** Every studio this user belongs to, for the switcher in the header. */
+  teams: z.array(membershipSummarySchema),
 });
 export type Me = z.infer<typeof meSchema>;
+
+export const switchTeamSchema = z.object({ teamId: z.number({ error: 'Pick a studio.' }).int() });
+
+export const resetRequestSchema = z.object({ email: emailSchema });
+export type ResetRequestInput = z.infer<typeof resetRequestSchema>;
+
+export const resetPasswordSchema = z.object({
+  token: z.string().min(1, 'This reset link is incomplete.'),
+  password: newPasswordSchema,
+});
+export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
+
+/** Public facts about the running instance that the app needs before sign-in. */
+export const appConfigSchema = z.object({
+  /** The local mail catcher's inbox in development; absent in production. */
+  localInboxUrl: z.string().optional(),
+});
+export type AppConfig = z.infer<typeof appConfigSchema>;

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 
-export const roleSchema = z.enum(['owner', 'designer', 'programmer', 'art_lead']);
+export const roleSchema = z.enum(['owner', 'designer', 'programmer', 'art_lead'], {
+  error: 'Pick a role: owner, designer, programmer or art lead.',
+});
 export type Role = z.infer<typeof roleSchema>;
 
 export const roleLabels: Record<Role, string> = {

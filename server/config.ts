@@ -13,6 +13,12 @@ export interface ServerConfig {
   webDir: string;
   sessionSecret: string;
   secureCookies: boolean;
+  /** Where people reach this instance, for links in mail; defaults to the address it listens on. */
+  publicUrl?: string;
+  /** A real SMTP relay; without one, `npm start` runs the local mail catcher. */
+  smtp?: { host: string; port: number; secure: boolean; auth?: { user: string; pass: string } };
+  /** Port of the local mail catcher's web inbox. */
+  inboxPort: number;
 }
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -27,6 +33,16 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     // A random secret per start signs everyone out on restart; set SESSION_SECRET to keep sessions.
     sessionSecret: env.SESSION_SECRET ?? crypto.randomBytes(32).toString('hex'),
     secureCookies: env.SECURE_COOKIES === '1',
+    publicUrl: env.PUBLIC_URL?.replace(/\/$/, ''),
+    smtp: env.SMTP_HOST
+      ? {
+          host: env.SMTP_HOST,
+          port: Number(env.SMTP_PORT ?? 587),
+          secure: env.SMTP_SECURE === '1',
+          auth: env.SMTP_USER ? { user: env.SMTP_USER, pass: env.SMTP_PASS ?? '' } : undefined,
+        }
+      : undefined,
+    inboxPort: Number(env.INBOX_PORT ?? port + 1),
   };
 }
 

@@ -1,5 +1,15 @@
 import type { Db } from './db';
 import type { Clock } from './clock';
+import type { Mailer } from './services/mail';
+import type Stripe from 'stripe';
+
+/** The payment service as the app uses it: the stripe SDK (pointed at the local fake), and its webhook signing secret. */
+export interface PaymentsDeps {
+  client: Stripe;
+  webhookSecret: string;
+  /** Shown on the billing screen: true while payments go to a test stand-in and no real money moves. */
+  testMode: boolean;
+}
 
 /** Everything the app is built from, so tests build it with their own database, clock and fakes. */
 export interface AppDeps {
@@ -13,6 +23,12 @@ export interface AppDeps {
   /** Logs each request (off in tests). */
   logRequests?: boolean;
   version: string;
+  mailer: Mailer;
+  /** The address people reach this instance at, for links in mail (never taken from a request's Host header). */
+  publicUrl(): string;
+  /** The local mail catcher's web inbox, shown by the app in development. */
+  localInboxUrl?: string;
   /** Where uploaded files are kept (content-addressed); tests pass a temporary folder. */
   dataDir: string;
+  payments: PaymentsDeps;
 }

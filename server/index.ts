@@ -4,27 +4,45 @@ import { createApp } from './app';
 import { systemClock } from './clock';
 import { openDatabase, migrateToLatest, type Db } from './db';
 import { packageVersion, readConfig, type ServerConfig } from './config';
+import type { Mailer } from './services/mail';
+import { startLocalPayments, type LocalPayments } from './fakes/payments/connect';
 
 export interface RunningServer {
   server: Server;
   db: Db;
   url: string;
+  /** The local payment fake's address (its checkout pages live there). */
+  paymentsUrl: string;
   close(): Promise<void>;
 }
 
+export interface ServerParts {
+  mailer: Mailer;
+  localInboxUrl?: string;
+  logRequests?: boolean;
+  /** The payment service; when omitted a local fake is started here and stopped with the server. */
+  payments?: LocalPayments;
+}
+
 /** Opens the database, migrates it, and listens. Used by `npm start` and by the browser tests. */
-export async function startServer(config: ServerConfig, options: { logRequests?: boolean } = {}): Promise<RunningServer> {
+export async function startServer(config: ServerConfig, parts: ServerParts): Promise<RunningServer> {
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
+  const payments = parts.payments ?? (await startLocalPayments());
+  let listenUrl = '';
   const app = createApp({
     db,
     clock: systemClock,
     sessionSecret: config.sessionSecret,
     webDir: config.webDir,
     secureCookies: config.secureCookies,
-    logRequests: options.logRequests ?? false,
+    logRequests: parts.logRequests ?? false,
     version: packageVersion(),
     dataDir: config.dataDir,
+    mailer: parts.mailer,
+    publicUrl: () => config.publicUrl ?? listenUrl,
+    localInboxUrl: parts.localInboxUrl,
+    payments: payments.deps,
   });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -32,19 +50,30 @@ export async function startServer(config: ServerConfig, options: { logRequests?:
   });
   const { port } = server.address() as AddressInfo;
   const shownHost = config.host === '0.0.0.0' || config.host === '127.0.0.1' ? 'localhost' : config.host;
+  listenUrl = `http://${shownHost}:${port}`;
+  const loopback = config.host === '0.0.0.0' || config.host === 'localhost' ? '127.0.0.1' : config.host;
+  payments.fake.setWebhookUrl(`http://${loopback}:${port}/api/billing/webhook`);
   return {
     server,
     db,
-    url: `http://${shownHost}:${port}`,
+    url: listenUrl,
+    paymentsUrl: payments.fake.url,
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      if (!parts.payments) await payments.fake.stop();
       await db.destroy();
     },
   };
 }
 
 if (require.main === module) {
-  startServer(readConfig(), { logRequests: true })
+  const config = readConfig();
+  if (!config.smtp) {
+    console.error('server/index.ts needs SMTP_HOST for mail; `npm start` runs a local mail catcher instead.');
+    process.exit(1);
+  }
+  import('./services/mail')
+    .then(({ smtpMailer }) => startServer(config, { mailer: smtpMailer(config.smtp!), logRequests: true }))
     .then(({ url }) => console.log(`Treadle is running at ${url}`))
     .catch((err) => {
       console.error(err);

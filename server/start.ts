@@ -2,6 +2,9 @@ import { readConfig } from './config';
 import { openDatabase, migrateToLatest } from './db';
 import { ensureWebBuild } from './web-build';
 import { startServer } from './index';
+import { smtpMailer } from './services/mail';
+import { startMailCatcher } from './fakes/mail-catcher';
+import { startLocalPayments } from './fakes/payments/connect';
 import { databaseIsEmpty, seedDemoStudio, DEMO_PASSWORD, DEMO_USERS } from '../seeds/demo-studio';
 
 /** `npm start`: migrate, seed an empty database with the demo studio, export the web app if stale, listen. */
@@ -15,8 +18,21 @@ async function main() {
   }
   await db.destroy();
   ensureWebBuild(config.webDir);
-  const running = await startServer(config, { logRequests: process.env.LOG_REQUESTS === '1' });
+  let mailer;
+  let localInboxUrl: string | undefined;
+  if (config.smtp) {
+    mailer = smtpMailer(config.smtp);
+  } else {
+    const catcher = await startMailCatcher({ inboxPort: config.inboxPort });
+    mailer = smtpMailer({ host: '127.0.0.1', port: catcher.smtpPort });
+    localInboxUrl = catcher.inboxUrl;
+  }
+  // The payment fake first: Treadle's webhook address is given to it once Treadle listens.
+  const payments = await startLocalPayments({ port: Number(process.env.PAYMENTS_PORT ?? 0) });
+  const running = await startServer(config, { mailer, localInboxUrl, payments, logRequests: process.env.LOG_REQUESTS === '1' });
   console.log(`\nTreadle is running at ${running.url}\n`);
+  console.log(`Payments (local test stand-in, no real money moves): ${payments.fake.url}`);
+  if (localInboxUrl) console.log(`Local inbox (mail Treadle sends, kept on this machine): ${localInboxUrl}`);
   console.log(`Demo sign-ins (demo only, password "${DEMO_PASSWORD}"):`);
   for (const u of DEMO_USERS) console.log(`  ${u.email.padEnd(28)} ${u.role}`);
   if (config.host === '127.0.0.1') console.log('\nListening on this machine only; HOST=0.0.0.0 npm start opens it to your network.');

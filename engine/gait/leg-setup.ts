@@ -35,7 +35,7 @@ export const SolverSettingsSchema = z.object({
   ]),
   minStep: z.number().min(0).max(0.1),
   resolveSaturated: z.boolean(),
-  /** Align the sole with the ground normal (needs an ankle; off for legs with fewer than 5 DOFs). */
+  /** Align the sole with the ground normal (needs an ankle: on by default only for legs with 6 or more DOFs). */
   footOrientation: z.boolean(),
 });
 
@@ -112,7 +112,7 @@ export class LegSetupError extends Error {
 }
 
 /** Legs with fewer DOFs cannot place the sole and also turn it to the ground. */
-const MIN_DOFS_FOR_ORIENTATION = 5;
+const MIN_DOFS_FOR_ORIENTATION = 6;
 
 /** Body defaults: common practice, no source (a filter that settles in about a step). */
 export const DEFAULT_BODY: BodySettings = {

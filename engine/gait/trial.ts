@@ -65,6 +65,8 @@ export interface TrialResult {
 export const BODY_STEP_UP_MIN = 0.02;
 /** Longest body step-up window, s. */
 const BODY_WINDOW_SECONDS = 2;
+/** Smallest swing descent measured as a touchdown response, m. */
+export const TOUCHDOWN_MIN_DESCENT = 0.01;
 /** Longest touchdown window after the touchdown, s. */
 const TOUCHDOWN_WINDOW_SECONDS = 0.5;
 /** Iterations for the first solve from the rest pose, before the clock starts. */
@@ -72,6 +74,10 @@ const SETTLE_ITERATIONS = 200;
 /** Margin kept clear at the far end of the course, m. */
 const END_MARGIN = 0.1;
 const DEG = 180 / Math.PI;
+// Local copies: imported bindings compile to property reads under CommonJS interop, too slow for the inner loop.
+const SLIDER_DOF = DOF_SLIDE;
+const X_AXIS = new Float64Array([1, 0, 0]);
+const Z_AXIS = new Float64Array([0, 0, 1]);
 
 export interface Trial {
   readonly rig: Rig;
@@ -247,8 +253,8 @@ function computeBodyTargets(t: Trial): void {
 
 function updateBodyRotation(t: Trial): void {
   // Nose up is a negative turn about +X (+Z forward, +Y up); left side up is a positive turn about +Z.
-  quat.setAxisAngle(pitchRot as unknown as quat, [1, 0, 0], -t.pitch.value);
-  quat.setAxisAngle(t.bodyRot as unknown as quat, [0, 0, 1], t.roll.value);
+  quat.setAxisAngle(pitchRot as unknown as quat, X_AXIS as unknown as vec3, -t.pitch.value);
+  quat.setAxisAngle(t.bodyRot as unknown as quat, Z_AXIS as unknown as vec3, t.roll.value);
   quat.multiply(t.bodyRot as unknown as quat, t.bodyRot as unknown as quat, pitchRot as unknown as quat);
 }
 
@@ -342,9 +348,9 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     omega: omegaForSettleTime(setup.body.settleTime),
     detector: new StumbleDetector(L, options.thresholds),
     touchdownWindows: rig.legs.map(() => new ResponseWindow(cycleFrames)),
-    touchdownSummary: new ResponseSummary(),
+    touchdownSummary: new ResponseSummary(TOUCHDOWN_MIN_DESCENT),
     bodyWindow: new ResponseWindow(Math.ceil(BODY_WINDOW_SECONDS / dt) + 1),
-    bodySummary: new ResponseSummary(),
+    bodySummary: new ResponseSummary(BODY_STEP_UP_MIN),
     trackSq: 0,
     trackMax: 0,
     trackCount: 0,
@@ -512,6 +518,8 @@ export function stepTrial(t: Trial): boolean {
     if (rise > 0) t.bodyWindow.start(t.height.value, bodyTargets[0], time, time + BODY_WINDOW_SECONDS);
   }
   t.heightTarget = bodyTargets[0];
+  // Smaller target changes inside a window move where the response should settle.
+  if (t.bodyWindow.open) t.bodyWindow.final = bodyTargets[0];
   stepCriticallyDamped(t.height, bodyTargets[0], t.omega, dt);
   stepCriticallyDamped(t.pitch, bodyTargets[1], t.omega, dt);
   stepCriticallyDamped(t.roll, bodyTargets[2], t.omega, dt);
@@ -550,7 +558,7 @@ export function stepTrial(t: Trial): boolean {
     const prev = t.prevPose[i];
     let fastest = 0;
     for (let d = 0; d < ws.nDof; d++) {
-      if (ws.dKind[d] === DOF_SLIDE) continue;
+      if (ws.dKind[d] === SLIDER_DOF) continue;
       const change = Math.abs(r.pose[d] - prev[d]);
       if (change > fastest) fastest = change;
     }

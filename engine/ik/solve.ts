@@ -212,25 +212,31 @@ function methodStep(ws: IKWorkspace, code: number, m: number, e: Float64Array, d
   }
 }
 
-/** Step with null-space bias: dq = z + S(e − J·z) when a bias is active. */
+/** Damping of the null-space projector N = I − W·Jᵀ(J·W·Jᵀ + ε²I)⁻¹·J (ε in metres). */
+const NULL_EPS2 = 1e-6;
+
+/**
+ * Step with null-space bias: dq = S(e) + N·z, N the (lightly regularised)
+ * projector onto the null space of J, so the bias moves the leg without
+ * moving the foot (to first order) whatever the method's own damping.
+ */
 function biasedStep(ws: IKWorkspace, code: number, m: number, e: Float64Array, hasBias: boolean): void {
   const dq = ws.dq;
-  if (!hasBias) {
-    methodStep(ws, code, m, e, dq);
-    return;
-  }
+  methodStep(ws, code, m, e, dq);
+  if (!hasBias) return;
   const n = ws.nDof;
   const z = ws.z;
   const J = ws.J;
-  const e2 = ws.e2;
-  for (let r = 0; r < m; r++) e2[r] = e[r];
+  const jz = ws.e2;
+  for (let r = 0; r < m; r++) jz[r] = 0;
   for (let i = 0; i < n; i++) {
     const zi = z[i];
     if (zi === 0) continue;
-    for (let r = 0; r < m; r++) e2[r] -= J[6 * i + r] * zi;
+    for (let r = 0; r < m; r++) jz[r] += J[6 * i + r] * zi;
   }
-  methodStep(ws, code, m, e2, dq);
-  for (let i = 0; i < n; i++) dq[i] += z[i];
+  const p = ws.tmpN;
+  if (!dlsStep(ws, ws.wEff, m, NULL_EPS2, jz, p)) return;
+  for (let i = 0; i < n; i++) dq[i] += z[i] - p[i];
 }
 
 /** Scale dq so no rotation exceeds maxStepAngle (ball: the rotation vector's norm) and no slide maxStepLength. */
@@ -309,7 +315,8 @@ function maxAbs(v: Float64Array, n: number): number {
 /**
  * One iteration of a Jacobian method (FK current, ws.e holds the error).
  * Joint limits: a DOF whose step would leave its range is held at the limit
- * and the step re-solved for the others on the remaining error (up to 3 passes).
+ * and the step re-solved for the others on the remaining error, one DOF at a
+ * time (the one whose limit the step reaches first), until the step is feasible.
  */
 function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   const n = ws.nDof;
@@ -335,19 +342,34 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
     const dql = ws.dqLocked;
     const J = ws.J;
     const eRem = ws.eRes; // remaining error (biasedStep uses ws.e2 as its own scratch)
-    for (let pass = 0; pass < 3; pass++) {
-      // Lock every free scalar DOF that would leave its range, at the range.
+    for (let pass = 0; pass < n; pass++) {
+      // Lock the free scalar DOF whose limit the step reaches first (smallest
+      // fraction of the step), at that limit; then re-solve the others.
+      let best = -1;
+      let bestT = Infinity;
       for (let i = 0; i < n; i++) {
         if (locked[i] || ws.dKind[i] === DOF_BALL) continue;
-        const v = ws.pose[i] + ws.dq[i];
-        if (v < ws.lo[i] || v > ws.hi[i]) {
-          locked[i] = 1;
-          dql[i] = (v < ws.lo[i] ? ws.lo[i] : ws.hi[i]) - ws.pose[i];
-          ws.wEff[i] = 0;
-          ws.swEff[i] = 0;
-          ws.z[i] = 0;
-          hits++;
+        const d = ws.dq[i];
+        const v = ws.pose[i] + d;
+        let tt: number;
+        if (v < ws.lo[i]) tt = d !== 0 ? (ws.lo[i] - ws.pose[i]) / d : 0;
+        else if (v > ws.hi[i]) tt = d !== 0 ? (ws.hi[i] - ws.pose[i]) / d : 0;
+        else continue;
+        if (tt < bestT) {
+          bestT = tt;
+          best = i;
         }
+      }
+      if (best < 0) break;
+      {
+        const i = best;
+        const v = ws.pose[i] + ws.dq[i];
+        locked[i] = 1;
+        dql[i] = (v < ws.lo[i] ? ws.lo[i] : ws.hi[i]) - ws.pose[i];
+        ws.wEff[i] = 0;
+        ws.swEff[i] = 0;
+        ws.z[i] = 0;
+        hits++;
       }
       // Remaining error after the locked DOFs' (clamped) motion.
       for (let r = 0; r < m; r++) eRem[r] = e[r];
@@ -483,6 +505,9 @@ export function solve(
   if (!overrides) return solveImpl(ws, target, normal);
   const saved = ws.options;
   ws.options = { ...saved, ...overrides };
+  if (ws.options.recordErrors && ws.options.maxIterations + 1 > ws.errorHistory.length) {
+    (ws as { errorHistory: Float64Array }).errorHistory = new Float64Array(ws.options.maxIterations + 1);
+  }
   const weightsChanged = 'weights' in overrides;
   if (weightsChanged) applyWeights(ws);
   applyClamp(ws);

@@ -43,6 +43,8 @@ export class ResponseWindow {
 }
 
 export class ResponseSummary {
+  /** Windows whose step is smaller than this are not measured (percentages of tiny steps mean nothing). */
+  readonly minStep: number;
   count = 0;
   private overshootSum = 0;
   private overshootMax = 0;
@@ -50,15 +52,18 @@ export class ResponseSummary {
   private settled = 0;
   unsettled = 0;
 
-  /** Measure and fold a window; a window with under 3 samples is skipped. */
+  constructor(minStep: number) {
+    this.minStep = minStep;
+  }
+
+  /** Measure and fold a window; windows with under 3 samples or a step under minStep are skipped. */
   fold(w: ResponseWindow): void {
     w.open = false;
-    if (w.length < 3) return;
+    if (w.length < 3 || Math.abs(w.final - w.initial) < this.minStep) return;
     const r = stepResponse(w.times.subarray(0, w.length), w.values.subarray(0, w.length), {
       initial: w.initial,
       final: w.final,
     });
-    if (r.step === 0) return;
     this.count++;
     this.overshootSum += r.overshootPercent;
     if (r.overshootPercent > this.overshootMax) this.overshootMax = r.overshootPercent;

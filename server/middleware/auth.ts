@@ -22,14 +22,14 @@ declare global {
 export function loadViewer(db: Db): RequestHandler {
   return async (req, _res, next) => {
     try {
-      const { userId, teamId, issuedAt } = req.session ?? {};
+      const { userId, teamId, generation } = req.session ?? {};
       if (userId && teamId) {
         const row = await db('memberships as m')
           .join('users as u', 'u.id', 'm.user_id')
           .join('teams as t', 't.id', 'm.team_id')
           .where({ 'm.user_id': userId, 'm.team_id': teamId })
-          .first('u.id as userId', 'u.email', 'u.name as userName', 'u.sessions_valid_after', 't.id as teamId', 't.name as teamName', 'm.role');
-        if (row && (issuedAt ?? 0) >= row.sessions_valid_after) {
+          .first('u.id as userId', 'u.email', 'u.name as userName', 'u.session_generation', 't.id as teamId', 't.name as teamName', 'm.role');
+        if (row && generation === row.session_generation) {
           req.viewer = {
             user: { id: row.userId, email: row.email, name: row.userName },
             team: { id: row.teamId, name: row.teamName },

@@ -7,7 +7,8 @@ declare module 'express-session' {
   interface SessionData {
     userId: number;
     teamId: number;
-    issuedAt: number;
+    /** The user's session generation when this session began. */
+    generation: number;
   }
 }
 

@@ -12,7 +12,7 @@ export interface UserRow {
   email: string;
   name: string;
   password_hash: string;
-  sessions_valid_after: number;
+  session_generation: number;
   created_at: number;
 }
 

@@ -30,6 +30,8 @@ describe('sign up', () => {
       user: { id: expect.any(Number), email: 'mara@example.test', name: 'Mara Quill' },
       team: { id: expect.any(Number), name: 'Quill Works' },
       role: 'owner',
+      permissions: expect.arrayContaining(['team.invite', 'team.change-role']),
+      teams: [{ id: expect.any(Number), name: 'Quill Works', role: 'owner' }],
     });
   });
 

@@ -6,6 +6,11 @@ import { createApp } from '../../server/app';
 import type { Clock } from '../../server/clock';
 import type { Db } from '../../server/db';
 import { freshDatabase } from './test-db';
+import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher';
+import { smtpMailer } from '../../server/services/mail';
+import { startLocalPayments, type LocalPayments } from '../../server/fakes/payments/connect';
+
+export const TEST_PUBLIC_URL = 'http://treadle.test';
 
 /** A clock the test moves by hand. */
 export function manualClock(start = Date.UTC(2026, 11, 1, 9, 0, 0)): Clock & { advance(ms: number): void } {
@@ -18,6 +23,11 @@ export interface TestApp {
   db: Db;
   clock: ReturnType<typeof manualClock>;
   dataDir: string;
+  /** The real SMTP catcher on loopback that the app's mail goes to. */
+  mail: MailCatcher;
+  /** The local payment fake; the app also listens on loopback (`url`) so the fake's webhooks reach it. */
+  payments: LocalPayments;
+  url: string;
   cleanup(): Promise<void>;
 }
 
@@ -26,13 +36,40 @@ export async function testApp(): Promise<TestApp> {
   const database = await freshDatabase();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-files-'));
   const clock = manualClock();
-  const app = createApp({ db: database.db, clock, sessionSecret: 'test-secret', version: 'test', dataDir });
+  const mail = await startMailCatcher();
+  const mailer = smtpMailer({ host: '127.0.0.1', port: mail.smtpPort });
+  const payments = await startLocalPayments();
+  const app = createApp({
+    db: database.db,
+    clock,
+    sessionSecret: 'test-secret',
+    version: 'test',
+    dataDir,
+    mailer,
+    publicUrl: () => TEST_PUBLIC_URL,
+    payments: payments.deps,
+  });
+  const listener = await new Promise<import('node:http').Server>((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const url = `http://127.0.0.1:${(listener.address() as import('node:net').AddressInfo).port}`;
+  payments.fake.setWebhookUrl(`${url}/api/billing/webhook`);
   return {
     app,
     db: database.db,
     clock,
     dataDir,
+    mail,
+    payments,
+    url,
     async cleanup() {
+      await payments.fake.stop();
+      await new Promise<void>((resolve) => {
+        listener.close(() => resolve());
+        listener.closeAllConnections();
+      });
+      mailer.close();
+      await mail.stop();
       await database.cleanup();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },

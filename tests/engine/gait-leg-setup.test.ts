@@ -1,0 +1,72 @@
+import { flatCourse } from '../../engine/course';
+import {
+  LegSetupSchema,
+  PRESET_RIG_NAMES,
+  checkLegSetupForRig,
+  defaultLegSetup,
+  parseLegSetup,
+  presetRig,
+  runTrial,
+} from '../../engine/gait';
+import { DEFAULT_OPTIONS } from '../../engine/ik';
+
+describe('leg setup schema', () => {
+  it.each(PRESET_RIG_NAMES)('the default setup of %s is valid, JSON-safe and fits its rig', (name) => {
+    const rig = presetRig(name);
+    const s = defaultLegSetup(rig);
+    expect(parseLegSetup(JSON.parse(JSON.stringify(s)))).toEqual(s);
+    expect(() => checkLegSetupForRig(s, rig)).not.toThrow();
+  });
+  it('takes its solver defaults from the IK engine', () => {
+    const s = defaultLegSetup(presetRig('quadruped'));
+    expect(s.solver.method).toBe(DEFAULT_OPTIONS.method);
+    expect(s.solver.lambda).toBe(DEFAULT_OPTIONS.lambda);
+    expect(s.solver.maxIterations).toBe(DEFAULT_OPTIONS.maxIterations);
+  });
+  it('rejects bad input naming the field and the problem', () => {
+    const s = defaultLegSetup(presetRig('biped'));
+    expect(() => parseLegSetup({ ...s, solver: { ...s.solver, method: 'magic' } })).toThrow(/solver\.method/);
+    expect(() => parseLegSetup({ ...s, gait: { ...s.gait, dutyFactor: 1.5 } })).toThrow(/gait\.dutyFactor/);
+    expect(() => parseLegSetup({ ...s, gait: { ...s.gait, pattern: 'custom', phaseOffsets: null } })).toThrow(/custom pattern needs phaseOffsets/);
+    expect(() => parseLegSetup({ ...s, version: 9 })).toThrow(/version/);
+    expect(() => parseLegSetup({ ...s, legs: [{ leg: 'left', limits: [{ joint: 'knee', min: 1, max: 0 }] }] })).toThrow(/min must not exceed max/);
+    expect(LegSetupSchema.safeParse({}).success).toBe(false);
+  });
+  it('rig-specific checks name the leg, joint or count that does not fit', () => {
+    const rig = presetRig('biped');
+    const s = defaultLegSetup(rig);
+    expect(() => checkLegSetupForRig({ ...s, legs: [{ leg: 'tail', limits: [] }] }, rig)).toThrow(/no leg named tail/);
+    expect(() => checkLegSetupForRig({ ...s, legs: [{ leg: 'left', limits: [{ joint: 'elbow', dof: 0, min: 0, max: 1 }] }] }, rig)).toThrow(
+      /no joint named elbow/,
+    );
+    expect(() => checkLegSetupForRig({ ...s, gait: { ...s.gait, pattern: 'hexapod-tripod' } }, rig)).toThrow(/for 6 legs/);
+    expect(() => checkLegSetupForRig({ ...s, gait: { ...s.gait, phaseOffsets: [0, 0.3, 0.6] } }, rig)).toThrow(/has 2 legs, got 3/);
+  });
+  it('a per-leg limit override reaches the solver: a knee held straight cannot lift the foot', () => {
+    const rig = presetRig('biped');
+    const s = defaultLegSetup(rig);
+    s.legs = [{ leg: 'left', limits: [{ joint: 'knee', dof: 0, min: 0, max: 0.01 }] }];
+    const stiff = runTrial(rig, s, flatCourse(30), { duration: 6 });
+    const free = runTrial(rig, defaultLegSetup(rig), flatCourse(30), { duration: 6 });
+    expect(stiff.metrics.tracking.rms).toBeGreaterThan(10 * free.metrics.tracking.rms);
+  });
+  it('a custom pattern with its own offsets runs', () => {
+    const rig = presetRig('quadruped');
+    const s = defaultLegSetup(rig);
+    s.gait = { ...s.gait, pattern: 'custom', phaseOffsets: [0, 0.5, 0.25, 0.75], dutyFactor: 0.7 };
+    expect(runTrial(rig, s, flatCourse(20), { duration: 3 }).gait.phaseOffsets[2]).toBe(0.25);
+  });
+});
+
+describe('trial input errors', () => {
+  const rig = presetRig('biped');
+  it('a course too short to walk on', () => {
+    expect(() => runTrial(rig, defaultLegSetup(rig), flatCourse(2), { duration: 5 })).toThrow(/course too short/);
+  });
+  it('bad trial options', () => {
+    expect(() => runTrial(rig, defaultLegSetup(rig), flatCourse(20), { timeStep: 2 })).toThrow(/timeStep/);
+  });
+  it('a leg setup that is not one', () => {
+    expect(() => runTrial(rig, { version: 1 }, flatCourse(20))).toThrow(/invalid leg setup/);
+  });
+});

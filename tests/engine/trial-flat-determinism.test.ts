@@ -1,0 +1,49 @@
+import { flatCourse, rubbleCourse } from '../../engine/course';
+import { PRESET_RIG_NAMES, defaultLegSetup, presetRig, runTrial } from '../../engine/gait';
+import { STUMBLE_KINDS, TrialMetricsSchema, detectStumbles } from '../../engine/metrics';
+
+describe('flat course with default settings', () => {
+  // A flat course is the null case: any stumble there is a bug in the planner or the loop (common practice, no source).
+  it.each(PRESET_RIG_NAMES)('%s: zero stumbles of every kind', (name) => {
+    const rig = presetRig(name);
+    const r = runTrial(rig, defaultLegSetup(rig), flatCourse(40), { duration: 20 });
+    for (const kind of STUMBLE_KINDS) expect([kind, r.metrics.stumbles[kind].count]).toEqual([kind, 0]);
+    expect(r.metrics.steps).toBeGreaterThan(30);
+    expect(r.metrics.tracking.max).toBeLessThan(0.01);
+    expect(TrialMetricsSchema.safeParse(r.metrics).success).toBe(true);
+  });
+});
+
+describe('determinism', () => {
+  it('two runs of the same trial give identical metrics and series, bit for bit', () => {
+    const rig = presetRig('quadruped');
+    const course = rubbleCourse(30, 0.05, 0.5, 99, { leadIn: 2 });
+    const a = runTrial(rig, defaultLegSetup(rig), course, { duration: 10 });
+    const b = runTrial(rig, defaultLegSetup(rig), course, { duration: 10 });
+    expect(b.metrics).toEqual(a.metrics);
+    expect(Buffer.from(b.series.foot.buffer).equals(Buffer.from(a.series.foot.buffer))).toBe(true);
+    expect(Buffer.from(b.series.bodyHeight.buffer).equals(Buffer.from(a.series.bodyHeight.buffer))).toBe(true);
+  });
+});
+
+describe('series', () => {
+  it('records at the chosen rate', () => {
+    const rig = presetRig('hexapod');
+    const r = runTrial(rig, defaultLegSetup(rig), flatCourse(20), { duration: 4, recordRate: 20 });
+    expect(r.series.length).toBe(4 * 20 + 1);
+    expect(r.series.rate).toBe(20);
+    expect(r.series.target.length).toBe(r.series.length * 6 * 3);
+  });
+  it('stumble detection over a series recorded every frame finds exactly the trial’s own events', () => {
+    const rig = presetRig('biped');
+    const course = rubbleCourse(30, 0.06, 0.4, 5, { leadIn: 2 });
+    const setup = defaultLegSetup(rig);
+    setup.solver.lambda = 0;
+    const r = runTrial(rig, setup, course, { duration: 10, recordRate: 60 });
+    expect(r.metrics.events.length).toBeGreaterThan(0);
+    const offline = detectStumbles(r.series, course);
+    const round = (e: { kind: string; time: number; leg: number; size: number }) => ({ ...e, time: Math.round(e.time * 60), size: Number(e.size.toPrecision(4)) });
+    expect(offline.events().map(round)).toEqual(r.metrics.events.map(round));
+    expect(offline.steps).toBe(r.metrics.steps);
+  });
+});

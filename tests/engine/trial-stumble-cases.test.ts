@@ -1,0 +1,101 @@
+import { curbCourse, flatCourse, generateCourse, rampCourse, trenchCourse } from '../../engine/course';
+import { defaultLegSetup, presetRig, runTrial, type LegSetup, type PresetRigName } from '../../engine/gait';
+import type { StumbleKind } from '../../engine/metrics';
+import type { Heightfield } from '../../engine/course';
+
+/**
+ * Whole trials built to trigger one stumble kind each, beside the near miss
+ * that must not trigger it. Thresholds are the defaults (common practice, no
+ * source; snap from memory).
+ */
+function stumbles(rig: PresetRigName, course: Heightfield, edit: (s: LegSetup) => void = () => {}, duration = 20) {
+  const r = presetRig(rig);
+  const setup = defaultLegSetup(r);
+  edit(setup);
+  const m = runTrial(r, setup, course, { duration }).metrics;
+  return (kind: StumbleKind) => m.stumbles[kind].count;
+}
+
+describe('reach-miss', () => {
+  const quad = presetRig('quadruped');
+  const stride = 1.02; // the quadruped's default stride, checked below
+  it('a trench wider than the stride and deeper than the leg', () => {
+    const s = stumbles('quadruped', trenchCourse(10, 2, 1.5, { leadIn: 3, leadOut: 20 }));
+    expect(2).toBeGreaterThan(stride);
+    expect(1.5).toBeGreaterThan(quad.legs[0].chain.reach);
+    expect(s('reach-miss')).toBeGreaterThan(0);
+  });
+  it('near miss: the same trench 3 cm deep', () => {
+    expect(stumbles('quadruped', trenchCourse(10, 2, 0.03, { leadIn: 3, leadOut: 20 }))('reach-miss')).toBe(0);
+  });
+});
+
+describe('snap', () => {
+  // Hips raised 3 cm put the biped's knees near full extension; rubble keeps the targets moving there.
+  const rubble = generateCourse({ segments: [{ kind: 'flat', length: 3 }, { kind: 'rubble', length: 40, amplitude: 0.05, featureSize: 0.5, seed: 7 }] });
+  const nearExtension = (lambda: number) => (s: LegSetup) => {
+    s.body.heightOffset = 0.03;
+    s.solver.footOrientation = false;
+    s.solver.nullSpace = { kind: 'rest', gain: 0.05 };
+    s.solver.lambda = lambda;
+  };
+  it('λ = 0 near full extension on rubble snaps more than a tuned λ (Buss 2004: DLS damps steps near singularities)', () => {
+    const undamped = stumbles('biped', rubble, nearExtension(0))('snap');
+    const tuned = stumbles('biped', rubble, nearExtension(0.02))('snap');
+    expect(undamped).toBeGreaterThan(tuned);
+  });
+});
+
+describe('scuff', () => {
+  const curb = curbCourse(10, 0.1, { leadIn: 3, leadOut: 20 });
+  it('a biped lifting its feet 0 cm over a 10 cm curb', () => {
+    expect(stumbles('biped', curb, (s) => (s.gait.stepHeight = 0))('scuff')).toBeGreaterThan(0);
+  });
+  it('near miss: the default step height over the same curb', () => {
+    expect(stumbles('biped', curb)('scuff')).toBe(0);
+  });
+});
+
+describe('sink and skid', () => {
+  // One heavily damped iteration per frame: the foot lags its target as the body moves.
+  const sluggish = (s: LegSetup) => {
+    s.solver.maxIterations = 1;
+    s.solver.lambda = 0.3;
+  };
+  it('sink: a sluggish solver walking down a 10° ramp', () => {
+    expect(stumbles('quadruped', rampCourse(30, -10, { leadIn: 3, leadOut: 10 }), sluggish)('sink')).toBeGreaterThan(0);
+  });
+  it('near miss: two iterations per frame on the same ramp', () => {
+    const s = stumbles('quadruped', rampCourse(30, -10, { leadIn: 3, leadOut: 10 }), (x) => {
+      x.solver.maxIterations = 2;
+      x.solver.lambda = 0.1;
+    });
+    expect(s('sink')).toBe(0);
+    expect(s('skid')).toBe(0);
+  });
+  it('skid: a very sluggish solver on flat ground', () => {
+    const s = stumbles('quadruped', flatCourse(40), (x) => {
+      x.solver.maxIterations = 1;
+      x.solver.lambda = 0.5;
+    });
+    expect(s('skid')).toBeGreaterThan(0);
+  });
+});
+
+describe('body step-up after a curb', () => {
+  it('the pelvis rises without overshoot (critically damped filter; Ogata §5-3) and settles', () => {
+    const rig = presetRig('biped');
+    const m = runTrial(rig, defaultLegSetup(rig), curbCourse(10, 0.1, { leadIn: 3, leadOut: 20 }), { duration: 20 }).metrics;
+    expect(m.bodyStepUp.count).toBeGreaterThanOrEqual(1);
+    expect(m.bodyStepUp.overshootMaxPercent).toBeLessThan(0.5);
+    expect(m.bodyStepUp.settleMeanSeconds).not.toBeNull();
+  });
+});
+
+describe('the quadruped default stride used above', () => {
+  it('is about 1.02 m (Alexander 1976 at Froude 0.2)', () => {
+    const rig = presetRig('quadruped');
+    const r = runTrial(rig, defaultLegSetup(rig), flatCourse(20), { duration: 1 });
+    expect(r.gait.stride).toBeCloseTo(1.02, 2);
+  });
+});
