@@ -4,8 +4,9 @@ const nodeProject = (name, roots) => ({
   testEnvironment: 'node',
   roots,
   testMatch: ['**/*.test.ts'],
-  transform: { '^.+\\.[jt]sx?$': 'babel-jest' },
-  transformIgnorePatterns: ['/node_modules/(?!(three|simplex-noise|gl-matrix)/)'],
+  transform: { '^.+\\.m?[jt]sx?$': 'babel-jest' },
+  // ESM-only packages that the node projects load through babel.
+  transformIgnorePatterns: ['/node_modules/(?!(three|simplex-noise|gl-matrix|@gltf-transform|property-graph|ktx-parse|fmin)/)'],
   moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
 });
 

@@ -44,6 +44,9 @@ export function SignInForm() {
         onSubmitEditing={submit}
       />
       <Button label="Sign in" onPress={submit} busy={signIn.isPending} />
+      <Link href="/forgot-password" style={styles.forgot}>
+        Forgot your password?
+      </Link>
       <Text style={styles.switch}>
         New to Treadle?{' '}
         <Link href="/sign-up" style={styles.link}>
@@ -59,4 +62,5 @@ const styles = StyleSheet.create({
   title: { ...type.title, color: colors.ink },
   switch: { ...type.body, color: colors.graphite, textAlign: 'center' },
   link: { color: colors.ember, fontFamily: fonts.bodyStrong, textDecorationLine: 'underline' },
+  forgot: { color: colors.ember, fontFamily: fonts.bodyStrong, textDecorationLine: 'underline', textAlign: 'center', fontSize: 15 },
 });

@@ -1,22 +1,15 @@
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { roleLabels } from '../../schemas/roles';
 import type { Me } from '../../schemas/auth';
-import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
+import { colors, fonts, radius, space, touchTarget } from '../../constants/theme';
 import { TreadleMark } from '../ui/TreadleMark';
+import { TeamSwitcher } from './TeamSwitcher';
 
 /** The strip above every studio page: which studio, who you are in it, and the way out. */
 export function StudioHeader({ me, wide, onSignOut, signingOut }: { me: Me; wide: boolean; onSignOut(): void; signingOut: boolean }) {
   return (
     <View role="banner" style={styles.bar}>
       {!wide && <TreadleMark size={24} />}
-      <View style={[styles.team, wide && styles.teamWide]}>
-        <Text numberOfLines={1} style={styles.teamName}>
-          {me.team.name}
-        </Text>
-        <Text numberOfLines={1} style={styles.who}>
-          {me.user.name} · {roleLabels[me.role]}
-        </Text>
-      </View>
+      <TeamSwitcher me={me} align={wide ? 'start' : 'end'} />
       <Pressable
         accessibilityRole="button"
         onPress={onSignOut}
@@ -39,11 +32,8 @@ const styles = StyleSheet.create({
     backgroundColor: colors.paper,
     borderBottomWidth: 1,
     borderBottomColor: colors.rule,
+    zIndex: 10,
   },
-  team: { flex: 1, alignItems: 'flex-end' },
-  teamWide: { alignItems: 'flex-start' },
-  teamName: { fontFamily: fonts.headingMedium, fontSize: 15, color: colors.ink },
-  who: { ...type.small, color: colors.graphite },
   signOut: {
     minHeight: touchTarget,
     paddingHorizontal: space.md,

@@ -21,12 +21,28 @@ export function omegaForSettleTime(settleTime: number): number {
   return CRITICAL_SETTLE_2PCT / settleTime;
 }
 
-/** Advance s by dt toward target with natural frequency omega (rad/s). */
-export function stepCriticallyDamped(s: DampedState, target: number, omega: number, dt: number): void {
+/** A filter for a fixed time step, with its decay over one step worked out once. */
+export interface CriticalFilter {
+  omega: number;
+  dt: number;
+  decay: number;
+}
+
+export function createCriticalFilter(settleTime: number, dt: number): CriticalFilter {
+  const omega = omegaForSettleTime(settleTime);
+  return { omega, dt, decay: Math.exp(-omega * dt) };
+}
+
+/** Advance s by the filter's step toward target. */
+export function stepCritical(s: DampedState, target: number, f: CriticalFilter): void {
   const e0 = s.value - target;
   const v0 = s.velocity;
-  const k = v0 + omega * e0;
-  const decay = Math.exp(-omega * dt);
-  s.value = target + (e0 + k * dt) * decay;
-  s.velocity = (v0 - omega * k * dt) * decay;
+  const k = v0 + f.omega * e0;
+  s.value = target + (e0 + k * f.dt) * f.decay;
+  s.velocity = (v0 - f.omega * k * f.dt) * f.decay;
+}
+
+/** Advance s by dt toward target with natural frequency omega (rad/s). */
+export function stepCriticallyDamped(s: DampedState, target: number, omega: number, dt: number): void {
+  stepCritical(s, target, { omega, dt, decay: Math.exp(-omega * dt) });
 }

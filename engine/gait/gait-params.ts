@@ -5,7 +5,7 @@ import type { Rig } from './rig';
 import { ALEXANDER_STRIDE, GRAVITY, alexanderStride } from './stride';
 
 export interface GaitParams {
-  phaseOffsets: Float64Array;
+  phaseOffsets: number[];
   dutyFactor: number;
   cycleTime: number;
   speed: number;
@@ -39,5 +39,5 @@ export function resolveGait(g: GaitSettings, rig: Rig): GaitParams {
     stride = g.stride ?? alexanderStrideForCycle(rig.hipHeight, cycleTime);
     speed = stride / cycleTime;
   }
-  return { phaseOffsets: Float64Array.from(offsets), dutyFactor: g.dutyFactor, cycleTime, speed, stride, stepHeight: g.stepHeight };
+  return { phaseOffsets: [...offsets], dutyFactor: g.dutyFactor, cycleTime, speed, stride, stepHeight: g.stepHeight };
 }

@@ -9,3 +9,4 @@ export * from './rig-presets';
 export * from './leg-setup';
 export * from './series';
 export * from './trial';
+export * from './series-encoding';

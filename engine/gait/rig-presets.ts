@@ -18,9 +18,9 @@ function pair(side: string, chain: LegChain, x: number, z: number, footX: number
   return [leg(`left-${side}`, chain, x, z, footX, footZ), leg(`right-${side}`, mirrorChain(chain), -x, z, -footX, footZ)];
 }
 
-/** Two human-type legs, 1.03 m reach, hips 0.9 m up. */
+/** Two human-type legs, 1.07 m reach, hips 0.9 m up. */
 export function bipedRig(): Rig {
-  const chain = humanLeg({ thigh: 0.48, shin: 0.46 });
+  const chain = humanLeg({ thigh: 0.5, shin: 0.48 });
   const l = leg('left', chain, 0.1, 0, 0.1, 0);
   const r = leg('right', mirrorChain(chain), -0.1, 0, -0.1, 0);
   return { name: 'biped', legs: [l, r], hipHeight: 0.9 };

@@ -8,7 +8,10 @@
  * a trial reuses one per leg without allocating.
  */
 import type { Heightfield } from '../course/heightfield';
-import { heightAt, maxHeightAlong, segmentClearance } from '../course/sample';
+import * as sample from '../course/sample';
+
+// Read once: under CommonJS interop each use of an imported name is a getter call.
+const { heightAt, maxHeightAlong, segmentClearance } = sample;
 
 export interface SwingPlan {
   x0: number;
@@ -40,10 +43,20 @@ function smoothstep(t: number): number {
   return c * c * (3 - 2 * c);
 }
 
+/** Fraction of the swing spent rising (and, at the end, setting down). */
+function liftFraction(p: SwingPlan): number {
+  return 0.5 - 0.25 * p.boxiness;
+}
+
+/** Swing progress at which the foot starts coming down. */
+export function descentStart(p: SwingPlan): number {
+  return 1 - liftFraction(p);
+}
+
 /** Foot position at swing progress tau ∈ [0, 1], written into out[o..o+2]. */
 export function swingPoint(p: SwingPlan, tau: number, out: Float64Array | number[], o = 0): void {
   const k = p.boxiness;
-  const lift = 0.5 - 0.25 * k;
+  const lift = liftFraction(p);
   const hold = 0.25 * k;
   const s = minimumJerk((tau - hold) / (1 - 2 * hold));
   out[o] = p.x0 + (p.x1 - p.x0) * s;

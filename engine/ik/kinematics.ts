@@ -5,73 +5,26 @@
  * Matrices are row-major 3×3 in Float64Array (R[r*3+c]).
  */
 import type { IKWorkspace } from './workspace';
-import {
-  DOF_BALL,
-  DOF_SLIDE,
-  JOINT_BALL,
-  JOINT_HINGE,
-  JOINT_SLIDER,
-  JOINT_UNIVERSAL,
-  expRotationVector,
-} from './workspace';
+import { expRotationVector as expRotationVectorImport } from './workspace';
 
-/** R[o..o+8] ← R[o..o+8] · Rot(axis a, angle with cosine c and sine s); a is a unit axis in the local frame. */
-function rotateLocal(R: Float64Array, o: number, ax: number, ay: number, az: number, c: number, s: number): void {
-  if (ay === 0 && az === 0) {
-    const sg = ax > 0 ? s : -s;
-    for (let r = 0; r < 9; r += 3) {
-      const c1 = R[o + r + 1];
-      const c2 = R[o + r + 2];
-      R[o + r + 1] = c * c1 + sg * c2;
-      R[o + r + 2] = c * c2 - sg * c1;
-    }
-    return;
-  }
-  if (ax === 0 && az === 0) {
-    const sg = ay > 0 ? s : -s;
-    for (let r = 0; r < 9; r += 3) {
-      const c0 = R[o + r];
-      const c2 = R[o + r + 2];
-      R[o + r] = c * c0 - sg * c2;
-      R[o + r + 2] = sg * c0 + c * c2;
-    }
-    return;
-  }
-  if (ax === 0 && ay === 0) {
-    const sg = az > 0 ? s : -s;
-    for (let r = 0; r < 9; r += 3) {
-      const c0 = R[o + r];
-      const c1 = R[o + r + 1];
-      R[o + r] = c * c0 + sg * c1;
-      R[o + r + 1] = c * c1 - sg * c0;
-    }
-    return;
-  }
-  // General axis: Rodrigues M = cI + s[a]× + (1−c)aaᵀ, R ← R·M.
-  const t = 1 - c;
-  const m00 = c + t * ax * ax;
-  const m01 = t * ax * ay - s * az;
-  const m02 = t * ax * az + s * ay;
-  const m10 = t * ax * ay + s * az;
-  const m11 = c + t * ay * ay;
-  const m12 = t * ay * az - s * ax;
-  const m20 = t * ax * az - s * ay;
-  const m21 = t * ay * az + s * ax;
-  const m22 = c + t * az * az;
-  for (let r = 0; r < 9; r += 3) {
-    const a0 = R[o + r];
-    const a1 = R[o + r + 1];
-    const a2 = R[o + r + 2];
-    R[o + r] = a0 * m00 + a1 * m10 + a2 * m20;
-    R[o + r + 1] = a0 * m01 + a1 * m11 + a2 * m21;
-    R[o + r + 2] = a0 * m02 + a1 * m12 + a2 * m22;
-  }
-}
+// Local copies of workspace constants and imports: transpiled ES module imports
+// become getter calls on every access, which costs more than the arithmetic here.
+const DOF_BALL = 1;
+const DOF_SLIDE = 2;
+const JOINT_HINGE = 0;
+const JOINT_UNIVERSAL = 1;
+const JOINT_BALL = 2;
+const expRotationVector = expRotationVectorImport;
+/** Incremental cos/sin updates before an exact recompute. */
+const TRIG_REFRESH = 64;
 
 /**
  * Forward kinematics from the current pose: joint world frames, per-DOF world
  * axes and pivots, the sole point (ws.foot) and sole normal (ws.footUp).
  * `from` > 0 recomputes only joints from that index on (the earlier ones must be current).
+ *
+ * The running frame lives in locals (p, R row-major r00..r22); each joint's
+ * frame is stored once at its end.
  */
 export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
   const nJ = ws.nJoints;
@@ -80,108 +33,273 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
   const pose = ws.pose;
   const quat = ws.quat;
   const dAxis = ws.dAxis;
+  const dAxisCode = ws.dAxisCode;
   const dAxisW = ws.dAxisW;
   const dPivot = ws.dPivot;
   const jOffset = ws.jOffset;
   const jRest = ws.jRest;
+  const jKind = ws.jKind;
+  const jDof0 = ws.jDof0;
+  const trigAngle = ws.trigAngle;
+  const trigCos = ws.trigCos;
+  const trigSin = ws.trigSin;
+  const trigCount = ws.trigCount;
+  let px: number, py: number, pz: number;
+  let r00: number, r01: number, r02: number, r10: number, r11: number, r12: number, r20: number, r21: number, r22: number;
+  if (from === 0) {
+    const P = ws.rootPos;
+    const Rr = ws.rootRot;
+    px = P[0];
+    py = P[1];
+    pz = P[2];
+    r00 = Rr[0];
+    r01 = Rr[1];
+    r02 = Rr[2];
+    r10 = Rr[3];
+    r11 = Rr[4];
+    r12 = Rr[5];
+    r20 = Rr[6];
+    r21 = Rr[7];
+    r22 = Rr[8];
+  } else {
+    const q = 3 * (from - 1);
+    const o = 9 * (from - 1);
+    px = jPos[q];
+    py = jPos[q + 1];
+    pz = jPos[q + 2];
+    r00 = jRot[o];
+    r01 = jRot[o + 1];
+    r02 = jRot[o + 2];
+    r10 = jRot[o + 3];
+    r11 = jRot[o + 4];
+    r12 = jRot[o + 5];
+    r20 = jRot[o + 6];
+    r21 = jRot[o + 7];
+    r22 = jRot[o + 8];
+  }
   for (let j = from; j < nJ; j++) {
-    // Parent frame.
-    let P: Float64Array;
-    let po: number;
-    let Rp: Float64Array;
-    let ro: number;
-    if (j === 0) {
-      P = ws.rootPos;
-      po = 0;
-      Rp = ws.rootRot;
-      ro = 0;
-    } else {
-      P = jPos;
-      po = 3 * (j - 1);
-      Rp = jRot;
-      ro = 9 * (j - 1);
-    }
     const ox = jOffset[3 * j];
     const oy = jOffset[3 * j + 1];
     const oz = jOffset[3 * j + 2];
-    let px = P[po] + Rp[ro] * ox + Rp[ro + 1] * oy + Rp[ro + 2] * oz;
-    let py = P[po + 1] + Rp[ro + 3] * ox + Rp[ro + 4] * oy + Rp[ro + 5] * oz;
-    let pz = P[po + 2] + Rp[ro + 6] * ox + Rp[ro + 7] * oy + Rp[ro + 8] * oz;
+    px += r00 * ox + r01 * oy + r02 * oz;
+    py += r10 * ox + r11 * oy + r12 * oz;
+    pz += r20 * ox + r21 * oy + r22 * oz;
     const o = 9 * j;
-    if (ws.jRestIdentity[j]) {
-      for (let k = 0; k < 9; k++) jRot[o + k] = Rp[ro + k];
-    } else {
-      for (let r = 0; r < 9; r += 3) {
-        const a0 = Rp[ro + r];
-        const a1 = Rp[ro + r + 1];
-        const a2 = Rp[ro + r + 2];
-        jRot[o + r] = a0 * jRest[o] + a1 * jRest[o + 3] + a2 * jRest[o + 6];
-        jRot[o + r + 1] = a0 * jRest[o + 1] + a1 * jRest[o + 4] + a2 * jRest[o + 7];
-        jRot[o + r + 2] = a0 * jRest[o + 2] + a1 * jRest[o + 5] + a2 * jRest[o + 8];
-      }
+    if (!ws.jRestIdentity[j]) {
+      const m00 = jRest[o], m01 = jRest[o + 1], m02 = jRest[o + 2];
+      const m10 = jRest[o + 3], m11 = jRest[o + 4], m12 = jRest[o + 5];
+      const m20 = jRest[o + 6], m21 = jRest[o + 7], m22 = jRest[o + 8];
+      let a0 = r00, a1 = r01, a2 = r02;
+      r00 = a0 * m00 + a1 * m10 + a2 * m20;
+      r01 = a0 * m01 + a1 * m11 + a2 * m21;
+      r02 = a0 * m02 + a1 * m12 + a2 * m22;
+      a0 = r10;
+      a1 = r11;
+      a2 = r12;
+      r10 = a0 * m00 + a1 * m10 + a2 * m20;
+      r11 = a0 * m01 + a1 * m11 + a2 * m21;
+      r12 = a0 * m02 + a1 * m12 + a2 * m22;
+      a0 = r20;
+      a1 = r21;
+      a2 = r22;
+      r20 = a0 * m00 + a1 * m10 + a2 * m20;
+      r21 = a0 * m01 + a1 * m11 + a2 * m21;
+      r22 = a0 * m02 + a1 * m12 + a2 * m22;
     }
-    const kind = ws.jKind[j];
-    let d = ws.jDof0[j];
+    const kind = jKind[j];
+    let d = jDof0[j];
     if (kind === JOINT_HINGE || kind === JOINT_UNIVERSAL) {
-      const nd = kind === JOINT_HINGE ? 1 : 2;
-      for (let k = 0; k < nd; k++, d++) {
-        const ax = dAxis[3 * d];
-        const ay = dAxis[3 * d + 1];
-        const az = dAxis[3 * d + 2];
-        dAxisW[3 * d] = jRot[o] * ax + jRot[o + 1] * ay + jRot[o + 2] * az;
-        dAxisW[3 * d + 1] = jRot[o + 3] * ax + jRot[o + 4] * ay + jRot[o + 5] * az;
-        dAxisW[3 * d + 2] = jRot[o + 6] * ax + jRot[o + 7] * ay + jRot[o + 8] * az;
+      const end = d + (kind === JOINT_HINGE ? 1 : 2);
+      for (; d < end; d++) {
+        // cos/sin cache: exact when the angle jumps, angle addition with a
+        // short series when it moves a little (the solver's steps), exact
+        // again every TRIG_REFRESH updates so rounding cannot accumulate.
+        const th = pose[d];
+        let c: number;
+        let sn: number;
+        const prev = trigAngle[d];
+        if (th === prev) {
+          c = trigCos[d];
+          sn = trigSin[d];
+        } else {
+          const dd = th - prev;
+          const cnt = trigCount[d];
+          if (dd > -0.05 && dd < 0.05 && cnt < TRIG_REFRESH) {
+            const d2 = dd * dd;
+            const sd = dd * (1 - d2 * (1 / 6 - d2 * (1 / 120 - d2 * (1 / 5040 - d2 / 362880))));
+            const cd = 1 - d2 * (0.5 - d2 * (1 / 24 - d2 * (1 / 720 - d2 * (1 / 40320 - d2 / 3628800))));
+            const c0 = trigCos[d];
+            const s0 = trigSin[d];
+            c = c0 * cd - s0 * sd;
+            sn = s0 * cd + c0 * sd;
+            trigCount[d] = cnt + 1;
+          } else {
+            c = Math.cos(th);
+            sn = Math.sin(th);
+            trigCount[d] = 0;
+          }
+          trigAngle[d] = th;
+          trigCos[d] = c;
+          trigSin[d] = sn;
+        }
         dPivot[3 * d] = px;
         dPivot[3 * d + 1] = py;
         dPivot[3 * d + 2] = pz;
-        const th = pose[d];
-        rotateLocal(jRot, o, ax, ay, az, Math.cos(th), Math.sin(th));
+        const code = dAxisCode[d];
+        if (code < 6) {
+          // Axis-aligned (±X, ±Y, ±Z): the world axis is a column of R; rotate two columns.
+          const sg = code < 3 ? sn : -sn;
+          const sgn = code < 3 ? 1 : -1;
+          const ax = code % 3;
+          if (ax === 0) {
+            dAxisW[3 * d] = sgn * r00;
+            dAxisW[3 * d + 1] = sgn * r10;
+            dAxisW[3 * d + 2] = sgn * r20;
+            let c1 = r01, c2 = r02;
+            r01 = c * c1 + sg * c2;
+            r02 = c * c2 - sg * c1;
+            c1 = r11;
+            c2 = r12;
+            r11 = c * c1 + sg * c2;
+            r12 = c * c2 - sg * c1;
+            c1 = r21;
+            c2 = r22;
+            r21 = c * c1 + sg * c2;
+            r22 = c * c2 - sg * c1;
+          } else if (ax === 1) {
+            dAxisW[3 * d] = sgn * r01;
+            dAxisW[3 * d + 1] = sgn * r11;
+            dAxisW[3 * d + 2] = sgn * r21;
+            let c0 = r00, c2 = r02;
+            r00 = c * c0 - sg * c2;
+            r02 = sg * c0 + c * c2;
+            c0 = r10;
+            c2 = r12;
+            r10 = c * c0 - sg * c2;
+            r12 = sg * c0 + c * c2;
+            c0 = r20;
+            c2 = r22;
+            r20 = c * c0 - sg * c2;
+            r22 = sg * c0 + c * c2;
+          } else {
+            dAxisW[3 * d] = sgn * r02;
+            dAxisW[3 * d + 1] = sgn * r12;
+            dAxisW[3 * d + 2] = sgn * r22;
+            let c0 = r00, c1 = r01;
+            r00 = c * c0 + sg * c1;
+            r01 = c * c1 - sg * c0;
+            c0 = r10;
+            c1 = r11;
+            r10 = c * c0 + sg * c1;
+            r11 = c * c1 - sg * c0;
+            c0 = r20;
+            c1 = r21;
+            r20 = c * c0 + sg * c1;
+            r21 = c * c1 - sg * c0;
+          }
+        } else {
+          const ax = dAxis[3 * d];
+          const ay = dAxis[3 * d + 1];
+          const az = dAxis[3 * d + 2];
+          dAxisW[3 * d] = r00 * ax + r01 * ay + r02 * az;
+          dAxisW[3 * d + 1] = r10 * ax + r11 * ay + r12 * az;
+          dAxisW[3 * d + 2] = r20 * ax + r21 * ay + r22 * az;
+          // Rodrigues M = cI + s[a]× + (1−c)aaᵀ, R ← R·M.
+          const t = 1 - c;
+          const m00 = c + t * ax * ax;
+          const m01 = t * ax * ay - sn * az;
+          const m02 = t * ax * az + sn * ay;
+          const m10 = t * ax * ay + sn * az;
+          const m11 = c + t * ay * ay;
+          const m12 = t * ay * az - sn * ax;
+          const m20 = t * ax * az - sn * ay;
+          const m21 = t * ay * az + sn * ax;
+          const m22 = c + t * az * az;
+          let a0 = r00, a1 = r01, a2 = r02;
+          r00 = a0 * m00 + a1 * m10 + a2 * m20;
+          r01 = a0 * m01 + a1 * m11 + a2 * m21;
+          r02 = a0 * m02 + a1 * m12 + a2 * m22;
+          a0 = r10;
+          a1 = r11;
+          a2 = r12;
+          r10 = a0 * m00 + a1 * m10 + a2 * m20;
+          r11 = a0 * m01 + a1 * m11 + a2 * m21;
+          r12 = a0 * m02 + a1 * m12 + a2 * m22;
+          a0 = r20;
+          a1 = r21;
+          a2 = r22;
+          r20 = a0 * m00 + a1 * m10 + a2 * m20;
+          r21 = a0 * m01 + a1 * m11 + a2 * m21;
+          r22 = a0 * m02 + a1 * m12 + a2 * m22;
+        }
       }
     } else if (kind === JOINT_BALL) {
-      for (let k = 0; k < 3; k++) {
-        dAxisW[3 * (d + k)] = jRot[o + k];
-        dAxisW[3 * (d + k) + 1] = jRot[o + 3 + k];
-        dAxisW[3 * (d + k) + 2] = jRot[o + 6 + k];
-        dPivot[3 * (d + k)] = px;
-        dPivot[3 * (d + k) + 1] = py;
-        dPivot[3 * (d + k) + 2] = pz;
+      // Jacobian axes: the rest frame's columns; pivot: the joint.
+      dAxisW[3 * d] = r00;
+      dAxisW[3 * d + 1] = r10;
+      dAxisW[3 * d + 2] = r20;
+      dAxisW[3 * d + 3] = r01;
+      dAxisW[3 * d + 4] = r11;
+      dAxisW[3 * d + 5] = r21;
+      dAxisW[3 * d + 6] = r02;
+      dAxisW[3 * d + 7] = r12;
+      dAxisW[3 * d + 8] = r22;
+      for (let k = 0; k < 9; k += 3) {
+        dPivot[3 * d + k] = px;
+        dPivot[3 * d + k + 1] = py;
+        dPivot[3 * d + k + 2] = pz;
       }
       const qo = 4 * ws.jBall[j];
       const x = quat[qo];
       const y = quat[qo + 1];
       const z = quat[qo + 2];
       const w = quat[qo + 3];
-      const m00 = 1 - 2 * (y * y + z * z);
-      const m01 = 2 * (x * y - z * w);
-      const m02 = 2 * (x * z + y * w);
-      const m10 = 2 * (x * y + z * w);
-      const m11 = 1 - 2 * (x * x + z * z);
-      const m12 = 2 * (y * z - x * w);
-      const m20 = 2 * (x * z - y * w);
-      const m21 = 2 * (y * z + x * w);
-      const m22 = 1 - 2 * (x * x + y * y);
-      for (let r = 0; r < 9; r += 3) {
-        const a0 = jRot[o + r];
-        const a1 = jRot[o + r + 1];
-        const a2 = jRot[o + r + 2];
-        jRot[o + r] = a0 * m00 + a1 * m10 + a2 * m20;
-        jRot[o + r + 1] = a0 * m01 + a1 * m11 + a2 * m21;
-        jRot[o + r + 2] = a0 * m02 + a1 * m12 + a2 * m22;
-      }
-    } else if (kind === JOINT_SLIDER) {
+      const x2 = x + x;
+      const y2 = y + y;
+      const z2 = z + z;
+      const xx = x * x2, yy = y * y2, zz = z * z2;
+      const xy = x * y2, xz = x * z2, yz = y * z2;
+      const wx = w * x2, wy = w * y2, wz = w * z2;
+      const m00 = 1 - yy - zz;
+      const m01 = xy - wz;
+      const m02 = xz + wy;
+      const m10 = xy + wz;
+      const m11 = 1 - xx - zz;
+      const m12 = yz - wx;
+      const m20 = xz - wy;
+      const m21 = yz + wx;
+      const m22 = 1 - xx - yy;
+      let a0 = r00, a1 = r01, a2 = r02;
+      r00 = a0 * m00 + a1 * m10 + a2 * m20;
+      r01 = a0 * m01 + a1 * m11 + a2 * m21;
+      r02 = a0 * m02 + a1 * m12 + a2 * m22;
+      a0 = r10;
+      a1 = r11;
+      a2 = r12;
+      r10 = a0 * m00 + a1 * m10 + a2 * m20;
+      r11 = a0 * m01 + a1 * m11 + a2 * m21;
+      r12 = a0 * m02 + a1 * m12 + a2 * m22;
+      a0 = r20;
+      a1 = r21;
+      a2 = r22;
+      r20 = a0 * m00 + a1 * m10 + a2 * m20;
+      r21 = a0 * m01 + a1 * m11 + a2 * m21;
+      r22 = a0 * m02 + a1 * m12 + a2 * m22;
+    } else {
+      // Slider: translate along its axis.
       const ax = dAxis[3 * d];
       const ay = dAxis[3 * d + 1];
       const az = dAxis[3 * d + 2];
-      const wx = jRot[o] * ax + jRot[o + 1] * ay + jRot[o + 2] * az;
-      const wy = jRot[o + 3] * ax + jRot[o + 4] * ay + jRot[o + 5] * az;
-      const wz = jRot[o + 6] * ax + jRot[o + 7] * ay + jRot[o + 8] * az;
+      const wx = r00 * ax + r01 * ay + r02 * az;
+      const wy = r10 * ax + r11 * ay + r12 * az;
+      const wz = r20 * ax + r21 * ay + r22 * az;
       dAxisW[3 * d] = wx;
       dAxisW[3 * d + 1] = wy;
       dAxisW[3 * d + 2] = wz;
-      const s = pose[d];
-      px += wx * s;
-      py += wy * s;
-      pz += wz * s;
+      const sl = pose[d];
+      px += wx * sl;
+      py += wy * sl;
+      pz += wz * sl;
       dPivot[3 * d] = px;
       dPivot[3 * d + 1] = py;
       dPivot[3 * d + 2] = pz;
@@ -189,22 +307,31 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
     jPos[3 * j] = px;
     jPos[3 * j + 1] = py;
     jPos[3 * j + 2] = pz;
+    jRot[o] = r00;
+    jRot[o + 1] = r01;
+    jRot[o + 2] = r02;
+    jRot[o + 3] = r10;
+    jRot[o + 4] = r11;
+    jRot[o + 5] = r12;
+    jRot[o + 6] = r20;
+    jRot[o + 7] = r21;
+    jRot[o + 8] = r22;
   }
-  const o = 9 * (nJ - 1);
   const sx = ws.sole[0];
   const sy = ws.sole[1];
   const sz = ws.sole[2];
-  const lp = 3 * (nJ - 1);
-  ws.foot[0] = jPos[lp] + jRot[o] * sx + jRot[o + 1] * sy + jRot[o + 2] * sz;
-  ws.foot[1] = jPos[lp + 1] + jRot[o + 3] * sx + jRot[o + 4] * sy + jRot[o + 5] * sz;
-  ws.foot[2] = jPos[lp + 2] + jRot[o + 6] * sx + jRot[o + 7] * sy + jRot[o + 8] * sz;
+  const foot = ws.foot;
+  foot[0] = px + r00 * sx + r01 * sy + r02 * sz;
+  foot[1] = py + r10 * sx + r11 * sy + r12 * sz;
+  foot[2] = pz + r20 * sx + r21 * sy + r22 * sz;
   const nx = ws.soleNormal[0];
   const ny = ws.soleNormal[1];
   const nz = ws.soleNormal[2];
-  ws.footUp[0] = jRot[o] * nx + jRot[o + 1] * ny + jRot[o + 2] * nz;
-  ws.footUp[1] = jRot[o + 3] * nx + jRot[o + 4] * ny + jRot[o + 5] * nz;
-  ws.footUp[2] = jRot[o + 6] * nx + jRot[o + 7] * ny + jRot[o + 8] * nz;
-  return ws.foot;
+  const up = ws.footUp;
+  up[0] = r00 * nx + r01 * ny + r02 * nz;
+  up[1] = r10 * nx + r11 * ny + r12 * nz;
+  up[2] = r20 * nx + r21 * ny + r22 * nz;
+  return foot;
 }
 
 /**

@@ -2,24 +2,35 @@
  * The solve loop: warm start, iterate (FK → error → Jacobian → step → limits)
  * until the foot is within tolerance, the step stalls or the iteration cap.
  */
-import { forwardKinematics, jacobian, premultiplyQuat } from './kinematics';
-import { dlsStep, manipulability, pseudoinverseStep, sdlsStep, transposeStep } from './steps';
+import * as K from './kinematics';
+import * as S from './steps';
 import type { SolveResult, SolverOptions } from './types';
 import type { IKWorkspace } from './workspace';
-import {
-  DOF_BALL,
-  DOF_SLIDE,
-  JOINT_BALL,
-  JOINT_SLIDER,
-  applyClamp,
-  applyWeights,
-  clampBall,
-  expRotationVector,
-  logQuaternion,
-  resetPose,
-  setPose,
-  syncBallPose,
-} from './workspace';
+import * as W from './workspace';
+
+// Local bindings: transpiled ES module imports turn every use into a getter
+// call, which in this loop costs more than the arithmetic.
+const forwardKinematics = K.forwardKinematics;
+const jacobian = K.jacobian;
+const premultiplyQuat = K.premultiplyQuat;
+const dlsStepS = S.dlsStepS;
+const manipulability = S.manipulability;
+const pseudoinverseStep = S.pseudoinverseStep;
+const sdlsStep = S.sdlsStep;
+const transposeStep = S.transposeStep;
+const applyClamp = W.applyClamp;
+const applyWeights = W.applyWeights;
+const clampBall = W.clampBall;
+const expRotationVector = W.expRotationVector;
+const expRotationVectorAt = W.expRotationVectorAt;
+const logQuaternion = W.logQuaternion;
+const resetPose = W.resetPose;
+const setPose = W.setPose;
+const syncBallPose = W.syncBallPose;
+const DOF_BALL = 1;
+const DOF_SLIDE = 2;
+const JOINT_BALL = 2;
+const JOINT_SLIDER = 3;
 
 const METHOD_TRANSPOSE = 0;
 const METHOD_PINV = 1;
@@ -54,8 +65,8 @@ const quatScratch = new Float64Array(4);
  * Task error at the current FK into ws.e (rows 0–2 position, 3–5 weighted
  * orientation when `orient`). Returns |e_p|; the orientation angle goes to errState[0].
  */
-const errState = new Float64Array(2);
-function taskError(ws: IKWorkspace, orient: boolean): number {
+const errState = new Float64Array(3);
+function taskError(ws: IKWorkspace, orient: boolean): void {
   const e = ws.e;
   const t = ws.target;
   const f = ws.foot;
@@ -105,16 +116,15 @@ function taskError(ws: IKWorkspace, orient: boolean): number {
   } else {
     errState[0] = 0;
   }
-  return Math.sqrt(ex * ex + ey * ey + ez * ez);
+  errState[2] = Math.sqrt(ex * ex + ey * ey + ez * ez);
 }
 
 /** Secondary-task joint velocity z (null-space bias); returns false when there is none. */
-function nullSpaceBias(ws: IKWorkspace): boolean {
+function nullSpaceBias(ws: IKWorkspace, w: Float64Array): boolean {
   const ns = ws.options.nullSpace;
   if (!ns || ns.kind === 'none') return false;
   const n = ws.nDof;
   const z = ws.z;
-  const w = ws.wEff;
   if (ns.kind === 'rest') {
     const g = ns.gain;
     for (let i = 0; i < n; i++) z[i] = ws.dKind[i] === DOF_BALL ? 0 : g * w[i] * (ws.restPose[i] - ws.pose[i]);
@@ -176,18 +186,31 @@ function nullSpaceBias(ws: IKWorkspace): boolean {
 }
 
 /** dq ← S(e) for the method, with the current effective weights. */
-function methodStep(ws: IKWorkspace, code: number, m: number, e: Float64Array, dq: Float64Array): void {
+function methodStep(
+  ws: IKWorkspace,
+  code: number,
+  m: number,
+  e: Float64Array,
+  dq: Float64Array,
+  w: Float64Array,
+  sw: Float64Array,
+): void {
   const o = ws.options;
   switch (code) {
     case METHOD_DLS: {
+      const sc = ws.scalars;
       const l2 = o.lambda * o.lambda;
-      if (!dlsStep(ws, ws.wEff, m, l2, e, dq)) dlsStep(ws, ws.wEff, m, l2 + 1e-12, e, dq);
+      sc[0] = l2;
+      if (!dlsStepS(ws, w, m, e, dq)) {
+        sc[0] = l2 + 1e-12;
+        dlsStepS(ws, w, m, e, dq);
+      }
       return;
     }
     case METHOD_ADAPTIVE: {
       let l2: number;
       if (o.adaptiveMode === 'manipulability') {
-        const wm = manipulability(ws, ws.wEff, m);
+        const wm = manipulability(ws, w, m);
         const w0 = o.manipulabilityThreshold;
         l2 = wm < w0 ? o.lambda * o.lambda * (1 - wm / w0) * (1 - wm / w0) : 0;
       } else {
@@ -195,17 +218,22 @@ function methodStep(ws: IKWorkspace, code: number, m: number, e: Float64Array, d
         for (let r = 0; r < m; r++) E += e[r] * e[r];
         l2 = 0.5 * E + o.lmBias;
       }
-      if (!dlsStep(ws, ws.wEff, m, l2 + 1e-14, e, dq)) dlsStep(ws, ws.wEff, m, l2 + 1e-10, e, dq);
+      const sc = ws.scalars;
+      sc[0] = l2 + 1e-14;
+      if (!dlsStepS(ws, w, m, e, dq)) {
+        sc[0] = l2 + 1e-10;
+        dlsStepS(ws, w, m, e, dq);
+      }
       return;
     }
     case METHOD_TRANSPOSE:
-      transposeStep(ws, ws.wEff, m, e, dq);
+      transposeStep(ws, w, m, e, dq);
       return;
     case METHOD_PINV:
-      pseudoinverseStep(ws, ws.swEff, m, o.svdThreshold, e, dq);
+      pseudoinverseStep(ws, sw, m, o.svdThreshold, e, dq);
       return;
     case METHOD_SDLS:
-      sdlsStep(ws, ws.swEff, m, o.gammaMax, e, dq);
+      sdlsStep(ws, sw, m, o.gammaMax, e, dq);
       return;
     default:
       throw new Error('not a Jacobian method');
@@ -220,9 +248,17 @@ const NULL_EPS2 = 1e-6;
  * projector onto the null space of J, so the bias moves the leg without
  * moving the foot (to first order) whatever the method's own damping.
  */
-function biasedStep(ws: IKWorkspace, code: number, m: number, e: Float64Array, hasBias: boolean): void {
+function biasedStep(
+  ws: IKWorkspace,
+  code: number,
+  m: number,
+  e: Float64Array,
+  hasBias: boolean,
+  w: Float64Array,
+  sw: Float64Array,
+): void {
   const dq = ws.dq;
-  methodStep(ws, code, m, e, dq);
+  methodStep(ws, code, m, e, dq, w, sw);
   if (!hasBias) return;
   const n = ws.nDof;
   const z = ws.z;
@@ -235,7 +271,8 @@ function biasedStep(ws: IKWorkspace, code: number, m: number, e: Float64Array, h
     for (let r = 0; r < m; r++) jz[r] += J[6 * i + r] * zi;
   }
   const p = ws.tmpN;
-  if (!dlsStep(ws, ws.wEff, m, NULL_EPS2, jz, p)) return;
+  ws.scalars[0] = NULL_EPS2;
+  if (!dlsStepS(ws, w, m, jz, p)) return;
   for (let i = 0; i < n; i++) dq[i] += z[i] - p[i];
 }
 
@@ -277,9 +314,13 @@ function applyStep(ws: IKWorkspace): number {
   const dq = ws.dq;
   const pose = ws.pose;
   let hits = 0;
+  let mx = 0;
   for (let i = 0; i < n; i++) {
+    const di = dq[i];
+    if (di > mx) mx = di;
+    else if (-di > mx) mx = -di;
     if (ws.dKind[i] === DOF_BALL) continue;
-    let v = pose[i] + dq[i];
+    let v = pose[i] + di;
     if (v < ws.lo[i]) {
       v = ws.lo[i];
       hits++;
@@ -294,22 +335,13 @@ function applyStep(ws: IKWorkspace): number {
       const b = ws.jBall[j];
       if (b < 0) continue;
       const d = ws.jDof0[j];
-      expRotationVector(dq[d], dq[d + 1], dq[d + 2], quatScratch, 0);
+      expRotationVectorAt(dq, d, quatScratch, 0);
       premultiplyQuat(quatScratch, ws.quat, 4 * b);
       if (clampBall(ws, b)) hits++;
     }
   }
+  errState[1] = mx;
   return hits;
-}
-
-/** Max |dq_i| (the stall test). */
-function maxAbs(v: Float64Array, n: number): number {
-  let m = 0;
-  for (let i = 0; i < n; i++) {
-    const a = Math.abs(v[i]);
-    if (a > m) m = a;
-  }
-  return m;
 }
 
 /**
@@ -331,10 +363,8 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
     e[1] *= k;
     e[2] *= k;
   }
-  ws.wEff.set(ws.weight);
-  ws.swEff.set(ws.sqrtWeight);
-  const hasBias = nullSpaceBias(ws);
-  biasedStep(ws, code, m, e, hasBias);
+  const hasBias = nullSpaceBias(ws, ws.weight);
+  biasedStep(ws, code, m, e, hasBias, ws.weight, ws.sqrtWeight);
   limitStepSize(ws);
   let hits = 0;
   if (o.resolveSaturated && violates(ws)) {
@@ -342,6 +372,12 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
     const dql = ws.dqLocked;
     const J = ws.J;
     const eRem = ws.eRes; // remaining error (biasedStep uses ws.e2 as its own scratch)
+    const wEff = ws.wEff;
+    const swEff = ws.swEff;
+    for (let i = 0; i < n; i++) {
+      wEff[i] = ws.weight[i];
+      swEff[i] = ws.sqrtWeight[i];
+    }
     for (let pass = 0; pass < n; pass++) {
       // Lock the free scalar DOF whose limit the step reaches first (smallest
       // fraction of the step), at that limit; then re-solve the others.
@@ -366,8 +402,8 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
         const v = ws.pose[i] + ws.dq[i];
         locked[i] = 1;
         dql[i] = (v < ws.lo[i] ? ws.lo[i] : ws.hi[i]) - ws.pose[i];
-        ws.wEff[i] = 0;
-        ws.swEff[i] = 0;
+        wEff[i] = 0;
+        swEff[i] = 0;
         ws.z[i] = 0;
         hits++;
       }
@@ -378,7 +414,7 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
         const d = dql[i];
         for (let r = 0; r < m; r++) eRem[r] -= J[6 * i + r] * d;
       }
-      biasedStep(ws, code, m, eRem, hasBias);
+      biasedStep(ws, code, m, eRem, hasBias, wEff, swEff);
       for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = 0;
       limitStepSize(ws);
       for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = dql[i];
@@ -545,7 +581,8 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
   const hist = o.recordErrors ? ws.errorHistory : null;
   const wo = o.orientationWeight;
   forwardKinematics(ws);
-  let posErr = taskError(ws, orient);
+  taskError(ws, orient);
+  let posErr = errState[2];
   let ang = errState[0];
   if (hist) hist[0] = orient ? Math.sqrt(posErr * posErr + wo * wo * ang * ang) : posErr;
   let it = 0;
@@ -566,11 +603,12 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
       change = errState[1];
     } else {
       hits += jacobianIteration(ws, code, m);
-      change = maxAbs(ws.dq, n);
+      change = errState[1];
       forwardKinematics(ws);
     }
     it++;
-    posErr = taskError(ws, orient);
+    taskError(ws, orient);
+    posErr = errState[2];
     ang = errState[0];
     if (hist) hist[it] = orient ? Math.sqrt(posErr * posErr + wo * wo * ang * ang) : posErr;
     if (change < minStep) {

@@ -5,9 +5,14 @@
  * the weighted least-norm ones, e.g. DLS dq = W·Jᵀ(J·W·Jᵀ + λ²I)⁻¹·e
  * (Buss 2004 §5 with column scaling). J has one column per DOF, stride 6.
  */
-import { choleskyDecompose, choleskySolve } from '../math/cholesky';
-import { svdJacobi } from '../math/svd';
+import * as C from '../math/cholesky';
+import * as SV from '../math/svd';
 import type { IKWorkspace } from './workspace';
+
+// Local bindings (transpiled imports are getter calls on every use).
+const choleskyDecompose = C.choleskyDecompose;
+const choleskySolve = C.choleskySolve;
+const svdJacobi = SV.svdJacobi;
 
 /** A ← Σ w_i·j_i·j_iᵀ (m×m row-major). */
 export function weightedGram(J: Float64Array, w: Float64Array, n: number, m: number, A: Float64Array): void {
@@ -32,12 +37,16 @@ export function dlsStep3(
   J: Float64Array,
   w: Float64Array,
   n: number,
-  lambda2: number,
-  e0: number,
-  e1: number,
-  e2: number,
+  lambda2Arr: Float64Array,
+  e: Float64Array,
   dq: Float64Array,
 ): boolean {
+  // Doubles travel in typed arrays: passing them as arguments to a call that
+  // is not inlined boxes each one (a heap allocation per call).
+  const lambda2 = lambda2Arr[0];
+  const e0 = e[0];
+  const e1 = e[1];
+  const e2 = e[2];
   let a00 = lambda2;
   let a01 = 0;
   let a02 = 0;
@@ -59,27 +68,21 @@ export function dlsStep3(
     a12 += wy * z;
     a22 += wi * z * z;
   }
-  // Cholesky of the symmetric 3×3.
-  if (!(a00 > 0)) return false;
-  const l00 = Math.sqrt(a00);
-  const i00 = 1 / l00;
-  const l10 = a01 * i00;
-  const l20 = a02 * i00;
-  const d1 = a11 - l10 * l10;
-  if (!(d1 > 0)) return false;
-  const l11 = Math.sqrt(d1);
-  const i11 = 1 / l11;
-  const l21 = (a12 - l20 * l10) * i11;
-  const d2 = a22 - l20 * l20 - l21 * l21;
-  if (!(d2 > 0)) return false;
-  const i22 = 1 / Math.sqrt(d2);
-  // Forward, then back substitution.
-  const f0 = e0 * i00;
-  const f1 = (e1 - l10 * f0) * i11;
-  const f2 = (e2 - l20 * f0 - l21 * f1) * i22;
-  const y2 = f2 * i22;
-  const y1 = (f1 - l21 * y2) * i11;
-  const y0 = (f0 - l10 * y1 - l20 * y2) * i00;
+  // Solve the SPD 3×3 by its adjugate: one division and a short dependency
+  // chain (a Cholesky needs three square roots and three divisions in series).
+  // With λ > 0 the matrix is well conditioned enough for this to be accurate.
+  const c00 = a11 * a22 - a12 * a12;
+  const c01 = a02 * a12 - a01 * a22;
+  const c02 = a01 * a12 - a02 * a11;
+  const det = a00 * c00 + a01 * c01 + a02 * c02;
+  if (!(det > 1e-300)) return false;
+  const c11 = a00 * a22 - a02 * a02;
+  const c12 = a01 * a02 - a00 * a12;
+  const c22 = a00 * a11 - a01 * a01;
+  const inv = 1 / det;
+  const y0 = (c00 * e0 + c01 * e1 + c02 * e2) * inv;
+  const y1 = (c01 * e0 + c11 * e1 + c12 * e2) * inv;
+  const y2 = (c02 * e0 + c12 * e1 + c22 * e2) * inv;
   for (let i = 0; i < n; i++) {
     const c = 6 * i;
     dq[i] = w[i] * (J[c] * y0 + J[c + 1] * y1 + J[c + 2] * y2);
@@ -89,9 +92,16 @@ export function dlsStep3(
 
 /** DLS for any m (3 or 6) with damping λ²: dq = W·Jᵀ·(JWJᵀ + λ²I)⁻¹·e. */
 export function dlsStep(ws: IKWorkspace, w: Float64Array, m: number, lambda2: number, e: Float64Array, dq: Float64Array): boolean {
+  ws.scalars[0] = lambda2;
+  return dlsStepS(ws, w, m, e, dq);
+}
+
+/** dlsStep with λ² taken from ws.scalars[0] (the solver's allocation-free path). */
+export function dlsStepS(ws: IKWorkspace, w: Float64Array, m: number, e: Float64Array, dq: Float64Array): boolean {
   const n = ws.nDof;
   const J = ws.J;
-  if (m === 3) return dlsStep3(J, w, n, lambda2, e[0], e[1], e[2], dq);
+  if (m === 3) return dlsStep3(J, w, n, ws.scalars, e, dq);
+  const lambda2 = ws.scalars[0];
   const A = ws.A;
   weightedGram(J, w, n, m, A);
   for (let r = 0; r < m; r++) A[r * m + r] += lambda2;

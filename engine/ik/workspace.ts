@@ -65,6 +65,8 @@ export interface IKWorkspace {
   readonly dKind: Int32Array;
   readonly dJoint: Int32Array;
   readonly dAxis: Float64Array;
+  /** Axis code per DOF: 0/1/2 = +X/+Y/+Z, 3/4/5 = −X/−Y/−Z, 6 = general. */
+  readonly dAxisCode: Int32Array;
   /** Per-DOF limits (±Infinity for free and for ball components). */
   readonly lo: Float64Array;
   readonly hi: Float64Array;
@@ -79,6 +81,11 @@ export interface IKWorkspace {
   readonly bCosHalfSwing: Float64Array;
   readonly bTwistMin: Float64Array;
   readonly bTwistMax: Float64Array;
+  /** cos/sin of half the twist bounds (in-range test without atan2). */
+  readonly bCosHalfTwistMin: Float64Array;
+  readonly bSinHalfTwistMin: Float64Array;
+  readonly bCosHalfTwistMax: Float64Array;
+  readonly bSinHalfTwistMax: Float64Array;
   readonly bLimited: Uint8Array;
   readonly sole: Float64Array;
   readonly soleNormal: Float64Array;
@@ -95,6 +102,12 @@ export interface IKWorkspace {
   /** Root (hip socket) world position and rotation (row-major 3×3). */
   readonly rootPos: Float64Array;
   readonly rootRot: Float64Array;
+
+  /** cos/sin cache of the rotational scalar DOFs (see forwardKinematics). */
+  readonly trigAngle: Float64Array;
+  readonly trigCos: Float64Array;
+  readonly trigSin: Float64Array;
+  readonly trigCount: Int32Array;
 
   // ---- forward kinematics output ----
   readonly jPos: Float64Array; // 3 per joint
@@ -131,6 +144,8 @@ export interface IKWorkspace {
   readonly target: Float64Array; // 3
   readonly normal: Float64Array; // 3
   readonly errorHistory: Float64Array;
+  /** Scalar scratch (doubles passed between hot functions without boxing). */
+  readonly scalars: Float64Array;
   readonly result: SolveResult;
 }
 
@@ -183,6 +198,7 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
   const dKind = new Int32Array(n);
   const dJoint = new Int32Array(n);
   const dAxis = new Float64Array(3 * n);
+  const dAxisCode = new Int32Array(n).fill(6);
   const lo = new Float64Array(n).fill(-Infinity);
   const hi = new Float64Array(n).fill(Infinity);
   const chainWeight = new Float64Array(n).fill(1);
@@ -193,6 +209,11 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
   const bTwistMin = new Float64Array(Math.max(nBall, 1)).fill(-Math.PI);
   const bTwistMax = new Float64Array(Math.max(nBall, 1)).fill(Math.PI);
   const bLimited = new Uint8Array(Math.max(nBall, 1));
+  const nb1 = Math.max(nBall, 1);
+  const bCosHalfTwistMin = new Float64Array(nb1);
+  const bSinHalfTwistMin = new Float64Array(nb1);
+  const bCosHalfTwistMax = new Float64Array(nb1);
+  const bSinHalfTwistMax = new Float64Array(nb1);
 
   let d = 0;
   let b = 0;
@@ -227,10 +248,17 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
         bCosHalfSwing[b] = Math.cos(Math.min(j.ball.swing, Math.PI) / 2);
         bTwistMin[b] = j.ball.twistMin;
         bTwistMax[b] = j.ball.twistMax;
+        if (!(j.ball.twistMin <= j.ball.twistMax)) throw new Error(`joint ${j.name}: twistMin > twistMax`);
         bLimited[b] = 1;
       } else {
         bAxis.set([0, -1, 0], 3 * b);
       }
+      const hmin = Math.max(-Math.PI, bTwistMin[b]) / 2;
+      const hmax = Math.min(Math.PI, bTwistMax[b]) / 2;
+      bCosHalfTwistMin[b] = Math.cos(hmin);
+      bSinHalfTwistMin[b] = Math.sin(hmin);
+      bCosHalfTwistMax[b] = Math.cos(hmax);
+      bSinHalfTwistMax[b] = Math.sin(hmax);
       b++;
     } else {
       jKind[ji] = j.kind === 'hinge' ? JOINT_HINGE : j.kind === 'universal' ? JOINT_UNIVERSAL : JOINT_SLIDER;
@@ -238,7 +266,12 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
       for (let a = 0; a < k; a++) {
         dKind[d + a] = j.kind === 'slider' ? DOF_SLIDE : DOF_ROT;
         dJoint[d + a] = ji;
-        dAxis.set(normalize3(j.axes[a]), 3 * (d + a));
+        const ax = normalize3(j.axes[a]);
+        dAxis.set(ax, 3 * (d + a));
+        for (let c = 0; c < 3; c++) {
+          const others = [0, 1, 2].filter((q) => q !== c);
+          if (others.every((q) => ax[q] === 0) && Math.abs(ax[c]) === 1) dAxisCode[d + a] = ax[c] > 0 ? c : c + 3;
+        }
         const lim = j.limits?.[a];
         if (lim) {
           if (!(lim.min <= lim.max)) throw new Error(`joint ${j.name}: limit min > max`);
@@ -288,6 +321,7 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     dKind,
     dJoint,
     dAxis,
+    dAxisCode,
     lo,
     hi,
     chainWeight,
@@ -299,6 +333,10 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     bCosHalfSwing,
     bTwistMin,
     bTwistMax,
+    bCosHalfTwistMin,
+    bSinHalfTwistMin,
+    bCosHalfTwistMax,
+    bSinHalfTwistMax,
     bLimited,
     sole: Float64Array.from(chain.sole),
     soleNormal: Float64Array.from(normalize3(chain.soleNormal)),
@@ -307,6 +345,10 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     clampDistance: 0,
     pose,
     quat,
+    trigAngle: new Float64Array(n),
+    trigCos: new Float64Array(n).fill(1),
+    trigSin: new Float64Array(n),
+    trigCount: new Int32Array(n),
     rootPos: new Float64Array(3),
     rootRot,
     jPos: new Float64Array(3 * nJ),
@@ -339,6 +381,7 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     target: new Float64Array(3),
     normal: new Float64Array(3),
     errorHistory,
+    scalars: new Float64Array(8),
     result,
   };
   applyWeights(ws);
@@ -393,6 +436,29 @@ export function resetPose(ws: IKWorkspace): void {
 
 /** Rotation vector → unit quaternion (exact exp map), written at q[o..o+3]. */
 export function expRotationVector(x: number, y: number, z: number, q: Float64Array, o: number): void {
+  const t2 = x * x + y * y + z * z;
+  let s: number;
+  let c: number;
+  if (t2 < 1e-2) {
+    const h2 = t2 * 0.25;
+    c = 1 - h2 / 2 + (h2 * h2) / 24 - (h2 * h2 * h2) / 720 + (h2 * h2 * h2 * h2) / 40320;
+    s = 0.5 * (1 - h2 / 6 + (h2 * h2) / 120 - (h2 * h2 * h2) / 5040 + (h2 * h2 * h2 * h2) / 362880);
+  } else {
+    const t = Math.sqrt(t2);
+    c = Math.cos(t / 2);
+    s = Math.sin(t / 2) / t;
+  }
+  q[o] = x * s;
+  q[o + 1] = y * s;
+  q[o + 2] = z * s;
+  q[o + 3] = c;
+}
+
+/** expRotationVector reading the rotation vector from v[vo..vo+2] (no boxed arguments). */
+export function expRotationVectorAt(v: Float64Array, vo: number, q: Float64Array, o: number): void {
+  const x = v[vo];
+  const y = v[vo + 1];
+  const z = v[vo + 2];
   const t2 = x * x + y * y + z * z;
   let s: number;
   let c: number;
@@ -514,12 +580,14 @@ export function clampBall(ws: IKWorkspace, b: number): boolean {
   const nt = Math.sqrt(t * t + w * w); // = swing's w = cos(swing/2)
   const tmin = ws.bTwistMin[b];
   const tmax = ws.bTwistMax[b];
-  // twist/2 = atan2(t, w) in (−π/2, π/2] when nt > 0.
-  const half = nt > 1e-12 ? Math.atan2(t, w) : 0;
-  const twist = 2 * half;
   const swingOk = nt >= ws.bCosHalfSwing[b];
-  const twistOk = twist >= tmin && twist <= tmax;
+  // twist/2 = atan2(t, w) ∈ [−π/2, π/2] (w ≥ 0). In range without an atan2:
+  // twist ≤ tmax ⟺ sin(twist/2 − tmax/2) ≤ 0 ⟺ t·cos(tmax/2) − w·sin(tmax/2) ≤ 0.
+  const twistOk =
+    t * ws.bCosHalfTwistMax[b] - w * ws.bSinHalfTwistMax[b] <= 0 &&
+    t * ws.bCosHalfTwistMin[b] - w * ws.bSinHalfTwistMin[b] >= 0;
   if (swingOk && twistOk) return false;
+  const twist = nt > 1e-12 ? 2 * Math.atan2(t, w) : 0;
   // twist quaternion tw = (a·t, w)/nt; swing = q ⊗ conj(tw)
   let tx: number, ty: number, tz: number, tw: number;
   if (nt > 1e-12) {

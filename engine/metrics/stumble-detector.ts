@@ -22,13 +22,14 @@ const SKID = 1;
 const REACH_MISS = 2;
 const SCUFF = 3;
 const SNAP = 4;
+const KINDS = STUMBLE_KINDS.length;
 
 export class StumbleDetector {
   readonly legs: number;
   readonly thresholds: StumbleThresholds;
   /** Touchdowns seen, all legs. */
   steps = 0;
-  readonly counts = new Int32Array(STUMBLE_KINDS.length);
+  readonly counts = new Int32Array(KINDS);
 
   private time = 0;
   private started: Uint8Array;
@@ -38,7 +39,7 @@ export class StumbleDetector {
   private sinkRun: Int32Array;
   private sinkMax: Float64Array;
   private sinkStart: Float64Array;
-  /** Index of the open event of each kind per leg (−1 = none): legs × 5. */
+  /** Index of the open event of each kind per leg (−1 = none): legs × kinds. */
   private open: Int32Array;
 
   private evKind = new Uint8Array(64);
@@ -57,7 +58,7 @@ export class StumbleDetector {
     this.sinkRun = new Int32Array(legs);
     this.sinkMax = new Float64Array(legs);
     this.sinkStart = new Float64Array(legs);
-    this.open = new Int32Array(legs * 5).fill(-1);
+    this.open = new Int32Array(legs * KINDS).fill(-1);
   }
 
   /** Start a frame at `time` seconds; then call `leg` once per leg. */
@@ -89,14 +90,14 @@ export class StumbleDetector {
 
   /** Grow the open event of `kind` on `leg` to `size`, or open one. */
   private runEvent(kind: number, leg: number, size: number): void {
-    const slot = leg * 5 + kind;
+    const slot = leg * KINDS + kind;
     const i = this.open[slot];
     if (i < 0) this.open[slot] = this.push(kind, leg, this.time, size);
     else if (size > this.evSize[i]) this.evSize[i] = size;
   }
 
   private close(kind: number, leg: number): void {
-    this.open[leg * 5 + kind] = -1;
+    this.open[leg * KINDS + kind] = -1;
   }
 
   leg(
@@ -148,7 +149,7 @@ export class StumbleDetector {
         } else if (depth > this.sinkMax[leg]) this.sinkMax[leg] = depth;
         this.sinkRun[leg]++;
         // The event is dated to the first frame of the run.
-        if (this.sinkRun[leg] === th.sinkFrames) this.open[leg * 5 + SINK] = this.push(SINK, leg, this.sinkStart[leg], this.sinkMax[leg]);
+        if (this.sinkRun[leg] === th.sinkFrames) this.open[leg * KINDS + SINK] = this.push(SINK, leg, this.sinkStart[leg], this.sinkMax[leg]);
         else if (this.sinkRun[leg] > th.sinkFrames) this.runEvent(SINK, leg, depth);
       } else {
         this.sinkRun[leg] = 0;

@@ -3,7 +3,8 @@
  * boxes along bone segments, each box bound rigidly to one bone. Bones keep the identity rotation,
  * so each inverse bind matrix is the translation to the bone's rest position (glTF 2.0 §3.7.3.3).
  */
-import { Document, NodeIO, type Node } from '@gltf-transform/core';
+import type { Document, Node } from '@gltf-transform/core';
+import { gltfCore, memoryNodeIO } from '../../server/services/gltf-import-library';
 
 export type V3 = [number, number, number];
 
@@ -94,7 +95,7 @@ function appendBox(g: Geometry, part: PartSpec, bone: number): void {
 
 /** The design as a glTF document: one skinned mesh (a primitive per finish) and its skeleton. */
 export function buildCharacterDocument(design: RigDesign): Document {
-  const doc = new Document();
+  const doc = new (gltfCore().Document)();
   doc.getRoot().getAsset().generator = 'Treadle demo rig builder';
   const buffer = doc.createBuffer();
   const index = new Map(design.bones.map((b, i) => [b.name, i]));
@@ -132,7 +133,7 @@ export function buildCharacterDocument(design: RigDesign): Document {
       appendBox(g, part, bone);
     }
     const material = doc.createMaterial(finish).setBaseColorFactor(srgbToLinear(FINISH_SRGB[finish])).setMetallicFactor(0.1).setRoughnessFactor(0.7);
-    const accessor = (name: string, type: 'VEC3' | 'VEC4' | 'SCALAR', array: Float32Array | Uint16Array | Uint32Array) =>
+    const accessor = (name: string, type: 'VEC3' | 'VEC4' | 'SCALAR', array: Float32Array<ArrayBuffer> | Uint16Array<ArrayBuffer> | Uint32Array<ArrayBuffer>) =>
       doc.createAccessor(`${finish} ${name}`).setType(type).setArray(array).setBuffer(buffer);
     const vertexCount = g.positions.length / 3;
     const primitive = doc
@@ -154,7 +155,7 @@ export function buildCharacterDocument(design: RigDesign): Document {
 
 /** The design as a .glb file. */
 export async function buildCharacterGlb(design: RigDesign): Promise<Uint8Array> {
-  return new NodeIO().writeBinary(buildCharacterDocument(design));
+  return memoryNodeIO().writeBinary(buildCharacterDocument(design));
 }
 
 /** A bone segment box from one bone to another (or to a point), bound to the first. */

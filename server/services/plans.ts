@@ -1,7 +1,7 @@
 import type { LimitKind, Plan, PlanId } from '../../schemas/billing';
 
 /**
- * The three team plans. Solo is free and roomy enough for the demo studio (four members, a few characters);
+ * The three team plans. Solo is free and roomy enough for the demo studio (four members and one invite, a few characters);
  * prices are monthly, before tax, in euro cents.
  */
 export const PLANS: readonly Plan[] = [
@@ -11,7 +11,7 @@ export const PLANS: readonly Plan[] = [
     blurb: 'Free for a small team trying Treadle on a few characters.',
     monthlyPrice: 0,
     currency: 'eur',
-    limits: { seats: 4, characters: 5, dialInCandidates: 500, profilePublishes: 10 },
+    limits: { seats: 5, characters: 5, dialInCandidates: 500, profilePublishes: 10 },
   },
   {
     id: 'crew',

@@ -22,6 +22,8 @@ const me = {
   user: { id: 1, email: 'designer@brassmoth.test', name: 'Dario Moth' },
   team: { id: 1, name: 'Brassmoth Interactive' },
   role: 'designer',
+  permissions: ['me.read', 'team.read'],
+  teams: [{ id: 1, name: 'Brassmoth Interactive', role: 'designer' }],
 };
 
 describe('routes', () => {

@@ -6,7 +6,8 @@
  *  - cold: 10,000 reachable targets (FK of seeded poses inside the limits) and
  *    1,000 unreachable ones (1.1–1.5× the reach), each solve from the rest pose;
  *  - tracking: a walking foot path sampled at 60 Hz (stance slide, swing arc,
- *    seeded ground heights), each solve warm-started from the previous frame.
+ *    seeded ground heights), each solve warm-started from the previous frame;
+ *    the leg starts standing in its rest pose and eases into the walk over 1 s.
  * Success: final error < 1 mm on reachable targets (all tracking targets are).
  * Peers on the same targets: peer-fd-dls and peer-three-ccd (see ik-peers.ts),
  * plus the flop floor of one solve iteration (FK + Jacobian + one DLS step).
@@ -29,6 +30,7 @@ const N_UNREACH = QUICK ? 100 : 1000;
 const N_TRACK = QUICK ? 1200 : 6000; // 100 s of walking at 60 Hz
 const MIN_TIME_MS = QUICK ? 60 : 250; // per (chain, workload, method) for our solvers
 const SUCCESS_M = 1e-3;
+const EASE_S = 1; // tracking: seconds of ease-in from the standing pose
 
 const now = (): number => performance.now();
 
@@ -140,9 +142,12 @@ function trackingWorkload(chain: LegChain, seed: number): Workload {
       y = g0 + (g1 - g0) * s + H * Math.sin(Math.PI * s);
     }
     const x = 0.02 * R * Math.sin(2 * Math.PI * ph);
-    targets[3 * k] = p0[0] + x;
-    targets[3 * k + 1] = p0[1] + y;
-    targets[3 * k + 2] = p0[2] + z;
+    // The character starts standing in its rest pose and eases into the walk over the first second.
+    const u = Math.min(1, t / EASE_S);
+    const b = u * u * (3 - 2 * u);
+    targets[3 * k] = (1 - b) * rest[0] + b * (p0[0] + x);
+    targets[3 * k + 1] = (1 - b) * rest[1] + b * (p0[1] + y);
+    targets[3 * k + 2] = (1 - b) * rest[2] + b * (p0[2] + z);
   }
   return { name: 'tracking', targets, reachable: new Uint8Array(count).fill(1), count, cold: false };
 }

@@ -12,7 +12,7 @@ import { PRESET_RIG_NAMES, presetRig } from '../../engine/gait/rig-presets';
 import { runTrial } from '../../engine/gait/trial';
 
 const SIM_SECONDS = 60;
-const RUNS = 5;
+const RUNS = 7;
 const COURSE_LENGTH = 100;
 
 function stairsSegments(): CourseSegmentInput[] {

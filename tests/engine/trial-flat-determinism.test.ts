@@ -1,5 +1,5 @@
 import { flatCourse, rubbleCourse } from '../../engine/course';
-import { PRESET_RIG_NAMES, defaultLegSetup, presetRig, runTrial } from '../../engine/gait';
+import { PRESET_RIG_NAMES, decodeSeries, defaultLegSetup, encodeSeries, presetRig, runTrial } from '../../engine/gait';
 import { STUMBLE_KINDS, TrialMetricsSchema, detectStumbles } from '../../engine/metrics';
 
 describe('flat course with default settings', () => {
@@ -42,8 +42,27 @@ describe('series', () => {
     const r = runTrial(rig, setup, course, { duration: 10, recordRate: 60 });
     expect(r.metrics.events.length).toBeGreaterThan(0);
     const offline = detectStumbles(r.series, course);
-    const round = (e: { kind: string; time: number; leg: number; size: number }) => ({ ...e, time: Math.round(e.time * 60), size: Number(e.size.toPrecision(4)) });
-    expect(offline.events().map(round)).toEqual(r.metrics.events.map(round));
+    // The series is Float32: sizes agree to its precision, kinds, legs and frames exactly.
+    const key = (e: { kind: string; time: number; leg: number }) => `${e.kind}/${e.leg}/${Math.round(e.time * 60)}`;
+    const found = offline.events();
+    expect(found.map(key)).toEqual(r.metrics.events.map(key));
+    found.forEach((e, k) => expect(Math.abs(e.size - r.metrics.events[k].size)).toBeLessThan(1e-5 * Math.max(1, e.size)));
     expect(offline.steps).toBe(r.metrics.steps);
+  });
+});
+
+describe('series encoding', () => {
+  it('round-trips a recorded series exactly and rejects a truncated field with its name', () => {
+    const rig = presetRig('quadruped');
+    const s = runTrial(rig, defaultLegSetup(rig), flatCourse(20), { duration: 3 }).series;
+    const enc = JSON.parse(JSON.stringify(encodeSeries(s)));
+    const back = decodeSeries(enc);
+    expect(back.length).toBe(s.length);
+    expect(back.foot).toEqual(s.foot);
+    expect(back.contact).toEqual(s.contact);
+    expect(back.iterations).toEqual(s.iterations);
+    expect(back.bodyZ).toEqual(s.bodyZ);
+    expect(() => decodeSeries({ ...enc, fields: { ...enc.fields, foot: 'AAAA' } })).toThrow(/foot must hold \d+ bytes, got 3[\s\S]*fields\.foot/);
+    expect(() => decodeSeries({ ...enc, version: 3 })).toThrow(/unsupported version 3/);
   });
 });

@@ -35,32 +35,41 @@ describe('snap', () => {
   const rubble = generateCourse({ segments: [{ kind: 'flat', length: 3 }, { kind: 'rubble', length: 40, amplitude: 0.05, featureSize: 0.5, seed: 7 }] });
   const nearExtension = (lambda: number) => (s: LegSetup) => {
     s.body.heightOffset = 0.03;
-    s.solver.footOrientation = false;
-    s.solver.nullSpace = { kind: 'rest', gain: 0.05 };
     s.solver.lambda = lambda;
   };
-  it('λ = 0 near full extension on rubble snaps more than a tuned λ (Buss 2004: DLS damps steps near singularities)', () => {
+  it('λ = 0 near full extension on rubble snaps more than the tuned default λ (Buss 2004: damping bounds steps near singularities)', () => {
     const undamped = stumbles('biped', rubble, nearExtension(0))('snap');
     const tuned = stumbles('biped', rubble, nearExtension(0.02))('snap');
-    expect(undamped).toBeGreaterThan(tuned);
+    expect(undamped).toBeGreaterThan(2 * tuned);
   });
 });
 
 describe('scuff', () => {
   const curb = curbCourse(10, 0.1, { leadIn: 3, leadOut: 20 });
-  it('a biped lifting its feet 0 cm over a 10 cm curb', () => {
-    expect(stumbles('biped', curb, (s) => (s.gait.stepHeight = 0))('scuff')).toBeGreaterThan(0);
+  // One damped iteration per frame from the last pose: the swinging foot trails its path a little.
+  const trailing = (stepHeight: number | null) => (s: LegSetup) => {
+    if (stepHeight !== null) s.gait.stepHeight = stepHeight;
+    s.solver.maxIterations = 1;
+    s.solver.lambda = 0.1;
+    s.solver.warmStart = 'previous';
+  };
+  it('a biped lifting its feet 0 cm on a course with a 10 cm curb', () => {
+    expect(stumbles('biped', curb, trailing(0))('scuff')).toBeGreaterThan(0);
   });
-  it('near miss: the default step height over the same curb', () => {
+  it('near miss: the same solver with the default step height', () => {
+    expect(stumbles('biped', curb, trailing(null))('scuff')).toBe(0);
+  });
+  it('and the default setup over the curb', () => {
     expect(stumbles('biped', curb)('scuff')).toBe(0);
   });
 });
 
 describe('sink and skid', () => {
-  // One heavily damped iteration per frame: the foot lags its target as the body moves.
+  // One heavily damped iteration per frame from the last pose: the foot lags its target as the body moves.
   const sluggish = (s: LegSetup) => {
     s.solver.maxIterations = 1;
     s.solver.lambda = 0.3;
+    s.solver.warmStart = 'previous';
   };
   it('sink: a sluggish solver walking down a 10° ramp', () => {
     expect(stumbles('quadruped', rampCourse(30, -10, { leadIn: 3, leadOut: 10 }), sluggish)('sink')).toBeGreaterThan(0);
@@ -69,6 +78,7 @@ describe('sink and skid', () => {
     const s = stumbles('quadruped', rampCourse(30, -10, { leadIn: 3, leadOut: 10 }), (x) => {
       x.solver.maxIterations = 2;
       x.solver.lambda = 0.1;
+      x.solver.warmStart = 'previous';
     });
     expect(s('sink')).toBe(0);
     expect(s('skid')).toBe(0);
@@ -77,6 +87,7 @@ describe('sink and skid', () => {
     const s = stumbles('quadruped', flatCourse(40), (x) => {
       x.solver.maxIterations = 1;
       x.solver.lambda = 0.5;
+      x.solver.warmStart = 'previous';
     });
     expect(s('skid')).toBeGreaterThan(0);
   });

@@ -1,14 +1,37 @@
+import { useState } from 'react';
 import { Screen } from '../../../components/layout/Screen';
 import { EmptyState } from '../../../components/ui/EmptyState';
+import { Button } from '../../../components/ui/Button';
+import { Notice } from '../../../components/ui/Notice';
+import { CharacterList } from '../../../components/characters/CharacterList';
+import { UploadPanel } from '../../../components/characters/UploadPanel';
+import { LoadingPage } from '../../../components/layout/LoadingPage';
+import { useMe } from '../../../hooks/useSession';
+import { canUploadCharacters, useCharacters } from '../../../hooks/useCharacters';
 
 export default function CharactersScreen() {
+  const me = useMe();
+  const characters = useCharacters();
+  const mayUpload = canUploadCharacters(me.data);
+  const [uploading, setUploading] = useState(false);
+  const list = characters.data?.characters ?? [];
   return (
-    <Screen title="Characters" lede="Your studio's rigged characters, their legs and their leg setups.">
-      <EmptyState
-        heading="Bring your first character"
-        body="Upload a .glb or .gltf with a skin. Treadle reads its skeleton, finds the legs and lets you correct the mapping."
-        points={['Import report with any validation problems', 'Detected legs with their joints and limits', 'A 3D view you can orbit by touch']}
-      />
+    <Screen
+      title="Characters"
+      lede="Your studio's rigged characters, their legs and their leg setups."
+      actions={mayUpload ? <Button label={uploading ? 'Close upload' : 'Upload character'} tone={uploading ? 'quiet' : 'action'} onPress={() => setUploading(!uploading)} /> : null}
+    >
+      {uploading && mayUpload ? <UploadPanel /> : null}
+      {characters.isPending ? <LoadingPage /> : null}
+      {characters.isError ? <Notice message={characters.error.message} /> : null}
+      {characters.isSuccess && list.length === 0 ? (
+        <EmptyState
+          heading="Bring your first character"
+          body={mayUpload ? 'Upload a .glb or .gltf with a skin. Treadle reads its skeleton, finds the legs and lets you correct the mapping.' : 'An owner or designer uploads characters; they will show here.'}
+          points={['Import report with any validation problems', 'Detected legs with their joints and limits', 'A 3D view you can orbit by touch']}
+        />
+      ) : null}
+      {list.length ? <CharacterList characters={list} /> : null}
     </Screen>
   );
 }

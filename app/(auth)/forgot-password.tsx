@@ -1,0 +1,5 @@
+import { ResetRequestForm } from '../../components/forms/ResetRequestForm';
+
+export default function ForgotPasswordScreen() {
+  return <ResetRequestForm />;
+}

@@ -1,0 +1,26 @@
+import { useLocalSearchParams } from 'expo-router';
+import { CharacterPage } from '../../../components/characters/CharacterPage';
+import { LoadingPage } from '../../../components/layout/LoadingPage';
+import { useMe } from '../../../hooks/useSession';
+import { canEditLegs, characterFileUrl, useCharacter, useSaveLegs } from '../../../hooks/useCharacters';
+
+export default function CharacterScreen() {
+  const { id } = useLocalSearchParams<{ id: string }>();
+  const characterId = Number(id);
+  const me = useMe();
+  const detail = useCharacter(characterId);
+  const save = useSaveLegs(characterId);
+  if (detail.isPending) return <LoadingPage />;
+  if (detail.isError) return <LoadingPage problem={detail.error.message} onRetry={() => detail.refetch()} />;
+  return (
+    <CharacterPage
+      detail={detail.data}
+      fileUrl={characterFileUrl(characterId)}
+      mayEdit={canEditLegs(me.data)}
+      onSaveLegs={async (legs) => {
+        await save.mutateAsync(legs);
+        await detail.refetch();
+      }}
+    />
+  );
+}

@@ -1,0 +1,100 @@
+/**
+ * Body adaptation: the body's height, pitch and roll targets from the planted
+ * feet, its rotation, and the hip sockets placed from the body pose.
+ */
+import { quat, vec3 } from 'gl-matrix';
+import * as sample from '../course/sample';
+import * as ikWorkspace from '../ik/workspace';
+import type { Trial } from './trial-state';
+
+// Read once: under CommonJS interop each use of an imported name is a getter call.
+const { heightAt } = sample;
+const { setRootTransform } = ikWorkspace;
+const { setAxisAngle: quatSetAxisAngle, multiply: quatMultiply } = quat;
+const { transformQuat } = vec3;
+
+const X_AXIS = new Float64Array([1, 0, 0]);
+const Z_AXIS = new Float64Array([0, 0, 1]);
+const hipLocal = new Float64Array(3);
+const hipWorld = new Float64Array(3);
+const hipRot = new Float64Array(4);
+const legRot = new Float64Array(4);
+const pitchRot = new Float64Array(4);
+
+/** Filled by computeBodyTargets: height (m), pitch (nose up) and roll (left up), rad. */
+export const bodyTargets = new Float64Array(3);
+
+/**
+ * Targets from the last planted height of every foot: the height follows
+ * their mean (blended with the ground under the body by followHeight), pitch
+ * and roll follow the least-squares slope of those heights along and across
+ * the walk, and the body crouches on slopes by slopeCrouch.
+ */
+export function computeBodyTargets(t: Trial): void {
+  const L = t.legs;
+  const b = t.setup.body;
+  let mh = 0;
+  let mx = 0;
+  let mz = 0;
+  for (let i = 0; i < L; i++) {
+    mh += t.support[i];
+    mx += t.plant[3 * i];
+    mz += t.plant[3 * i + 2];
+  }
+  mh /= L;
+  mx /= L;
+  mz /= L;
+  let sxx = 0;
+  let szz = 0;
+  let sxh = 0;
+  let szh = 0;
+  for (let i = 0; i < L; i++) {
+    const dx = t.plant[3 * i] - mx;
+    const dz = t.plant[3 * i + 2] - mz;
+    const dh = t.support[i] - mh;
+    sxx += dx * dx;
+    szz += dz * dz;
+    sxh += dx * dh;
+    szh += dz * dh;
+  }
+  // Feet nearly in line across (or along) the walk say nothing about that slope.
+  const minSpread = 0.01 * L;
+  const slopeZ = szz > minSpread * minSpread ? szh / szz : 0;
+  const slopeX = sxx > minSpread * minSpread ? sxh / sxx : 0;
+  const pitchRaw = Math.atan(slopeZ);
+  const rollRaw = Math.atan(slopeX);
+  const bz = t.bodyPos[2];
+  const under = heightAt(t.course, 0, bz);
+  const ground = under + (mh - under) * b.followHeight;
+  const crouch = b.slopeCrouch * t.rig.hipHeight * Math.sqrt(pitchRaw * pitchRaw + rollRaw * rollRaw);
+  bodyTargets[0] = ground + t.rig.hipHeight + b.heightOffset - crouch;
+  bodyTargets[1] = pitchRaw * b.followPitch;
+  bodyTargets[2] = rollRaw * b.followRoll;
+}
+
+export function updateBodyRotation(t: Trial): void {
+  // Nose up is a negative turn about +X (+Z forward, +Y up); left side up is a positive turn about +Z.
+  quatSetAxisAngle(pitchRot as unknown as quat, X_AXIS as unknown as vec3, -t.pitch.value);
+  quatSetAxisAngle(t.bodyRot as unknown as quat, Z_AXIS as unknown as vec3, t.roll.value);
+  quatMultiply(t.bodyRot as unknown as quat, t.bodyRot as unknown as quat, pitchRot as unknown as quat);
+}
+
+/** Hip sockets (the chains' roots) from the body pose. */
+export function placeHips(t: Trial): void {
+  for (let i = 0; i < t.legs; i++) {
+    const leg = t.rig.legs[i];
+    hipLocal[0] = leg.hip[0];
+    hipLocal[1] = leg.hip[1];
+    hipLocal[2] = leg.hip[2];
+    transformQuat(hipWorld as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
+    hipWorld[0] += t.bodyPos[0];
+    hipWorld[1] += t.bodyPos[1];
+    hipWorld[2] += t.bodyPos[2];
+    legRot[0] = leg.hipRotation[0];
+    legRot[1] = leg.hipRotation[1];
+    legRot[2] = leg.hipRotation[2];
+    legRot[3] = leg.hipRotation[3];
+    quatMultiply(hipRot as unknown as quat, t.bodyRot as unknown as quat, legRot as unknown as quat);
+    setRootTransform(t.solvers[i], hipWorld, hipRot);
+  }
+}

@@ -1,0 +1,93 @@
+/** The state of a running trial: everything the loop reads and writes, allocated once. */
+import type { Heightfield } from '../course/heightfield';
+import type { IKWorkspace } from '../ik/workspace';
+import type { ResponseSummary, ResponseWindow } from '../metrics/response-window';
+import type { StumbleDetector } from '../metrics/stumble-detector';
+import type { TrialMetrics } from '../metrics/trial-metrics';
+import type { CriticalFilter, DampedState } from './body-filter';
+import type { GaitParams } from './gait-params';
+import type { LegSetup } from './leg-setup';
+import type { Rig } from './rig';
+import type { TrialSeries } from './series';
+import type { SwingPlan } from './swing-path';
+import type { TrialOptions } from './trial-options';
+
+export interface TrialResult {
+  rig: string;
+  legNames: string[];
+  gait: GaitParams;
+  metrics: TrialMetrics;
+  series: TrialSeries;
+}
+
+export interface Trial {
+  readonly rig: Rig;
+  readonly setup: LegSetup;
+  readonly course: Heightfield;
+  readonly options: TrialOptions;
+  readonly gait: GaitParams;
+  readonly legs: number;
+  readonly solvers: IKWorkspace[];
+  /** Per leg: 1 = the solve also turns the sole to the ground normal. */
+  readonly orient: Uint8Array;
+  /** Frames to run and frames run so far. */
+  readonly totalFrames: number;
+  frame: number;
+  readonly startZ: number;
+
+  // Per leg state (index = leg).
+  /** Gait phase this frame: 0 at touchdown, dutyFactor at liftoff. */
+  readonly phase: Float64Array;
+  readonly stance: Uint8Array;
+  /** Planted foot (stance target) and the ground normal there: 3 per leg. */
+  readonly plant: Float64Array;
+  readonly plantNormal: Float64Array;
+  /** Last planted height of each leg: what the body follows. */
+  readonly support: Float64Array;
+  readonly swings: SwingPlan[];
+  /** Normals at liftoff and at the coming touchdown: 3 per leg. */
+  readonly liftNormal: Float64Array;
+  readonly landNormal: Float64Array;
+  /** Current target and target normal, actual foot: 3 per leg. */
+  readonly target: Float64Array;
+  readonly targetNormal: Float64Array;
+  /** Views of leg i's target and target normal (made once: subarray allocates). */
+  readonly targetOf: Float64Array[];
+  readonly targetNormalOf: Float64Array[];
+  readonly foot: Float64Array;
+  /** Poses of the last two frames (joint speed, extrapolated warm start). */
+  readonly prevPose: Float64Array[];
+  readonly olderPose: Float64Array[];
+  /** Per leg: 1 = extrapolated warm start. */
+  readonly extrapolate: Uint8Array;
+  readonly jointSpeed: Float64Array;
+  readonly iterations: Int32Array;
+  readonly error: Float64Array;
+
+  // Body.
+  readonly bodyPos: Float64Array;
+  readonly bodyRot: Float64Array;
+  readonly height: DampedState;
+  readonly pitch: DampedState;
+  readonly roll: DampedState;
+  heightTarget: number;
+  readonly filter: CriticalFilter;
+
+  // Metrics.
+  readonly detector: StumbleDetector;
+  readonly touchdownWindows: ResponseWindow[];
+  readonly touchdownSummary: ResponseSummary;
+  readonly bodyWindow: ResponseWindow;
+  readonly bodySummary: ResponseSummary;
+  trackSq: number;
+  trackMax: number;
+  trackCount: number;
+  solves: number;
+  iterationSum: number;
+  frameIterationsMax: number;
+  errorSum: number;
+  errorMax: number;
+  unconverged: number;
+
+  readonly series: TrialSeries;
+}

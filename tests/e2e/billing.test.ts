@@ -1,0 +1,114 @@
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
+import { startTestServer } from '../support/test-server';
+
+jest.setTimeout(180_000);
+
+let server: Awaited<ReturnType<typeof startTestServer>>;
+let browser: Browser;
+let closeBrowser: () => Promise<void>;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  ({ browser, close: closeBrowser } = await launchBrowser());
+});
+afterAll(async () => {
+  await closeBrowser?.();
+  await server?.stop();
+});
+
+async function signedInPage(size: { width: number; height: number }, email: string): Promise<Page> {
+  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
+  const page = await context.newPage();
+  page.on('pageerror', (err) => {
+    throw err;
+  });
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('treadle-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByText('Brassmoth Interactive', { exact: true }).first().waitFor();
+  await page.goto(`${server.url}/team/billing`);
+  await page.getByRole('heading', { name: 'Billing', level: 1 }).waitFor();
+  return page;
+}
+
+async function fillCard(page: Page, number: string) {
+  await page.getByLabel('Card number').fill(number);
+  await page.getByLabel('Expiry (MM / YY)').fill('12 / 34');
+  await page.getByLabel('Security code').fill('123');
+  await page.getByLabel('Name on card').fill('Ottilie Brass');
+}
+
+describe('the owner’s billing screen and the local checkout page', () => {
+  it('upgrades the demo studio from Solo to Crew with the success card after the declined one is refused (phone)', async () => {
+    const page = await signedInPage(PHONE, 'owner@brassmoth.test');
+    await page.getByText('Current plan').waitFor();
+    await page.getByText('no real money moves', { exact: false }).first().waitFor();
+    await screenshot(page, 'billing-solo-phone');
+
+    await page.getByRole('button', { name: 'Upgrade to Crew' }).click();
+    await page.waitForURL(`${server.paymentsUrl}/pay/**`);
+    await page.getByRole('heading', { name: 'Test payment page — no real money moves' }).waitFor();
+    await screenshot(page, 'checkout-page-phone');
+
+    // 4000 0000 0000 0002: the provider's published test card for a generic decline (Stripe docs, "Testing").
+    await fillCard(page, '4000 0000 0000 0002');
+    await page.getByRole('button', { name: /^Pay / }).click();
+    await page.getByRole('alert').filter({ hasText: 'Your card was declined' }).waitFor();
+    expect(await page.getByLabel('Card number').inputValue()).toBe('');
+    await screenshot(page, 'checkout-declined-phone');
+
+    // 4242 4242 4242 4242: the provider's published test card that always succeeds (Stripe docs, "Testing").
+    await fillCard(page, '4242 4242 4242 4242');
+    await page.getByRole('button', { name: /^Pay / }).click();
+    await page.waitForURL(`${server.url}/team/billing?checkout=done**`);
+    await page.getByText('Payment received: the studio is on Crew.').waitFor();
+    await page.getByText('Crew (monthly)').waitFor();
+    await screenshot(page, 'billing-crew-phone');
+    await page.getByText('Invoices', { exact: true }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'billing-invoices-phone');
+    await page.context().close();
+  });
+
+  it('upgrades to Studio, then cancels at the period end, on a wide screen', async () => {
+    const page = await signedInPage(WIDE, 'owner@brassmoth.test');
+    await page.getByText('Active · renews on', { exact: false }).waitFor();
+    await screenshot(page, 'billing-crew-wide');
+    await page.getByRole('button', { name: 'Upgrade to Studio' }).click();
+    await page.getByText('charged straight away', { exact: false }).waitFor();
+    await screenshot(page, 'billing-confirm-upgrade-wide');
+    await page.getByRole('button', { name: 'Move to Studio' }).click();
+    await page.getByLabel('Studio plan').getByText('Current').waitFor();
+
+    await page.getByRole('button', { name: 'Cancel subscription' }).click();
+    await page.getByText('then the studio moves to the free Solo plan', { exact: false }).waitFor();
+    await screenshot(page, 'billing-confirm-cancel-wide');
+    await page.getByRole('button', { name: 'Cancel at period end' }).click();
+    await page.getByText(/Ends on .*, then Solo/).waitFor();
+    await screenshot(page, 'billing-cancelling-wide');
+    await page.context().close();
+  });
+
+  it('shows the checkout page at desk width too', async () => {
+    const page = await signedInPage(WIDE, 'owner@brassmoth.test');
+    await page.getByRole('button', { name: /Keep Studio after/ }).click();
+    await page.getByText('Active · renews on', { exact: false }).waitFor();
+    // A fresh checkout page straight from the API, to see the page itself wide.
+    const url = await page.evaluate(async () => {
+      const res = await fetch('/api/billing/checkout', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ plan: 'crew' }) });
+      return (await res.json()) as { error?: { code: string } };
+    });
+    expect(url.error?.code).toBe('already_subscribed');
+    await page.context().close();
+  });
+
+  it('shows other roles the plan name only', async () => {
+    const page = await signedInPage(PHONE, 'designer@brassmoth.test');
+    await page.getByText('The studio is on the').waitFor();
+    await page.getByText('Studio', { exact: true }).first().waitFor();
+    expect(await page.getByText('Invoices').count()).toBe(0);
+    await screenshot(page, 'billing-member-phone');
+    await page.context().close();
+  });
+});

@@ -1,0 +1,110 @@
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
+import { startTestServer } from '../support/test-server';
+
+jest.setTimeout(120_000);
+
+let server: Awaited<ReturnType<typeof startTestServer>>;
+let browser: Browser;
+let closeBrowser: () => Promise<void>;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  ({ browser, close: closeBrowser } = await launchBrowser());
+});
+afterAll(async () => {
+  await closeBrowser?.();
+  await server?.stop();
+});
+
+async function newPage(size: { width: number; height: number }): Promise<Page> {
+  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
+  const page = await context.newPage();
+  page.on('pageerror', (err) => {
+    throw err;
+  });
+  return page;
+}
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('treadle-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Home', level: 1 }).waitFor();
+}
+
+describe('a new member through the local inbox', () => {
+  it('owner invites a programmer on a phone; the programmer opens the mail in the local inbox and joins', async () => {
+    const owner = await newPage(PHONE);
+    await signIn(owner, 'owner@brassmoth.test');
+    await owner.getByRole('link', { name: 'Team' }).click();
+    await owner.getByRole('heading', { name: 'Invite someone' }).waitFor();
+    await owner.getByLabel('E-mail to invite').fill('tamsin@brassmoth.test');
+    await owner.getByRole('radio', { name: 'Programmer' }).last().click();
+    await owner.getByRole('button', { name: 'Send invite' }).click();
+    await owner.getByText('Invite sent to tamsin@brassmoth.test', { exact: false }).waitFor();
+    await owner.getByText('tamsin@brassmoth.test', { exact: true }).waitFor();
+    await screenshot(owner, 'team-invite-phone');
+
+    const inbox = await newPage(PHONE);
+    await inbox.goto(server.mail.inboxUrl!);
+    await inbox.getByText('invited you to Brassmoth Interactive on Treadle').click();
+    await screenshot(inbox, 'local-inbox-mail-phone');
+    await inbox.getByRole('link', { name: /\/invite\// }).click();
+
+    await inbox.getByRole('heading', { name: 'Join Brassmoth Interactive' }).waitFor();
+    await inbox.getByLabel('Your name').fill('Tamsin Rook');
+    await inbox.getByLabel('Choose a password').fill('pistons in the rain');
+    await screenshot(inbox, 'accept-invite-phone');
+    await inbox.getByRole('button', { name: 'Join Brassmoth Interactive' }).click();
+    await inbox.getByText('Tamsin Rook · Programmer').waitFor();
+
+    // The link worked once.
+    const link = await inbox.evaluate(() => document.referrer);
+    void link;
+    const mail = server.mail.messages().find((m) => m.to === 'tamsin@brassmoth.test')!;
+    const url = mail.text.match(/http:\/\/\S+\/invite\/\S+/)![0];
+    const again = await newPage(PHONE);
+    await again.goto(url);
+    await again.getByText('This invite link has been used, revoked or replaced.', { exact: false }).waitFor();
+    await again.context().close();
+    await inbox.context().close();
+    await owner.context().close();
+  });
+
+  it('shows the owner the whole team page on a wide screen, and a programmer the read-only one', async () => {
+    const owner = await newPage(WIDE);
+    await signIn(owner, 'owner@brassmoth.test');
+    await owner.goto(`${server.url}/team`);
+    await owner.getByRole('heading', { name: 'Who may do what' }).waitFor();
+    await owner.getByRole('heading', { name: 'Team log' }).waitFor();
+    await screenshot(owner, 'team-owner-wide');
+    await owner.context().close();
+
+    const programmer = await newPage(PHONE);
+    await signIn(programmer, 'programmer@brassmoth.test');
+    await programmer.goto(`${server.url}/team`);
+    await programmer.getByRole('heading', { name: 'Who may do what' }).waitFor();
+    expect(await programmer.getByRole('heading', { name: 'Invite someone' }).count()).toBe(0);
+    expect(await programmer.getByRole('button', { name: /Remove/ }).count()).toBe(0);
+    await screenshot(programmer, 'team-programmer-phone');
+    await programmer.context().close();
+  });
+
+  it('resets a forgotten password through the local inbox', async () => {
+    const page = await newPage(PHONE);
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByText('Forgot your password?').click();
+    await page.getByLabel('E-mail').fill('artlead@brassmoth.test');
+    await page.getByRole('button', { name: 'Send reset link' }).click();
+    await page.getByText('If that address has a Treadle account', { exact: false }).waitFor();
+    await screenshot(page, 'reset-request-phone');
+    const mail = await server.mail.waitFor((m) => m.to === 'artlead@brassmoth.test');
+    await page.goto(mail.text.match(/http:\/\/\S+\/reset-password\/\S+/)![0]);
+    await page.getByLabel('New password').fill('scrapyard sunrise');
+    await page.getByRole('button', { name: 'Set new password' }).click();
+    await page.getByText('Password changed').waitFor();
+    await page.context().close();
+  });
+});
