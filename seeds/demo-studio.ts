@@ -2,6 +2,8 @@ import type { Db } from '../server/db';
 import type { Role } from '../schemas/roles';
 import { hashPassword } from '../server/services/accounts';
 import { seedDemoCharacters } from './demo-characters';
+import { seedDemoCourses } from './demo-courses';
+import { seedDemoProfiles } from './demo-profiles';
 
 /** Demo-only sign-ins for the invented studio; never use these outside a local demo. */
 export const DEMO_PASSWORD = 'treadle-demo';
@@ -17,6 +19,8 @@ export const DEMO_USERS: readonly { email: string; name: string; role: Role }[] 
 export async function seedDemoStudio(db: Db, { now, dataDir }: { now: number; dataDir: string }): Promise<{ teamId: number }> {
   const { teamId, ownerId } = await seedMembers(db, now);
   await seedDemoCharacters(db, teamId, ownerId, dataDir, now);
+  await seedDemoCourses(db, teamId, ownerId, now);
+  await seedDemoProfiles(db, teamId, ownerId, now);
   return { teamId };
 }
 

@@ -2,6 +2,7 @@ import type { Db } from './db';
 import type { Clock } from './clock';
 import type { Mailer } from './services/mail';
 import type Stripe from 'stripe';
+import type { JobRunner } from './jobs/job-runner';
 
 /** The payment service as the app uses it: the stripe SDK (pointed at the local fake), and its webhook signing secret. */
 export interface PaymentsDeps {
@@ -31,4 +32,6 @@ export interface AppDeps {
   /** Where uploaded files are kept (content-addressed); tests pass a temporary folder. */
   dataDir: string;
   payments: PaymentsDeps;
+  /** Runs trials and dial-ins in the background; routes that start jobs answer 503 without it. */
+  jobs?: JobRunner;
 }

@@ -6,6 +6,7 @@ import { openDatabase, migrateToLatest, type Db } from './db';
 import { packageVersion, readConfig, type ServerConfig } from './config';
 import type { Mailer } from './services/mail';
 import { startLocalPayments, type LocalPayments } from './fakes/payments/connect';
+import { createJobRunner } from './jobs';
 
 export interface RunningServer {
   server: Server;
@@ -29,6 +30,9 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   const payments = parts.payments ?? (await startLocalPayments());
+  // Before serving: jobs a crash left running are marked failed, queued ones start again.
+  const jobs = createJobRunner({ db, clock: systemClock });
+  await jobs.start();
   let listenUrl = '';
   const app = createApp({
     db,
@@ -43,6 +47,7 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
     publicUrl: () => config.publicUrl ?? listenUrl,
     localInboxUrl: parts.localInboxUrl,
     payments: payments.deps,
+    jobs,
   });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -61,6 +66,7 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       if (!parts.payments) await payments.fake.stop();
+      await jobs.close();
       await db.destroy();
     },
   };

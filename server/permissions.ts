@@ -4,7 +4,17 @@ import { roleSchema, type Role } from '../schemas/roles';
 import { rolesOf, type Access, type PermissionRow } from '../schemas/permissions';
 import { HttpError, unauthenticated } from './errors';
 import { characterRules } from './routes/characters.rules';
+import { legSetupRules } from './routes/leg-setups.rules';
+import { trialRules } from './routes/trials.rules';
+import { jobRules } from './routes/jobs.rules';
+import { dialInRules } from './routes/dial-ins.rules';
+import { courseRules } from './routes/courses.rules';
+import { suiteRules } from './routes/suites.rules';
 import { billingRules } from './routes/billing.rules';
+import { profileRules } from './routes/profiles.rules';
+import { tokenRules } from './routes/tokens.rules';
+import { compareRules } from './routes/compare.rules';
+import { apiV1Rules } from './routes/api-v1.rules';
 
 const ALL: readonly Role[] = roleSchema.options;
 const OWNER: Role[] = ['owner'];
@@ -46,7 +56,17 @@ export const ROUTE_TABLE: RouteRule[] = [
   { method: 'GET', path: '/invites/:token', action: 'invite.preview', label: 'Open an invite', access: 'public' },
   { method: 'POST', path: '/invites/:token/accept', action: 'invite.accept', label: 'Accept an invite', access: 'public' },
   ...characterRules,
+  ...legSetupRules,
+  ...trialRules,
+  ...jobRules,
+  ...dialInRules,
+  ...courseRules,
+  ...suiteRules,
   ...billingRules,
+  ...profileRules,
+  ...tokenRules,
+  ...compareRules,
+  ...apiV1Rules,
 ];
 
 /** Named role sets, for routes added by other modules. */

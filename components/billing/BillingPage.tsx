@@ -82,7 +82,7 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
       <BillingCautions testMode={billing.testMode} />
 
       <View style={[styles.pair, wide && styles.pairWide]}>
-        <View style={styles.half}>
+        <View style={wide && styles.half}>
           <CurrentPlanCard
             billing={billing}
             freePlan={solo}
@@ -94,7 +94,7 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
             onResume={() => resume.mutate()}
           />
         </View>
-        <View style={styles.half}>
+        <View style={wide && styles.half}>
           <Card>
             <SectionHeading>Usage</SectionHeading>
             {billing.usage.map((u) => (
@@ -110,6 +110,7 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
           <PlanOption
             key={plan.id}
             plan={plan}
+            wide={wide}
             current={plan.id === billing.plan.id}
             actionLabel={actionFor(plan)}
             busy={(checkout.isPending && checkout.variables === plan.id) || (change.isPending && change.variables === plan.id)}

@@ -12,8 +12,9 @@ const LIMIT_ROWS: { kind: LimitKind; label: string }[] = [
 ];
 
 /** One plan with its price and limits, and what choosing it would do from where the studio stands. */
-export function PlanOption({ plan, current, actionLabel, busy, disabled, onChoose, children }: {
+export function PlanOption({ plan, wide, current, actionLabel, busy, disabled, onChoose, children }: {
   plan: Plan;
+  wide: boolean;
   current: boolean;
   actionLabel: string | null;
   busy: boolean;
@@ -22,7 +23,7 @@ export function PlanOption({ plan, current, actionLabel, busy, disabled, onChoos
   children?: React.ReactNode;
 }) {
   return (
-    <View style={[styles.card, current && styles.current]} aria-label={`${plan.name} plan`}>
+    <View style={[styles.card, wide && styles.cardWide, current && styles.current]} aria-label={`${plan.name} plan`}>
       <View style={styles.head}>
         <Text style={styles.name}>{plan.name}</Text>
         {current ? <Text style={styles.badge}>Current</Text> : null}
@@ -47,7 +48,8 @@ export function PlanOption({ plan, current, actionLabel, busy, disabled, onChoos
 }
 
 const styles = StyleSheet.create({
-  card: { flex: 1, minWidth: 240, backgroundColor: colors.card, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.rule, padding: space.lg, gap: space.md },
+  card: { backgroundColor: colors.card, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.rule, padding: space.lg, gap: space.md },
+  cardWide: { flex: 1, minWidth: 0 },
   current: { borderColor: colors.ink, borderWidth: 2 },
   head: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'center' },
   name: { ...type.heading, color: colors.ink },

@@ -1,5 +1,5 @@
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { Link } from 'expo-router';
+import { useRouter } from 'expo-router';
 import type { Character } from '../../schemas/characters';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
@@ -21,11 +21,12 @@ function Figure({ label, value }: { label: string; value: string }) {
 }
 
 function CharacterCards({ characters }: { characters: Character[] }) {
+  const router = useRouter();
   return (
     <View style={styles.cards} role="list" aria-label="Characters">
       {characters.map((c) => (
-        <Link key={c.id} href={`/characters/${c.id}`} asChild>
-          <Pressable role="listitem" accessibilityLabel={c.name} style={({ pressed }) => [styles.card, pressed && styles.pressed]}>
+        <View key={c.id} role="listitem" aria-label={c.name}>
+          <Pressable role="link" accessibilityLabel={`Open ${c.name}`} onPress={() => router.push(`/characters/${c.id}`)} style={({ pressed }) => [styles.card, pressed && styles.pressed]}>
             <Text style={styles.cardName}>{c.name}</Text>
             <View style={styles.figures}>
               <Figure label="legs" value={String(c.legCount)} />
@@ -36,7 +37,7 @@ function CharacterCards({ characters }: { characters: Character[] }) {
               {c.uploadedBy.name} · {formatDay(c.createdAt)}
             </Text>
           </Pressable>
-        </Link>
+        </View>
       ))}
     </View>
   );
@@ -52,6 +53,7 @@ const COLUMNS = [
 ] as const;
 
 function CharacterTable({ characters }: { characters: Character[] }) {
+  const router = useRouter();
   const cells = (c: Character): Record<(typeof COLUMNS)[number]['key'], string> => ({
     name: c.name,
     legs: String(c.legCount),
@@ -72,15 +74,13 @@ function CharacterTable({ characters }: { characters: Character[] }) {
       {characters.map((c) => {
         const v = cells(c);
         return (
-          <Link key={c.id} href={`/characters/${c.id}`} asChild>
-            <Pressable role="row" accessibilityLabel={c.name} style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [styles.row, (pressed || hovered) && styles.pressed]}>
+          <Pressable key={c.id} role="row" accessibilityLabel={c.name} onPress={() => router.push(`/characters/${c.id}`)} style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [styles.row, (pressed || hovered) && styles.pressed]}>
               {COLUMNS.map((col) => (
                 <Text key={col.key} role="cell" style={[col.numeric ? styles.figureCell : col.key === 'name' ? styles.nameCell : styles.cell, { flex: col.flex }, col.numeric && styles.numeric]}>
                   {v[col.key]}
                 </Text>
               ))}
-            </Pressable>
-          </Link>
+          </Pressable>
         );
       })}
     </View>

@@ -154,11 +154,11 @@ export function generateCourse(input: CourseSpecInput): Heightfield {
     starts[i + 1] = starts[i] + segmentLength(segs[i]);
     bases[i + 1] = bases[i] + segmentRise(segs[i]);
     const s = segs[i];
-    const lump = s.kind === 'rubble' ? s.amplitude : 0;
+    const lump = s.kind === 'rubble' ? s.amplitude : s.kind === 'trench' ? s.depth : 0;
     const peak = Math.max(Math.abs(bases[i]), Math.abs(bases[i + 1])) + lump;
     if (peak > COURSE_LIMITS.maxAbsHeight) {
       throw new CourseError(
-        `segment ${i} (${s.kind}) leaves the height bound ±${COURSE_LIMITS.maxAbsHeight} m (reaches ${bases[i + 1].toFixed(3)} m)`,
+        `segment ${i} (${s.kind}) leaves the height bound ±${COURSE_LIMITS.maxAbsHeight} m (reaches ${peak.toFixed(3)} m from the start height)`,
       );
     }
   }

@@ -49,7 +49,11 @@ export function createHeightfield(width: number, length: number, cellSize: numbe
   }
   const cols = Math.ceil(width / cellSize - 1e-9) + 1;
   const rows = Math.ceil(length / cellSize - 1e-9) + 1;
-  return createHeightfieldGrid(cols, rows, cellSize, height);
+  try {
+    return createHeightfieldGrid(cols, rows, cellSize, height);
+  } catch (err) {
+    throw new CourseError(`a ${width} × ${length} m course with ${cellSize} m cells: ${(err as Error).message}`);
+  }
 }
 
 export function createHeightfieldGrid(cols: number, rows: number, cellSize: number, height = 0): Heightfield {

@@ -30,6 +30,14 @@ export function heightAt(hf: Heightfield, x: number, z: number): number {
 }
 
 /**
+ * Ground height under each of `count` points stored x, y, z in `points`,
+ * into out: one call for many points, so no doubles are boxed per point.
+ */
+export function heightsUnder(hf: Heightfield, points: ArrayLike<number>, count: number, out: Float64Array): void {
+  for (let i = 0; i < count; i++) out[i] = heightAt(hf, points[3 * i], points[3 * i + 2]);
+}
+
+/**
  * Unit ground normal at (x, z) from the gradient of the bilinear surface,
  * written into out[offset..offset+2]; returns out.
  */

@@ -5,11 +5,13 @@
 import { quat, vec3 } from 'gl-matrix';
 import * as sample from '../course/sample';
 import * as ikWorkspace from '../ik/workspace';
+import * as bodyFilter from './body-filter';
 import type { Trial } from './trial-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { heightAt } = sample;
 const { setRootTransform } = ikWorkspace;
+const { stepCritical } = bodyFilter;
 const { setAxisAngle: quatSetAxisAngle, multiply: quatMultiply } = quat;
 const { transformQuat } = vec3;
 
@@ -70,6 +72,14 @@ export function computeBodyTargets(t: Trial): void {
   bodyTargets[0] = ground + t.rig.hipHeight + b.heightOffset - crouch;
   bodyTargets[1] = pitchRaw * b.followPitch;
   bodyTargets[2] = rollRaw * b.followRoll;
+}
+
+/** One filter step of the body height, pitch and roll toward bodyTargets. */
+export function followBodyTargets(t: Trial): void {
+  stepCritical(t.height, bodyTargets[0], t.filter);
+  stepCritical(t.pitch, bodyTargets[1], t.filter);
+  stepCritical(t.roll, bodyTargets[2], t.filter);
+  t.bodyPos[1] = t.height.value;
 }
 
 export function updateBodyRotation(t: Trial): void {

@@ -11,6 +11,12 @@ export function legPhase(time: number, cycleTime: number, phaseOffset: number): 
   return wrap01(time / cycleTime - phaseOffset);
 }
 
+/** Phases of every leg at `time` into out (one call per frame: no per-leg boxing of doubles). */
+export function writeLegPhases(time: number, cycleTime: number, phaseOffsets: ArrayLike<number>, out: Float64Array): void {
+  const cycles = time / cycleTime;
+  for (let i = 0; i < out.length; i++) out[i] = wrap01(cycles - phaseOffsets[i]);
+}
+
 export function inStance(phase: number, dutyFactor: number): boolean {
   return phase < dutyFactor;
 }

@@ -7,38 +7,36 @@ import { trimSeries } from './series';
 import type { Trial, TrialResult } from './trial-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
-const { heightAt } = sample;
+const { heightsUnder } = sample;
 
 /** Feed the detector and the windows, accumulate tracking, record the series. */
 export function observe(t: Trial, time: number, counted: boolean): void {
-  const det = t.detector;
-  det.frame(time);
   let frameIterations = 0;
   for (let i = 0; i < t.legs; i++) {
     const o = 3 * i;
-    const ws = t.solvers[i];
-    const fx = ws.foot[0];
-    const fy = ws.foot[1];
-    const fz = ws.foot[2];
+    const foot = t.solvers[i].foot;
+    const fx = foot[0];
+    const fy = foot[1];
+    const fz = foot[2];
     t.foot[o] = fx;
     t.foot[o + 1] = fy;
     t.foot[o + 2] = fz;
-    const groundY = heightAt(t.course, fx, fz);
-    det.leg(i, t.stance[i] === 1, fx, fy, fz, t.target[o], t.target[o + 1], t.target[o + 2], groundY, t.jointSpeed[i]);
     if (counted) {
       const dx = t.target[o] - fx;
       const dy = t.target[o + 1] - fy;
       const dz = t.target[o + 2] - fz;
       const d2 = dx * dx + dy * dy + dz * dz;
-      t.trackSq += d2;
-      t.trackCount++;
+      t.tracking[0] += d2;
       const d = Math.sqrt(d2);
-      if (d > t.trackMax) t.trackMax = d;
+      if (d > t.tracking[1]) t.tracking[1] = d;
+      t.trackCount++;
       frameIterations += t.iterations[i];
     }
     const w = t.touchdownWindows[i];
     if (w.open && !w.add(time, fy)) t.touchdownSummary.fold(w);
   }
+  heightsUnder(t.course, t.foot, t.legs, t.ground);
+  t.detector.observe(time, t.stance, t.foot, t.target, t.ground, t.jointSpeed);
   if (counted && frameIterations > t.frameIterationsMax) t.frameIterationsMax = frameIterations;
   const bw = t.bodyWindow;
   if (bw.open && !bw.add(time, t.height.value)) t.bodySummary.fold(bw);
@@ -84,7 +82,7 @@ export function finishTrial(t: Trial): TrialResult {
     per100[kind] = (count * 100) / Math.max(steps, 1);
     stumbles[kind] = { count, per100Steps: per100[kind] };
   });
-  const trackingRms = t.trackCount ? Math.sqrt(t.trackSq / t.trackCount) : 0;
+  const trackingRms = t.trackCount ? Math.sqrt(t.tracking[0] / t.trackCount) : 0;
   const touchdown = t.touchdownSummary.summary();
   const frames = t.frame;
   const metrics: TrialMetrics = {
@@ -93,7 +91,7 @@ export function finishTrial(t: Trial): TrialResult {
     steps,
     stumbles,
     events: det.events(),
-    tracking: { rms: trackingRms, max: t.trackMax },
+    tracking: { rms: trackingRms, max: t.tracking[1] },
     touchdown,
     bodyStepUp: t.bodySummary.summary(),
     solver: {
@@ -101,8 +99,8 @@ export function finishTrial(t: Trial): TrialResult {
       iterationsPerSolve: t.solves ? t.iterationSum / t.solves : 0,
       iterationsPerFrameMean: frames ? t.iterationSum / frames : 0,
       iterationsPerFrameMax: t.frameIterationsMax,
-      errorMean: t.solves ? t.errorSum / t.solves : 0,
-      errorMax: t.errorMax,
+      errorMean: t.solves ? t.solverError[0] / t.solves : 0,
+      errorMax: t.solverError[1],
       unconverged: t.unconverged,
     },
     footingScore: footingScore({ per100Steps: per100, trackingRms, touchdownOvershootPercent: touchdown.overshootMeanPercent }),

@@ -79,14 +79,16 @@ export interface Trial {
   readonly touchdownSummary: ResponseSummary;
   readonly bodyWindow: ResponseWindow;
   readonly bodySummary: ResponseSummary;
-  trackSq: number;
-  trackMax: number;
+  /** Ground height under each sole this frame. */
+  readonly ground: Float64Array;
+  /** Sum of squared tracking errors and the largest error (a typed array: no boxed doubles per frame). */
+  readonly tracking: Float64Array;
   trackCount: number;
   solves: number;
   iterationSum: number;
   frameIterationsMax: number;
-  errorSum: number;
-  errorMax: number;
+  /** Sum and largest of the solvers' final position errors. */
+  readonly solverError: Float64Array;
   unconverged: number;
 
   readonly series: TrialSeries;

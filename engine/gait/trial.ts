@@ -5,10 +5,11 @@
  * touchdown target, at touchdown lock the foot where it landed (its target);
  * move the body along +Z at the gait speed with its height, pitch and roll
  * following the planted feet through a critically damped filter; solve every
- * leg toward its target with the chosen solver, warm-started from the last
- * frame; feed the stumble detector and the response windows; record the
- * series at the chosen rate. Deterministic: no clocks, no randomness, and
- * nothing is allocated per frame.
+ * leg toward its target with its chosen solver, warm-started from the last
+ * frame's pose (by default carried on at part of its last rate of change);
+ * feed the stumble detector and the response windows; record the series at
+ * the chosen rate. Deterministic: no clocks, no randomness; no arrays or
+ * objects are allocated per frame.
  *
  * `createTrial` + `stepTrial` let a live preview advance frame by frame;
  * `runTrial` runs the whole walk and returns metrics and series.
@@ -22,7 +23,7 @@ import type { LegChain } from '../rig/types';
 import { ResponseSummary, ResponseWindow } from '../metrics/response-window';
 import { StumbleDetector } from '../metrics/stumble-detector';
 import * as bodyFilter from './body-filter';
-import { bodyTargets, computeBodyTargets, placeHips, updateBodyRotation } from './body-pose';
+import { bodyTargets, computeBodyTargets, followBodyTargets, placeHips, updateBodyRotation } from './body-pose';
 import { bodyZAt, plantAt, startSwing, touchdownPoint, updateTargets } from './foot-planner';
 import { resolveGait } from './gait-params';
 import { checkLegSetupForRig, legSolverSettings, parseLegSetup, solverOptionsOf, type LegSetup } from './leg-setup';
@@ -52,9 +53,9 @@ export * from './trial-options';
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { solve } = ikSolve;
 const { createWorkspace, DOF_BALL, DOF_SLIDE } = ikWorkspace;
-const { createDampedState, createCriticalFilter, stepCritical } = bodyFilter;
+const { createDampedState, createCriticalFilter } = bodyFilter;
 const { createSwingPlan, descentStart } = swingPath;
-const { legPhase } = timing;
+const { legPhase, writeLegPhases } = timing;
 
 const landing = new Float64Array(3);
 
@@ -149,14 +150,13 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     touchdownSummary: new ResponseSummary(TOUCHDOWN_MIN_DESCENT),
     bodyWindow: new ResponseWindow(Math.ceil(BODY_WINDOW_SECONDS / dt) + 1),
     bodySummary: new ResponseSummary(BODY_STEP_UP_MIN),
-    trackSq: 0,
-    trackMax: 0,
+    ground: new Float64Array(L),
+    tracking: new Float64Array(2),
     trackCount: 0,
     solves: 0,
     iterationSum: 0,
     frameIterationsMax: 0,
-    errorSum: 0,
-    errorMax: 0,
+    solverError: new Float64Array(2),
     unconverged: 0,
     series: createSeries(L, capacity, recordRate),
   };
@@ -205,9 +205,9 @@ export function stepTrial(t: Trial): boolean {
 
   // Gait clock: touchdowns lock the feet, liftoffs plan the swings.
   let supportChanged = false;
+  writeLegPhases(time, T, t.gait.phaseOffsets, t.phase);
   for (let i = 0; i < t.legs; i++) {
-    const phase = legPhase(time, T, t.gait.phaseOffsets[i]);
-    t.phase[i] = phase;
+    const phase = t.phase[i];
     const nowStance = phase < beta ? 1 : 0;
     if (nowStance === t.stance[i]) continue;
     t.stance[i] = nowStance;
@@ -232,10 +232,7 @@ export function stepTrial(t: Trial): boolean {
   t.heightTarget = bodyTargets[0];
   // Smaller target changes inside a window move where the response should settle.
   if (t.bodyWindow.open) t.bodyWindow.final = bodyTargets[0];
-  stepCritical(t.height, bodyTargets[0], t.filter);
-  stepCritical(t.pitch, bodyTargets[1], t.filter);
-  stepCritical(t.roll, bodyTargets[2], t.filter);
-  t.bodyPos[1] = t.height.value;
+  followBodyTargets(t);
   updateBodyRotation(t);
   placeHips(t);
   updateTargets(t);
@@ -276,8 +273,8 @@ export function stepTrial(t: Trial): boolean {
     t.error[i] = r.positionError;
     t.solves++;
     t.iterationSum += r.iterations;
-    t.errorSum += r.positionError;
-    if (r.positionError > t.errorMax) t.errorMax = r.positionError;
+    t.solverError[0] += r.positionError;
+    if (r.positionError > t.solverError[1]) t.solverError[1] = r.positionError;
     if (!r.converged) t.unconverged++;
     let fastest = 0;
     for (let d = 0; d < ws.nDof; d++) {

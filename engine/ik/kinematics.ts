@@ -460,19 +460,19 @@ export function premultiplyQuat(d: ArrayLike<number>, q: Float64Array, o: number
   const by = q[o + 1];
   const bz = q[o + 2];
   const bw = q[o + 3];
-  let x = aw * bx + ax * bw + ay * bz - az * by;
-  let y = aw * by - ax * bz + ay * bw + az * bx;
-  let z = aw * bz + ax * by - ay * bx + az * bw;
-  let w = aw * bw - ax * bx - ay * by - az * bz;
-  const inv = 1 / Math.sqrt(x * x + y * y + z * z + w * w);
-  x *= inv;
-  y *= inv;
-  z *= inv;
-  w *= inv;
-  q[o] = x;
-  q[o + 1] = y;
-  q[o + 2] = z;
-  q[o + 3] = w;
+  const x = aw * bx + ax * bw + ay * bz - az * by;
+  const y = aw * by - ax * bz + ay * bw + az * bx;
+  const z = aw * bz + ax * by - ay * bx + az * bw;
+  const w = aw * bw - ax * bx - ay * by - az * bz;
+  // Both factors are unit, so |q|² = 1 + ε with ε at rounding level: the
+  // first-order renormalisation 1/√(1+ε) ≈ 1 − ε/2 is exact to O(ε²) without
+  // a square root or a division; fall back to the exact one if ever far off.
+  const n2 = x * x + y * y + z * z + w * w;
+  const k = n2 > 0.999 && n2 < 1.001 ? 1.5 - 0.5 * n2 : 1 / Math.sqrt(n2);
+  q[o] = x * k;
+  q[o + 1] = y * k;
+  q[o + 2] = z * k;
+  q[o + 3] = w * k;
 }
 
 /** World position of joint j (after forwardKinematics). */

@@ -285,8 +285,9 @@ function limitStepSize(ws: IKWorkspace): void {
   for (let i = 0; i < n; i++) {
     const kind = ws.dKind[i];
     if (kind === DOF_BALL) {
-      const a = Math.sqrt(dq[i] * dq[i] + dq[i + 1] * dq[i + 1] + dq[i + 2] * dq[i + 2]);
-      if (a * k > o.maxStepAngle) k = o.maxStepAngle / a;
+      const a2 = dq[i] * dq[i] + dq[i + 1] * dq[i + 1] + dq[i + 2] * dq[i + 2];
+      const ms = o.maxStepAngle;
+      if (a2 * k * k > ms * ms) k = ms / Math.sqrt(a2);
       i += 2;
     } else {
       const a = Math.abs(dq[i]);
@@ -344,11 +345,26 @@ function applyStep(ws: IKWorkspace): number {
   return hits;
 }
 
+/** |e − J·d|² (the linearised residual of a step d). */
+function predictedResidual2(ws: IKWorkspace, m: number, e: Float64Array, d: Float64Array): number {
+  const J = ws.J;
+  const n = ws.nDof;
+  let s = 0;
+  for (let r = 0; r < m; r++) {
+    let v = e[r];
+    for (let i = 0; i < n; i++) v -= J[6 * i + r] * d[i];
+    s += v * v;
+  }
+  return s;
+}
+
 /**
  * One iteration of a Jacobian method (FK current, ws.e holds the error).
  * Joint limits: a DOF whose step would leave its range is held at the limit
  * and the step re-solved for the others on the remaining error, one DOF at a
- * time (the one whose limit the step reaches first), until the step is feasible.
+ * time (the one whose limit the step reaches first), until the step is
+ * feasible; the re-solved step is kept where its linearised residual beats the
+ * plainly clamped step's.
  */
 function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   const n = ws.nDof;
@@ -356,14 +372,22 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   jacobian(ws, m === 6 ? 6 : 3);
   // Target clamp (Buss 2004; Buss & Kim 2005).
   const e = ws.e;
-  const el = Math.sqrt(e[0] * e[0] + e[1] * e[1] + e[2] * e[2]);
-  if (el > ws.clampDistance) {
-    const k = ws.clampDistance / el;
+  const el2 = e[0] * e[0] + e[1] * e[1] + e[2] * e[2];
+  const cd = ws.clampDistance;
+  if (el2 > cd * cd) {
+    const k = cd / Math.sqrt(el2);
     e[0] *= k;
     e[1] *= k;
     e[2] *= k;
   }
+  // The bias yields to the limits: each step of this solve that hits a limit
+  // halves it (else the bias can keep pushing a joint into its limit while the
+  // clamp keeps pulling the foot off the target).
   const hasBias = nullSpaceBias(ws, ws.weight);
+  if (hasBias) {
+    const g = ws.scalars[7];
+    if (g !== 1) for (let i = 0; i < n; i++) ws.z[i] *= g;
+  }
   biasedStep(ws, code, m, e, hasBias, ws.weight, ws.sqrtWeight);
   limitStepSize(ws);
   let hits = 0;
@@ -372,6 +396,17 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
     const dql = ws.dqLocked;
     const J = ws.J;
     const eRem = ws.eRes; // remaining error (biasedStep uses ws.e2 as its own scratch)
+    // Candidate 1: the plain clamped step, and its predicted (linearised) residual.
+    const plain = ws.tmpN2;
+    for (let i = 0; i < n; i++) {
+      const d = ws.dq[i];
+      if (ws.dKind[i] === DOF_BALL) plain[i] = d;
+      else {
+        const v = ws.pose[i] + d;
+        plain[i] = (v < ws.lo[i] ? ws.lo[i] : v > ws.hi[i] ? ws.hi[i] : v) - ws.pose[i];
+      }
+    }
+    const resPlain = predictedResidual2(ws, m, e, plain);
     const wEff = ws.wEff;
     const swEff = ws.swEff;
     for (let i = 0; i < n; i++) {
@@ -421,8 +456,11 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
       if (!violates(ws)) break;
     }
     locked.fill(0); // `violates` reads the mask: leave it clear for the next iteration
+    // Candidate 2 (re-solved without the saturated DOFs) only where it reaches the target better.
+    if (resPlain < predictedResidual2(ws, m, e, ws.dq)) for (let i = 0; i < n; i++) ws.dq[i] = plain[i];
   }
   hits += applyStep(ws);
+  if (hasBias && hits > 0) ws.scalars[7] *= 0.5;
   return hits;
 }
 
@@ -578,6 +616,7 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
   if (ws0 === 'rest') resetPose(ws);
   else if (ws0 !== 'current' && ws0 != null) setPose(ws, ws0 as ArrayLike<number>);
   const maxIt = o.maxIterations;
+  ws.scalars[7] = 1; // null-space bias scale (see jacobianIteration)
   const hist = o.recordErrors ? ws.errorHistory : null;
   const wo = o.orientationWeight;
   forwardKinematics(ws);

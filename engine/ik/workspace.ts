@@ -21,7 +21,7 @@ export const JOINT_SLIDER = 3;
 export const DEFAULT_OPTIONS: SolverOptions = {
   method: 'dls',
   maxIterations: 32,
-  tolerance: 1e-4,
+  tolerance: 5e-4,
   orientationTolerance: 1e-3,
   maxStepAngle: 0.6,
   maxStepLength: 0.1,
@@ -577,16 +577,18 @@ export function clampBall(ws: IKWorkspace, b: number): boolean {
     w = -w;
     t = -t;
   }
-  const nt = Math.sqrt(t * t + w * w); // = swing's w = cos(swing/2)
+  const nt2 = t * t + w * w; // = (swing's w)² = cos²(swing/2)
+  const ch = ws.bCosHalfSwing[b];
   const tmin = ws.bTwistMin[b];
   const tmax = ws.bTwistMax[b];
-  const swingOk = nt >= ws.bCosHalfSwing[b];
+  const swingOk = ch <= 0 || nt2 >= ch * ch;
   // twist/2 = atan2(t, w) ∈ [−π/2, π/2] (w ≥ 0). In range without an atan2:
   // twist ≤ tmax ⟺ sin(twist/2 − tmax/2) ≤ 0 ⟺ t·cos(tmax/2) − w·sin(tmax/2) ≤ 0.
   const twistOk =
     t * ws.bCosHalfTwistMax[b] - w * ws.bSinHalfTwistMax[b] <= 0 &&
     t * ws.bCosHalfTwistMin[b] - w * ws.bSinHalfTwistMin[b] >= 0;
   if (swingOk && twistOk) return false;
+  const nt = Math.sqrt(nt2);
   const twist = nt > 1e-12 ? 2 * Math.atan2(t, w) : 0;
   // twist quaternion tw = (a·t, w)/nt; swing = q ⊗ conj(tw)
   let tx: number, ty: number, tz: number, tw: number;

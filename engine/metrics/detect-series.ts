@@ -17,26 +17,22 @@ export function detectStumbles(
 ): StumbleDetector {
   const L = series.legs;
   const det = new StumbleDetector(L, thresholds);
+  const contact = new Uint8Array(L);
+  const foot = new Float64Array(3 * L);
+  const target = new Float64Array(3 * L);
+  const ground = new Float64Array(L);
+  const speed = new Float64Array(L);
   for (let k = 0; k < series.length; k++) {
-    det.frame(k / series.rate);
     for (let i = 0; i < L; i++) {
-      const a = (k * L + i) * 3;
-      const fx = series.foot[a];
-      const fy = series.foot[a + 1];
-      const fz = series.foot[a + 2];
-      det.leg(
-        i,
-        series.contact[k * L + i] === 1,
-        fx,
-        fy,
-        fz,
-        series.target[a],
-        series.target[a + 1],
-        series.target[a + 2],
-        heightAt(course, fx, fz),
-        series.jointSpeed[k * L + i],
-      );
+      for (let c = 0; c < 3; c++) {
+        foot[3 * i + c] = series.foot[(k * L + i) * 3 + c];
+        target[3 * i + c] = series.target[(k * L + i) * 3 + c];
+      }
+      contact[i] = series.contact[k * L + i];
+      ground[i] = heightAt(course, foot[3 * i], foot[3 * i + 2]);
+      speed[i] = series.jointSpeed[k * L + i];
     }
+    det.observe(k / series.rate, contact, foot, target, ground, speed);
   }
   return det;
 }

@@ -1,8 +1,8 @@
 /**
  * Stumble detection. One detector, fed frame by frame: the trial loop feeds
  * it every simulated frame, and `detectStumbles` feeds it a recorded series.
- * Per leg and frame it needs the contact flag, the foot and its target, the
- * ground height under the foot and the leg's fastest joint speed.
+ * Per leg and frame it needs the contact flag, the sole and its target, the
+ * ground height under the sole and the leg's fastest joint speed.
  *
  *  - sink: in stance, sole below the ground by more than sinkDepth for
  *    sinkFrames frames or more; one event per run, size = deepest.
@@ -61,11 +61,6 @@ export class StumbleDetector {
     this.open = new Int32Array(legs * KINDS).fill(-1);
   }
 
-  /** Start a frame at `time` seconds; then call `leg` once per leg. */
-  frame(time: number): void {
-    this.time = time;
-  }
-
   private push(kind: number, leg: number, time: number, size: number): number {
     if (this.eventCount === this.evKind.length) {
       const n = this.eventCount * 2;
@@ -100,72 +95,80 @@ export class StumbleDetector {
     this.open[leg * KINDS + kind] = -1;
   }
 
-  leg(
-    leg: number,
-    inContact: boolean,
-    footX: number,
-    footY: number,
-    footZ: number,
-    targetX: number,
-    targetY: number,
-    targetZ: number,
-    groundY: number,
-    jointSpeedDeg: number,
+  /**
+   * One frame for every leg: contact (1 = stance), sole positions and targets
+   * (3 per leg), ground height under each sole, fastest joint speed (°/s).
+   * Arrays rather than numbers as arguments: doubles passed to a call that is
+   * not inlined get boxed, which would allocate every frame.
+   */
+  observe(
+    time: number,
+    contact: ArrayLike<number>,
+    foot: ArrayLike<number>,
+    target: ArrayLike<number>,
+    ground: ArrayLike<number>,
+    jointSpeed: ArrayLike<number>,
   ): void {
+    this.time = time;
     const th = this.thresholds;
-    const c = inContact ? 1 : 0;
-    const first = this.started[leg] === 0;
-    const touchdown = !first && c === 1 && this.contact[leg] === 0;
-    const liftoff = !first && c === 0 && this.contact[leg] === 1;
-    this.started[leg] = 1;
-    this.contact[leg] = c;
+    for (let leg = 0; leg < this.legs; leg++) {
+      const o = 3 * leg;
+      const footX = foot[o];
+      const footY = foot[o + 1];
+      const footZ = foot[o + 2];
+      const c = contact[leg] ? 1 : 0;
+      const first = this.started[leg] === 0;
+      const touchdown = !first && c === 1 && this.contact[leg] === 0;
+      const liftoff = !first && c === 0 && this.contact[leg] === 1;
+      this.started[leg] = 1;
+      this.contact[leg] = c;
 
-    if (touchdown || (first && c === 1)) {
-      this.anchorX[leg] = footX;
-      this.anchorZ[leg] = footZ;
-      this.close(SKID, leg);
-    }
-    if (touchdown) {
-      this.steps++;
-      const dx = targetX - footX;
-      const dy = targetY - footY;
-      const dz = targetZ - footZ;
-      const residual = Math.sqrt(dx * dx + dy * dy + dz * dz);
-      if (residual > th.reachMissResidual) this.push(REACH_MISS, leg, this.time, residual);
-    }
-    if (liftoff) {
-      this.close(SINK, leg);
-      this.sinkRun[leg] = 0;
-      this.close(SKID, leg);
-    }
-    if (touchdown) this.close(SCUFF, leg);
-
-    const depth = groundY - footY;
-    if (c === 1) {
-      if (depth > th.sinkDepth) {
-        if (this.sinkRun[leg] === 0) {
-          this.sinkStart[leg] = this.time;
-          this.sinkMax[leg] = depth;
-        } else if (depth > this.sinkMax[leg]) this.sinkMax[leg] = depth;
-        this.sinkRun[leg]++;
-        // The event is dated to the first frame of the run.
-        if (this.sinkRun[leg] === th.sinkFrames) this.open[leg * KINDS + SINK] = this.push(SINK, leg, this.sinkStart[leg], this.sinkMax[leg]);
-        else if (this.sinkRun[leg] > th.sinkFrames) this.runEvent(SINK, leg, depth);
-      } else {
-        this.sinkRun[leg] = 0;
-        this.close(SINK, leg);
+      if (touchdown || (first && c === 1)) {
+        this.anchorX[leg] = footX;
+        this.anchorZ[leg] = footZ;
+        this.close(SKID, leg);
       }
-      const sx = footX - this.anchorX[leg];
-      const sz = footZ - this.anchorZ[leg];
-      const slide = Math.sqrt(sx * sx + sz * sz);
-      if (slide > th.skidDistance) this.runEvent(SKID, leg, slide);
-    } else {
-      if (depth > th.scuffDepth) this.runEvent(SCUFF, leg, depth);
-      else this.close(SCUFF, leg);
-    }
+      if (touchdown) {
+        this.steps++;
+        const dx = target[o] - footX;
+        const dy = target[o + 1] - footY;
+        const dz = target[o + 2] - footZ;
+        const residual = Math.sqrt(dx * dx + dy * dy + dz * dz);
+        if (residual > th.reachMissResidual) this.push(REACH_MISS, leg, time, residual);
+        this.close(SCUFF, leg);
+      }
+      if (liftoff) {
+        this.close(SINK, leg);
+        this.sinkRun[leg] = 0;
+        this.close(SKID, leg);
+      }
 
-    if (jointSpeedDeg > th.snapSpeed) this.runEvent(SNAP, leg, jointSpeedDeg);
-    else this.close(SNAP, leg);
+      const depth = ground[leg] - footY;
+      if (c === 1) {
+        if (depth > th.sinkDepth) {
+          if (this.sinkRun[leg] === 0) {
+            this.sinkStart[leg] = time;
+            this.sinkMax[leg] = depth;
+          } else if (depth > this.sinkMax[leg]) this.sinkMax[leg] = depth;
+          this.sinkRun[leg]++;
+          // The event is dated to the first frame of the run.
+          if (this.sinkRun[leg] === th.sinkFrames) this.open[leg * KINDS + SINK] = this.push(SINK, leg, this.sinkStart[leg], this.sinkMax[leg]);
+          else if (this.sinkRun[leg] > th.sinkFrames) this.runEvent(SINK, leg, depth);
+        } else {
+          this.sinkRun[leg] = 0;
+          this.close(SINK, leg);
+        }
+        const sx = footX - this.anchorX[leg];
+        const sz = footZ - this.anchorZ[leg];
+        const slide = Math.sqrt(sx * sx + sz * sz);
+        if (slide > th.skidDistance) this.runEvent(SKID, leg, slide);
+      } else if (depth > th.scuffDepth) this.runEvent(SCUFF, leg, depth);
+      else this.close(SCUFF, leg);
+
+      const speed = jointSpeed[leg];
+      if (speed > th.snapSpeed) this.runEvent(SNAP, leg, speed);
+      else this.close(SNAP, leg);
+    }
   }
 
   events(): StumbleEvent[] {

@@ -95,7 +95,7 @@ function appendBox(g: Geometry, part: PartSpec, bone: number): void {
 
 /** The design as a glTF document: one skinned mesh (a primitive per finish) and its skeleton. */
 export function buildCharacterDocument(design: RigDesign): Document {
-  const doc = new (gltfCore().Document)();
+  const doc: Document = new (gltfCore().Document)();
   doc.getRoot().getAsset().generator = 'Treadle demo rig builder';
   const buffer = doc.createBuffer();
   const index = new Map(design.bones.map((b, i) => [b.name, i]));

@@ -1,10 +1,10 @@
 /**
- * @gltf-transform/core and /extensions, loaded through Node's own require.
+ * The glTF reader and writer the importer, the seed and the fixtures share: @gltf-transform's NodeIO with
+ * every Khronos (KHR_*) extension of @gltf-transform/extensions registered.
  *
- * Their dependency property-graph ships only as an ES module (.mjs). Node ≥ 20.19 requires it natively, but
- * jest's CommonJS module runtime does not transform node_modules/*.mjs (see transformIgnorePatterns in
- * jest.config.js), so a plain import would break every test file that builds the app. Going through
- * createRequire sidesteps jest's loader; once jest transforms property-graph, these become plain imports.
+ * Loaded through a require made by createRequire rather than a static import: under jest, the static import
+ * of the babel-transformed package fails at run time ("reading 'get'" inside property-graph), while this path
+ * works under jest, tsx and plain Node alike.
  */
 import { createRequire } from 'node:module';
 
@@ -12,7 +12,6 @@ type Core = typeof import('@gltf-transform/core');
 type Extensions = typeof import('@gltf-transform/extensions');
 
 const nodeRequire = createRequire(__filename);
-
 let core: Core | null = null;
 let extensions: Extensions | null = null;
 
@@ -21,20 +20,24 @@ export function gltfCore(): Core {
   return core;
 }
 
+function gltfExtensions(): Extensions {
+  extensions ??= nodeRequire('@gltf-transform/extensions') as Extensions;
+  return extensions;
+}
+
 /**
- * NodeIO for bytes in memory. NodeIO's constructor loads node:fs and node:path by dynamic import(), for
- * reading files by path, which jest's runtime refuses without --experimental-vm-modules; the importer
- * never reads by path, so that step is skipped.
+ * NodeIO for bytes in memory, every KHR extension registered. NodeIO's constructor loads node:fs and node:path
+ * by dynamic import(), for reading by path, which jest's runtime refuses without --experimental-vm-modules;
+ * the importer never reads by path, so that step is skipped.
  */
 export function memoryNodeIO(): InstanceType<Core['NodeIO']> {
   const { NodeIO } = gltfCore();
   class MemoryNodeIO extends NodeIO {
     override async init(): Promise<void> {}
   }
-  return new MemoryNodeIO();
+  return new MemoryNodeIO().registerExtensions(gltfExtensions().KHRONOS_EXTENSIONS);
 }
 
-export function gltfExtensions(): Extensions {
-  extensions ??= nodeRequire('@gltf-transform/extensions') as Extensions;
-  return extensions;
+export function supportedExtensions(): ReadonlySet<string> {
+  return new Set(gltfExtensions().KHRONOS_EXTENSIONS.map((e) => e.EXTENSION_NAME));
 }

@@ -2,7 +2,7 @@
  * The glTF import: from uploaded files to a skeleton with detected legs and a report, or a refusal
  * that names the problem. Nothing here touches the database or the disk; gltf-import-store.ts does.
  */
-import type { Document, NodeIO } from '@gltf-transform/core';
+import type { Document } from '@gltf-transform/core';
 import type { ImportNote, ImportReport } from '../../schemas/characters';
 import type { Skeleton } from '../../engine/rig/types';
 import { detectLegs, type LegDetection } from '../../engine/rig/detect-legs';
@@ -13,7 +13,7 @@ import { checkStructure } from './gltf-import-structure';
 import { validateContainer } from './gltf-import-validator';
 import { importSkeleton } from './gltf-import-skeleton';
 import { refuse } from './gltf-import-refusals';
-import { gltfExtensions, memoryNodeIO } from './gltf-import-library';
+import { memoryNodeIO, supportedExtensions } from './gltf-import-library';
 
 export type { UploadedFile } from './gltf-import-container';
 
@@ -32,15 +32,10 @@ export interface ImportedCharacter {
   report: ImportReport;
 }
 
-/** A reader with every Khronos (KHR_*) extension of @gltf-transform/extensions registered. */
-export function newIO(): NodeIO {
-  return memoryNodeIO().registerExtensions(gltfExtensions().KHRONOS_EXTENSIONS);
-}
 
-const supportedExtensions = () => new Set(gltfExtensions().KHRONOS_EXTENSIONS.map((e) => e.EXTENSION_NAME));
 
 async function readDocument(c: Container): Promise<Document> {
-  const io = newIO();
+  const io = memoryNodeIO();
   try {
     if (c.format === 'glb') return await io.readBinary(new Uint8Array(c.main.buffer.buffer, c.main.buffer.byteOffset, c.main.buffer.byteLength));
     return await io.readJSON({ json: c.json as never, resources: c.resources as Record<string, Uint8Array<ArrayBuffer>> });
@@ -57,7 +52,7 @@ async function packAsGlb(doc: Document): Promise<Uint8Array> {
     for (const accessor of root.listAccessors()) accessor.setBuffer(first);
     for (const buffer of rest) buffer.dispose();
   }
-  return newIO().writeBinary(doc);
+  return memoryNodeIO().writeBinary(doc);
 }
 
 function meshStats(doc: Document): { meshes: number; vertices: number } {

@@ -104,3 +104,13 @@ describe('generators', () => {
     expect(() => generateCourse({ segments: [{ kind: 'bumps', length: 1 } as never] })).toThrow(/kind/);
   });
 });
+
+describe('grid limits', () => {
+  it('a course too long for its cell size names the size and the limit', () => {
+    expect(() => flatCourse(900, { cellSize: 0.05 })).toThrow(/900 m course with 0.05 m cells: rows must be an integer in \[2, 16384\]/);
+  });
+  it('a trench deeper than the height bound is rejected', () => {
+    const down = { kind: 'stairs', steps: 65, riser: 0.2, tread: 0.3, direction: 'down' } as const;
+    expect(() => generateCourse({ segments: [down, { kind: 'trench', length: 2, width: 1, depth: 20 }] })).toThrow(/segment 1 \(trench\) leaves the height bound/);
+  });
+});

@@ -9,6 +9,7 @@ import {
   runTrial,
 } from '../../engine/gait';
 import { DEFAULT_OPTIONS } from '../../engine/ik';
+import { z } from 'zod';
 
 describe('leg setup schema', () => {
   it.each(PRESET_RIG_NAMES)('the default setup of %s is valid, JSON-safe and fits its rig', (name) => {
@@ -16,6 +17,10 @@ describe('leg setup schema', () => {
     const s = defaultLegSetup(rig);
     expect(parseLegSetup(JSON.parse(JSON.stringify(s)))).toEqual(s);
     expect(() => checkLegSetupForRig(s, rig)).not.toThrow();
+  });
+  it('converts to a JSON Schema (zod 4 toJSONSchema), as the profile export needs', () => {
+    const schema = z.toJSONSchema(LegSetupSchema, { io: 'input' }) as { properties: Record<string, unknown> };
+    expect(Object.keys(schema.properties)).toEqual(['version', 'solver', 'gait', 'body', 'legs']);
   });
   it('takes its solver defaults from the IK engine', () => {
     const s = defaultLegSetup(presetRig('quadruped'));
@@ -49,6 +54,19 @@ describe('leg setup schema', () => {
     const stiff = runTrial(rig, s, flatCourse(30), { duration: 6 });
     const free = runTrial(rig, defaultLegSetup(rig), flatCourse(30), { duration: 6 });
     expect(stiff.metrics.tracking.rms).toBeGreaterThan(10 * free.metrics.tracking.rms);
+  });
+  it('a per-leg solver override applies to that leg only', () => {
+    const rig = presetRig('quadruped');
+    const s = defaultLegSetup(rig);
+    s.legs = [{ leg: 'left-fore', limits: [], solver: { maxIterations: 1, lambda: 0.5, warmStart: 'previous' } }];
+    const r = runTrial(rig, s, flatCourse(30), { duration: 6, recordRate: 60 });
+    const meanError = (leg: number) => {
+      let sum = 0;
+      for (let k = 0; k < r.series.length; k++) sum += r.series.error[k * 4 + leg];
+      return sum / r.series.length;
+    };
+    expect(meanError(0)).toBeGreaterThan(10 * meanError(1));
+    expect(meanError(1)).toBeLessThan(s.solver.tolerance);
   });
   it('a custom pattern with its own offsets runs', () => {
     const rig = presetRig('quadruped');

@@ -25,9 +25,8 @@ interface Frame {
 function detect(frames: Frame[]) {
   const d = new StumbleDetector(1, DEFAULT_STUMBLE_THRESHOLDS);
   frames.forEach((f, k) => {
-    d.frame(k / 60);
     const t = f.target ?? f.foot;
-    d.leg(0, f.contact, f.foot[0], f.foot[1], f.foot[2], t[0], t[1], t[2], 0, f.jointSpeed ?? 100);
+    d.observe(k / 60, [f.contact ? 1 : 0], f.foot, t, [0], [f.jointSpeed ?? 100]);
   });
   return d;
 }

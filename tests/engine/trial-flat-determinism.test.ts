@@ -1,5 +1,5 @@
 import { flatCourse, rubbleCourse } from '../../engine/course';
-import { PRESET_RIG_NAMES, decodeSeries, defaultLegSetup, encodeSeries, presetRig, runTrial } from '../../engine/gait';
+import { PRESET_GAITS, PRESET_RIG_NAMES, decodeSeries, defaultLegSetup, encodeSeries, presetRig, runTrial, type Rig } from '../../engine/gait';
 import { STUMBLE_KINDS, TrialMetricsSchema, detectStumbles } from '../../engine/metrics';
 
 describe('flat course with default settings', () => {
@@ -10,7 +10,32 @@ describe('flat course with default settings', () => {
     for (const kind of STUMBLE_KINDS) expect([kind, r.metrics.stumbles[kind].count]).toEqual([kind, 0]);
     expect(r.metrics.steps).toBeGreaterThan(30);
     expect(r.metrics.tracking.max).toBeLessThan(0.01);
+    // Touchdowns are measured as step responses and land without visible overshoot.
+    expect(r.metrics.touchdown.count).toBeGreaterThan(0);
+    expect(r.metrics.touchdown.overshootMaxPercent).toBeLessThan(5);
     expect(TrialMetricsSchema.safeParse(r.metrics).success).toBe(true);
+  });
+});
+
+describe('other patterns and leg counts on flat ground (common practice, no source)', () => {
+  const clean = (rig: Rig, setup: ReturnType<typeof defaultLegSetup>) => {
+    const m = runTrial(rig, setup, flatCourse(40), { duration: 15 }).metrics;
+    return STUMBLE_KINDS.map((k) => m.stumbles[k].count).reduce((a, b) => a + b, 0);
+  };
+  it('a quadruped trot', () => {
+    const rig = presetRig('quadruped');
+    const s = defaultLegSetup(rig);
+    s.gait.pattern = 'quadruped-trot';
+    s.gait.dutyFactor = PRESET_GAITS['quadruped-trot'].dutyFactor;
+    expect(clean(rig, s)).toBe(0);
+  });
+  it('a five-legged rig on its default custom pattern', () => {
+    const h = presetRig('hexapod');
+    const rig: Rig = { ...h, name: 'pentapod', legs: h.legs.slice(0, 5) };
+    const s = defaultLegSetup(rig);
+    expect(s.gait.pattern).toBe('custom');
+    expect(s.gait.phaseOffsets).toHaveLength(5);
+    expect(clean(rig, s)).toBe(0);
   });
 });
 

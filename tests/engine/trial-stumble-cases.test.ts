@@ -1,5 +1,7 @@
 import { curbCourse, flatCourse, generateCourse, rampCourse, trenchCourse } from '../../engine/course';
-import { defaultLegSetup, presetRig, runTrial, type LegSetup, type PresetRigName } from '../../engine/gait';
+import { PRESET_GAITS, defaultLegSetup, presetRig, runTrial, type LegSetup, type PresetRigName, type Rig } from '../../engine/gait';
+import { mirrorChain } from '../../engine/rig/presets';
+import type { LegChain } from '../../engine/rig/types';
 import type { StumbleKind } from '../../engine/metrics';
 import type { Heightfield } from '../../engine/course';
 
@@ -31,16 +33,61 @@ describe('reach-miss', () => {
 });
 
 describe('snap', () => {
-  // Hips raised 3 cm put the biped's knees near full extension; rubble keeps the targets moving there.
-  const rubble = generateCourse({ segments: [{ kind: 'flat', length: 3 }, { kind: 'rubble', length: 40, amplitude: 0.05, featureSize: 0.5, seed: 7 }] });
-  const nearExtension = (lambda: number) => (s: LegSetup) => {
-    s.body.heightOffset = 0.03;
-    s.solver.lambda = lambda;
+  // Stilts: a universal hip and a knee, 0.45 m + 0.45 m, hips exactly one leg length up, so every
+  // stance passes through the straight-leg singularity; rubble keeps pushing targets past it.
+  const stilt: LegChain = {
+    name: 'stilt',
+    kind: 'custom',
+    reach: 0.9,
+    sole: [0, -0.45, 0],
+    soleNormal: [0, 1, 0],
+    knee: 1,
+    kneeDirection: [0, 0, 1],
+    joints: [
+      { name: 'hip', kind: 'universal', offset: [0, 0, 0], rest: [0, 0, 0, 1], axes: [[1, 0, 0], [0, 0, 1]], limits: [{ min: -1.5, max: 1.5 }, { min: -0.5, max: 0.5 }], restValues: [-0.2, 0] },
+      { name: 'knee', kind: 'hinge', offset: [0, -0.45, 0], rest: [0, 0, 0, 1], axes: [[1, 0, 0]], limits: [{ min: 0, max: 2.6 }], restValues: [0.4] },
+    ],
   };
-  it('λ = 0 near full extension on rubble snaps more than the tuned default λ (Buss 2004: damping bounds steps near singularities)', () => {
-    const undamped = stumbles('biped', rubble, nearExtension(0))('snap');
-    const tuned = stumbles('biped', rubble, nearExtension(0.02))('snap');
-    expect(undamped).toBeGreaterThan(2 * tuned);
+  const stilts: Rig = {
+    name: 'stilts',
+    hipHeight: 0.9,
+    legs: [
+      { name: 'left', chain: stilt, hip: [0.1, 0, 0], hipRotation: [0, 0, 0, 1], neutralFoot: [0.1, 0] },
+      { name: 'right', chain: mirrorChain(stilt), hip: [-0.1, 0, 0], hipRotation: [0, 0, 0, 1], neutralFoot: [-0.1, 0] },
+    ],
+  };
+  const rubble = generateCourse({ segments: [{ kind: 'flat', length: 3 }, { kind: 'rubble', length: 40, amplitude: 0.05, featureSize: 0.5, seed: 7 }] });
+  const snapsWith = (lambda: number) => {
+    const s = defaultLegSetup(stilts);
+    s.solver.lambda = lambda;
+    s.gait.stride = 0.6;
+    s.gait.timing = { mode: 'speed', speed: 0.8 };
+    return runTrial(stilts, s, rubble, { duration: 20 }).metrics.stumbles.snap.count;
+  };
+  it('λ = 0 at full extension on rubble snaps more than a tuned λ (Buss 2004: damping bounds the steps near a singularity)', () => {
+    expect(snapsWith(0)).toBeGreaterThan(snapsWith(0.03));
+  });
+
+  // The wave gait swings one leg at a time, in a sixth of the cycle: speed sets how fast the joints must move.
+  const wave = (speed: number) => {
+    const rig = presetRig('hexapod');
+    const s = defaultLegSetup(rig);
+    s.gait.pattern = 'hexapod-wave';
+    s.gait.dutyFactor = PRESET_GAITS['hexapod-wave'].dutyFactor;
+    s.gait.timing = { mode: 'speed', speed };
+    const r = runTrial(rig, s, flatCourse(30), { duration: 15, recordRate: 60 });
+    let fastest = 0;
+    for (let k = 10; k < r.series.length; k++) for (let i = 0; i < 6; i++) fastest = Math.max(fastest, r.series.jointSpeed[k * 6 + i]);
+    return { snaps: r.metrics.stumbles.snap.count, fastest };
+  };
+  it('a hexapod wave gait at 0.475 m/s swings its joints past 720 °/s', () => {
+    expect(wave(0.475).snaps).toBeGreaterThan(0);
+  });
+  it('near miss: at 0.416 m/s the fastest joint stays under 720 °/s and nothing snaps', () => {
+    const w = wave(0.416);
+    expect(w.fastest).toBeLessThan(720);
+    expect(w.fastest).toBeGreaterThan(600);
+    expect(w.snaps).toBe(0);
   });
 });
 

@@ -4,6 +4,9 @@ import { createStudio, signedIn } from '../support/studio';
 import { payOnCheckoutPage } from './billing-helpers';
 import type { Role } from '../../schemas/roles';
 
+// A shared, busy machine: generous hook timeouts (no test checks how long anything takes).
+jest.setTimeout(30_000);
+
 let t: TestApp;
 let teamId: number;
 let agents: Record<Role, ReturnType<typeof request.agent>>;

@@ -18,4 +18,30 @@ export async function addMembers(t: TestApp, teamId: number, n: number, from = 1
   return ids;
 }
 
+/** Adds `n` characters straight in the database (the characters feature's own table), oldest first. */
+export async function addCharacters(t: TestApp, teamId: number, uploadedBy: number, n: number): Promise<number[]> {
+  const ids: number[] = [];
+  for (let i = 0; i < n; i += 1) {
+    const [id] = await t.db('characters').insert({
+      team_id: teamId,
+      name: `Crawler ${i + 1}`,
+      file_name: `crawler-${i + 1}.glb`,
+      format: 'glb',
+      sha256: `${teamId}-${i}`.padEnd(64, '0'),
+      byte_size: 1024,
+      joint_count: 12,
+      leg_count: 6,
+      skeleton_json: '{}',
+      detected_legs_json: '[]',
+      legs_json: '[]',
+      report_json: '{}',
+      uploaded_by: uploadedBy,
+      created_at: 5000 + i,
+      updated_at: 5000 + i,
+    });
+    ids.push(id);
+  }
+  return ids;
+}
+
 export const DAY = 24 * 3600;

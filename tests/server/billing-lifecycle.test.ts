@@ -2,16 +2,21 @@ import request from 'supertest';
 import { testApp, TEST_PUBLIC_URL, type TestApp } from '../support/test-app';
 import { createStudio, signedIn } from '../support/studio';
 import { assertWithinLimit, assertWritable, overLimitIds } from '../../server/services/billing-limits';
-import { addMembers, DAY, payOnCheckoutPage } from './billing-helpers';
+import { addCharacters, addMembers, DAY, payOnCheckoutPage } from './billing-helpers';
+
+// A shared, busy machine: generous hook timeouts (no test checks how long anything takes).
+jest.setTimeout(30_000);
 
 let t: TestApp;
 let teamId: number;
+let ownerId: number;
 let owner: ReturnType<typeof request.agent>;
 
 beforeAll(async () => {
   t = await testApp();
   const studio = await createStudio(t.db, 'lifecycle');
   teamId = studio.teamId;
+  ownerId = studio.members.owner.id;
   owner = await signedIn(t.app, studio.members.owner.email);
 });
 afterAll(() => t.cleanup());
@@ -78,8 +83,11 @@ describe('a subscription from checkout to cancellation, through the real stripe 
     expect(everything).toContain('"last4":"4242"');
   });
 
-  it('raises the limits: sixteen members fit on Studio', async () => {
+  let characters: number[];
+  it('raises the limits: sixteen members and seven characters fit on Studio', async () => {
     extra.push(...(await addMembers(t, teamId, 11, 200)));
+    characters = await addCharacters(t, teamId, ownerId, 7);
+    await expect(assertWithinLimit(t.db, teamId, 'characters')).resolves.toBeUndefined();
     await expect(assertWithinLimit(t.db, teamId, 'seats')).resolves.toBeUndefined();
     expect((await billing()).usage.find((u: { kind: string }) => u.kind === 'seats')).toMatchObject({ used: 16, limit: 30, readOnly: 0 });
   });
@@ -112,6 +120,11 @@ describe('a subscription from checkout to cancellation, through the real stripe 
     expect(view).toMatchObject({ plan: { id: 'solo' }, status: 'free', cancelAtPeriodEnd: false, currentPeriodEnd: null });
     expect(await memberCount()).toBe(16);
     expect(view.usage.find((u: { kind: string }) => u.kind === 'seats')).toMatchObject({ used: 16, limit: 5, readOnly: 11 });
+    expect(await overLimitIds(t.db, teamId, 'characters')).toEqual(characters.slice(5));
+    await expect(assertWritable(t.db, teamId, 'characters', characters[0])).resolves.toBeUndefined();
+    await expect(assertWritable(t.db, teamId, 'characters', characters[6])).rejects.toMatchObject({ code: 'plan_limit' });
+    await expect(assertWithinLimit(t.db, teamId, 'characters')).rejects.toMatchObject({ code: 'plan_limit', message: expect.stringContaining('Upgrade to Crew') });
+    expect(Number((await t.db('characters').where({ team_id: teamId }).count({ n: '*' }).first())?.n)).toBe(7);
     // The studio may subscribe again afterwards.
     const res = await owner.post('/api/billing/checkout').send({ plan: 'crew' });
     expect(res.status).toBe(200);

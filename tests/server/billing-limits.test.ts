@@ -3,6 +3,9 @@ import { createStudio } from '../support/studio';
 import { checkLimit, consumeAllowance, usageMonth, usedOf } from '../../server/services/billing-limits';
 import { upgradeFor } from '../../server/services/plans';
 
+// A shared, busy machine: generous hook timeouts (no test checks how long anything takes).
+jest.setTimeout(30_000);
+
 let t: TestApp;
 let teamId: number;
 let otherTeam: number;

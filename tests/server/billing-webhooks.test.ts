@@ -5,6 +5,9 @@ import { createStudio, signedIn } from '../support/studio';
 import { signatureHeader } from '../../server/fakes/payments/webhooks';
 import { DAY, payOnCheckoutPage } from './billing-helpers';
 
+// A shared, busy machine: generous hook timeouts (no test checks how long anything takes).
+jest.setTimeout(30_000);
+
 let t: TestApp;
 let teamId: number;
 let owner: ReturnType<typeof request.agent>;

@@ -9,6 +9,7 @@ import { freshDatabase } from './test-db';
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher';
 import { smtpMailer } from '../../server/services/mail';
 import { startLocalPayments, type LocalPayments } from '../../server/fakes/payments/connect';
+import { createJobRunner } from '../../server/jobs';
 
 export const TEST_PUBLIC_URL = 'http://treadle.test';
 
@@ -27,6 +28,8 @@ export interface TestApp {
   mail: MailCatcher;
   /** The local payment fake; the app also listens on loopback (`url`) so the fake's webhooks reach it. */
   payments: LocalPayments;
+  /** The background job runner (piscina pool of 2 threads); `idle()` waits until no job runs. */
+  jobs: ReturnType<typeof createJobRunner>;
   url: string;
   cleanup(): Promise<void>;
 }
@@ -39,6 +42,8 @@ export async function testApp(): Promise<TestApp> {
   const mail = await startMailCatcher();
   const mailer = smtpMailer({ host: '127.0.0.1', port: mail.smtpPort });
   const payments = await startLocalPayments();
+  const jobs = createJobRunner({ db: database.db, clock, threads: 2 });
+  await jobs.start();
   const app = createApp({
     db: database.db,
     clock,
@@ -48,6 +53,7 @@ export async function testApp(): Promise<TestApp> {
     mailer,
     publicUrl: () => TEST_PUBLIC_URL,
     payments: payments.deps,
+    jobs,
   });
   const listener = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
@@ -61,6 +67,7 @@ export async function testApp(): Promise<TestApp> {
     dataDir,
     mail,
     payments,
+    jobs,
     url,
     async cleanup() {
       await payments.fake.stop();
@@ -70,6 +77,7 @@ export async function testApp(): Promise<TestApp> {
       });
       mailer.close();
       await mail.stop();
+      await jobs.close();
       await database.cleanup();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },

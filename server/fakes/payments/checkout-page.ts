@@ -25,7 +25,8 @@ export function checkoutPage(store: PaymentsStore, sender: WebhookSender): Route
     if (!/^(0[1-9]|1[0-2])\s*\/\s*\d{2}$/.test(form.expiry ?? '')) problems.expiry = 'Enter the expiry as MM / YY, e.g. 12 / 30.';
     if (!/^\d{3,4}$/.test(form.cvc ?? '')) problems.cvc = 'Enter the 3 or 4 digits of the security code.';
     const card = tryCard(form.card ?? '');
-    if (!card.ok) problems.card = card.message;
+    // A decline is said once, above the form; a number that is no test card is a problem of the field.
+    if (!card.ok && card.code === 'not_a_test_card') problems.card = card.message;
     if (!card.ok || Object.keys(problems).length) {
       const refusal = !card.ok && card.code === 'card_declined' ? card.message : undefined;
       return void send(res, refusal ? 402 : 400, payPage(store, session, { problems, refusal, name: form.name }), session);

@@ -44,6 +44,10 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<R
   app.use('/v1', paymentsApi(store, () => base));
   app.use(checkoutPage(store, sender));
   app.get('/', (_req, res) => void res.type('text/plain').send('Local test stand-in for the payment service. No real money moves.'));
+  // Quietly: the default handler would print the request's stack trace, and this page's requests carry card fields.
+  app.use((_err: unknown, _req: express.Request, res: express.Response, _next: express.NextFunction) => {
+    res.status(500).type('text/plain').send('The local payment fake failed; nothing was charged.');
+  });
 
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(options.port ?? 0, '127.0.0.1', () => resolve(s));

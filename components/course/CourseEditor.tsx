@@ -1,0 +1,250 @@
+import { useCallback, useMemo, useRef, useState } from 'react';
+import { StyleSheet, Text, View, useWindowDimensions } from 'react-native';
+import { decodeCourse, encodeCourse, type CourseEncoding } from '../../engine/course/encoding';
+import { heightRange } from '../../engine/course/heightfield';
+import { courseUpdateSchema, COURSE_VERSION_CONFLICT, type CourseDetail, type CourseUpdate } from '../../schemas/courses';
+import { fieldMessages } from '../../schemas/errors';
+import { ApiError } from '../../hooks/api';
+import { useIsWide } from '../../hooks/useLayout';
+import { colors, space, type } from '../../constants/theme';
+import { Screen } from '../layout/Screen';
+import { Button } from '../ui/Button';
+import { Notice } from '../ui/Notice';
+import { BrushBar, type BrushSettings } from './BrushBar';
+import { ConflictPanel } from './ConflictPanel';
+import { CourseDetails } from './CourseDetails';
+import { HeightMap } from './HeightMap';
+import type { StrokeEvent } from './heightMapProps';
+import { SculptHistory } from './history';
+import { SculptStroke } from './stroke';
+import { SideProfile } from './SideProfile';
+import { courseFrame } from './frame';
+import { rampRange } from './ramp';
+import { RampLegend } from './RampLegend';
+import { courseFigures } from './figures';
+
+export interface CourseEditorProps {
+  detail: CourseDetail;
+  mayEdit: boolean;
+  onSave(update: CourseUpdate): Promise<CourseDetail>;
+  /** Fetches the course as saved now. */
+  onReload(): Promise<CourseDetail>;
+  onSaveCopy(name: string, encoding: CourseEncoding): Promise<void>;
+  onDelete(): Promise<void>;
+}
+
+const PROFILE_DEPTH_PHONE = 118;
+const PROFILE_DEPTH_WIDE = 170;
+const SIDE_PANEL = 340;
+
+/** The course editor: sculpt the map by finger or mouse, watch the profile, undo and redo, save with a version check. */
+export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, onDelete }: CourseEditorProps) {
+  const wide = useIsWide();
+  const window = useWindowDimensions();
+  const [hf, setHf] = useState(() => decodeCourse(detail.encoding));
+  const history = useRef(new SculptHistory()).current;
+  const stroke = useRef<SculptStroke | null>(null);
+  const [revision, setRevision] = useState(0);
+  const frameRequest = useRef<number | null>(null);
+  const [range, setRange] = useState(() => rangeOf(hf));
+  const [brush, setBrush] = useState<BrushSettings>({ kind: 'raise', radius: 0.2, strength: 0.5 });
+  const [baseVersion, setBaseVersion] = useState(detail.course.version);
+  const [savedPosition, setSavedPosition] = useState(0);
+  const [savedName, setSavedName] = useState(detail.course.name);
+  const [name, setName] = useState(detail.course.name);
+  const [status, setStatus] = useState<string | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
+  const [conflict, setConflict] = useState<string | null>(null);
+  const [saving, setSaving] = useState(false);
+  const [areaWidth, setAreaWidth] = useState(0);
+
+  const dirty = history.position !== savedPosition || name.trim() !== savedName;
+
+  const redraw = useCallback((now = false) => {
+    if (now || typeof requestAnimationFrame === 'undefined') {
+      setRevision((r) => r + 1);
+      return;
+    }
+    if (frameRequest.current !== null) return;
+    frameRequest.current = requestAnimationFrame(() => {
+      frameRequest.current = null;
+      setRevision((r) => r + 1);
+    });
+  }, []);
+
+  function settle() {
+    setRange(rangeOf(hf));
+    setStatus(null);
+    redraw(true);
+  }
+
+  function onStroke(e: StrokeEvent) {
+    const p = { x: e.x, z: e.z };
+    if (e.phase === 'start') {
+      stroke.current = new SculptStroke(hf, { ...brush, falloff: 'smooth' }, p);
+      redraw();
+    } else if (e.phase === 'move') {
+      if (stroke.current?.moveTo(p)) redraw();
+    } else if (stroke.current) {
+      stroke.current.moveTo(p);
+      const change = stroke.current.finish();
+      stroke.current = null;
+      if (change) history.push(change);
+      settle();
+    }
+  }
+
+  async function save() {
+    const update = { baseVersion, encoding: encodeCourse(hf), ...(name.trim() !== savedName ? { name } : {}) };
+    const checked = courseUpdateSchema.safeParse(update);
+    if (!checked.success) {
+      setFieldErrors(fieldMessages(checked.error.issues));
+      return;
+    }
+    const position = history.position;
+    setSaving(true);
+    setProblem(null);
+    setFieldErrors({});
+    try {
+      const saved = await onSave(checked.data);
+      setBaseVersion(saved.course.version);
+      setSavedPosition(position);
+      setSavedName(saved.course.name);
+      setStatus(`Saved as version ${saved.course.version}.`);
+    } catch (err) {
+      if (err instanceof ApiError && err.code === COURSE_VERSION_CONFLICT) setConflict(err.message);
+      else if (err instanceof ApiError && Object.keys(err.fields).length) setFieldErrors(err.fields);
+      else setProblem(err instanceof Error ? err.message : 'The course could not be saved. Try again.');
+    } finally {
+      setSaving(false);
+    }
+  }
+
+  async function reload() {
+    const fresh = await onReload();
+    const next = decodeCourse(fresh.encoding);
+    history.clear();
+    stroke.current = null;
+    setHf(next);
+    setRange(rangeOf(next));
+    setBaseVersion(fresh.course.version);
+    setSavedPosition(0);
+    setSavedName(fresh.course.name);
+    setName(fresh.course.name);
+    setConflict(null);
+    setStatus(`Reloaded version ${fresh.course.version}.`);
+    redraw(true);
+  }
+
+  const profileDepth = wide ? PROFILE_DEPTH_WIDE : PROFILE_DEPTH_PHONE;
+  const frame = useMemo(() => {
+    if (!areaWidth) return null;
+    return wide
+      ? courseFrame(hf, 'right', areaWidth, Math.min(340, window.height * 0.4))
+      : courseFrame(hf, 'up', areaWidth - profileDepth - space.md, Math.max(300, window.height - 360));
+  }, [hf, wide, areaWidth, window.height, profileDepth]);
+
+  const figures = courseFigures({ ...detail.course, version: baseVersion, minHeight: range.min, maxHeight: range.max });
+  const readOnlyNote = mayEdit ? null : <Notice tone="info" message="Your role can look at courses but not change them. An owner or designer sculpts them." />;
+
+  const toolbar = mayEdit ? (
+    <View style={styles.toolbar}>
+      <Button label="Undo" tone="quiet" disabled={!history.canUndo || !!stroke.current} onPress={() => history.undo(hf) && settle()} />
+      <Button label="Redo" tone="quiet" disabled={!history.canRedo || !!stroke.current} onPress={() => history.redo(hf) && settle()} />
+      <Button label="Save" busy={saving} disabled={!dirty || !!conflict} onPress={save} />
+      <Text style={styles.status} role="status">
+        {status ?? (dirty ? 'Unsaved changes' : `Version ${baseVersion}, nothing to save`)}
+      </Text>
+    </View>
+  ) : null;
+
+  const messages = (
+    <>
+      {conflict ? (
+        <ConflictPanel
+          message={conflict}
+          suggestedName={`${name.trim() || detail.course.name} (copy)`.slice(0, 80)}
+          onReload={reload}
+          onSaveCopy={(copyName) => onSaveCopy(copyName, encodeCourse(hf))}
+        />
+      ) : null}
+      {problem ? <Notice message={problem} /> : null}
+      {fieldErrors['encoding.heights'] || fieldErrors.encoding ? <Notice message={fieldErrors['encoding.heights'] ?? fieldErrors.encoding} /> : null}
+    </>
+  );
+
+  const map = frame ? (
+    <HeightMap
+      hf={hf}
+      frame={frame}
+      revision={revision}
+      lo={range.lo}
+      hi={range.hi}
+      brushRadius={mayEdit ? brush.radius : undefined}
+      onStroke={mayEdit ? onStroke : undefined}
+      label={`Height map of ${detail.course.name}${mayEdit ? '; drag to sculpt' : ''}`}
+    />
+  ) : null;
+  const profile = frame ? <SideProfile hf={hf} frame={frame} revision={revision} depth={profileDepth} /> : null;
+  const details = (
+    <CourseDetails
+      detail={detail}
+      mayEdit={mayEdit}
+      name={name}
+      nameError={fieldErrors.name}
+      onName={(v) => {
+        setName(v);
+        setFieldErrors(({ name: _gone, ...rest }) => rest);
+      }}
+      onDelete={onDelete}
+    />
+  );
+
+  return (
+    <Screen title={savedName} lede={figures}>
+      {readOnlyNote}
+      {wide ? (
+        <View style={styles.wideRow}>
+          <View style={styles.wideMain} onLayout={(e) => setAreaWidth(Math.floor(e.nativeEvent.layout.width))}>
+            {messages}
+            {map}
+            {profile}
+            <RampLegend lo={range.lo} hi={range.hi} />
+          </View>
+          <View style={styles.widePanel}>
+            {toolbar}
+            {mayEdit ? <BrushBar value={brush} onChange={setBrush} /> : null}
+            {details}
+          </View>
+        </View>
+      ) : (
+        <>
+          {toolbar}
+          {messages}
+          {mayEdit ? <BrushBar value={brush} onChange={setBrush} /> : null}
+          <View style={styles.phoneArea} onLayout={(e) => setAreaWidth(Math.floor(e.nativeEvent.layout.width))}>
+            {map}
+            {profile}
+          </View>
+          <RampLegend lo={range.lo} hi={range.hi} />
+          {details}
+        </>
+      )}
+    </Screen>
+  );
+}
+
+function rangeOf(hf: ReturnType<typeof decodeCourse>) {
+  const { min, max } = heightRange(hf);
+  return { min, max, ...rampRange(min, max) };
+}
+
+const styles = StyleSheet.create({
+  toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  status: { ...type.small, color: colors.graphite, flexBasis: '100%' },
+  phoneArea: { flexDirection: 'row', gap: space.md, alignItems: 'flex-start' },
+  wideRow: { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' },
+  wideMain: { flex: 1, gap: space.md, minWidth: 0 },
+  widePanel: { width: SIDE_PANEL, gap: space.lg },
+});

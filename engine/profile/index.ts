@@ -1,0 +1,10 @@
+/** Leg profiles: the file's schema, its JSON Schema, suite metrics, version diffs, the regression verdict and the game runtime. */
+export * from './schema';
+export * from './suite-metrics';
+export * from './run-suite';
+export * from './metric-rows';
+export * from './export';
+export * from './diff';
+export * from './check';
+export * from './rig-mapping';
+export { loadLegProfile, bindLegProfile, createLegRuntime, type BoundLegProfile, type LegRuntime, type LegRuntimeOptions } from './runtime';

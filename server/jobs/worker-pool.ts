@@ -1,0 +1,47 @@
+/**
+ * The worker pool jobs run their engine work on: piscina threads loading server/workers/entry.cjs, which
+ * registers tsx so the TypeScript workers load the same under `npm start` (tsx) and under jest (babel).
+ * A task talks back over its own MessagePort (progress, best so far); aborting the signal ends it.
+ */
+import os from 'node:os';
+import path from 'node:path';
+import { MessageChannel } from 'node:worker_threads';
+import { Piscina } from 'piscina';
+import type { WorkerTaskName } from './job-runner';
+
+type TransferList = NonNullable<Parameters<Piscina['run']>[1]>['transferList'];
+
+export interface TaskPool {
+  run<T>(name: WorkerTaskName, payload: unknown, onMessage: (message: unknown) => void, signal: AbortSignal): Promise<T>;
+  /** Threads in the pool. */
+  readonly threads: number;
+  close(): Promise<void>;
+}
+
+export const WORKER_ENTRY = path.join(__dirname, '..', 'workers', 'entry.cjs');
+
+/** Threads: TREADLE_WORKERS, else one per core (at least one). */
+export function defaultThreads(env: NodeJS.ProcessEnv = process.env): number {
+  const asked = Number(env.TREADLE_WORKERS);
+  if (Number.isInteger(asked) && asked > 0) return asked;
+  return Math.max(1, os.availableParallelism?.() ?? os.cpus().length);
+}
+
+export function createPiscinaPool(threads = defaultThreads()): TaskPool {
+  const pool = new Piscina({ filename: WORKER_ENTRY, minThreads: threads, maxThreads: threads, idleTimeout: 60_000 });
+  return {
+    threads,
+    async run<T>(name: WorkerTaskName, payload: unknown, onMessage: (message: unknown) => void, signal: AbortSignal): Promise<T> {
+      const channel = new MessageChannel();
+      channel.port1.on('message', onMessage);
+      try {
+        return (await pool.run({ payload, port: channel.port2 }, { name, transferList: [channel.port2] as unknown as TransferList, signal })) as T;
+      } finally {
+        channel.port1.close();
+      }
+    },
+    async close() {
+      await pool.destroy();
+    },
+  };
+}

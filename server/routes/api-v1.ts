@@ -1,0 +1,101 @@
+/**
+ * The API for build scripts and the app alike: `Authorization: Bearer …` (read-only) or a signed-in session.
+ * Files carry a strong ETag (the sha256 of the exact bytes), so If-None-Match answers 304.
+ */
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import type { AppDeps } from '../deps';
+import { HttpError, parseWith } from '../errors';
+import { viewerOf } from '../middleware/auth';
+import { checkFieldsSchema, versionParamSchema, type ApiCharacterList, type CheckResult } from '../../schemas/profiles';
+import { characterRows } from '../services/gltf-import-store';
+import { uploadCapBytes } from '../services/character-files';
+import { findVersion, profilesOfCharacter } from '../services/profiles';
+import { checkProfile } from '../services/profile-check';
+import { parseId } from './profiles';
+
+const MAX_FILES = 32;
+
+function optionalUpload(cap: number): RequestHandler {
+  const parse = multer({ storage: multer.memoryStorage(), limits: { fileSize: cap, files: MAX_FILES, fields: 8 } }).array('file', MAX_FILES);
+  return (req, res, next) => {
+    if (!req.is('multipart/form-data')) return next();
+    parse(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
+        return next(new HttpError(413, 'too_large', `The file is larger than the ${(cap / 1048576).toFixed(0)} MB limit.`, { file: 'The file is too large.' }));
+      }
+      next(new HttpError(400, 'bad_upload', `The upload could not be read (${(err as Error).message}). Send the character in the form field "file".`, { file: 'Send the file in the field "file".' }));
+    });
+  };
+}
+
+/** A file's download name: the character, the version, and what it is. */
+const fileName = (character: string, version: number) => `${character.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'character'}-v${version}.leg-profile.json`;
+
+export function apiV1Router(deps: AppDeps): Router {
+  const router = Router();
+  router.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'private, no-cache');
+    next();
+  });
+
+  router.get('/characters', async (req, res) => {
+    const { team } = viewerOf(req);
+    type Row = { id: number; name: string; sha256: string; profile_id: number | null; latest: number | null };
+    const rows = (await characterRows(deps.db, team.id)
+      .leftJoin('profiles as p', 'p.character_id', 'c.id')
+      .leftJoin('profile_versions as v', 'v.profile_id', 'p.id')
+      .groupBy('c.id')
+      .clearSelect()
+      .select('c.id', 'c.name', 'c.sha256', 'p.id as profile_id')
+      .max({ latest: 'v.version' })
+      .orderBy('c.name')
+      .orderBy('c.id')) as unknown as Row[];
+    const body: ApiCharacterList = {
+      characters: rows.map((r) => ({
+        id: r.id,
+        name: r.name,
+        sha256: r.sha256,
+        profile: r.profile_id && r.latest ? { id: r.profile_id, latestVersion: r.latest } : null,
+      })),
+    };
+    res.json(body);
+  });
+
+  router.get('/characters/:id/profiles', async (req, res) => {
+    const { team } = viewerOf(req);
+    res.json({ profiles: await profilesOfCharacter(deps.db, team.id, parseId(req.params.id, 'That character')) });
+  });
+
+  router.get('/profiles/:id/versions/:version', async (req, res) => {
+    const { team } = viewerOf(req);
+    const id = parseId(req.params.id, 'That leg profile');
+    const version = parseWith(versionParamSchema, req.params.version);
+    const row = await findVersion(deps.db, team.id, id, version);
+    res.setHeader('ETag', `"${row.sha256}"`);
+    res.setHeader('Content-Type', 'application/json; charset=utf-8');
+    if (req.query.download !== undefined) {
+      const name = (JSON.parse(row.document) as { character: { name: string } }).character.name;
+      res.attachment(fileName(name, row.version));
+    }
+    res.send(row.document);
+  });
+
+  router.post('/profiles/:id/check', optionalUpload(uploadCapBytes()), async (req, res) => {
+    const { team } = viewerOf(req);
+    const id = parseId(req.params.id, 'That leg profile');
+    const fields = parseWith(checkFieldsSchema, req.body);
+    const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({ originalname: f.originalname, buffer: f.buffer }));
+    const body: CheckResult = await checkProfile(deps.db, {
+      teamId: team.id,
+      profileId: id,
+      version: fields.version,
+      files,
+      tolerances: { score: fields.scoreTolerance, stumbles: fields.stumbleTolerance },
+    });
+    res.json(body);
+  });
+
+  return router;
+}

@@ -1,0 +1,72 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../deps';
+import { notFound, parseWith } from '../errors';
+import { viewerOf } from '../middleware/auth';
+import { courseCreateSchema, courseUpdateSchema, type CourseDetail, type CourseList } from '../../schemas/courses';
+import {
+  courseDetail,
+  courseSummary,
+  decodeRequestEncoding,
+  deleteCourse,
+  generateFromRecipe,
+  insertCourse,
+  listCourses,
+  updateCourse,
+} from '../services/courses';
+
+const idSchema = z.coerce.number().int().positive();
+
+function courseId(raw: unknown): number {
+  const id = idSchema.safeParse(raw);
+  if (!id.success) throw notFound('That course');
+  return id.data;
+}
+
+/** Courses: list, read (with the encoding), create from a recipe or an encoding, save with a version check, delete. */
+export function coursesRouter(deps: AppDeps): Router {
+  const router = Router();
+
+  router.get('/', async (req, res) => {
+    const body: CourseList = { courses: await listCourses(deps.db, viewerOf(req).team.id) };
+    res.json(body);
+  });
+
+  router.get('/:id', async (req, res) => {
+    const body: CourseDetail = await courseDetail(deps.db, viewerOf(req).team.id, courseId(req.params.id));
+    res.json(body);
+  });
+
+  router.post('/', async (req, res) => {
+    const { team, user } = viewerOf(req);
+    const input = parseWith(courseCreateSchema, req.body);
+    const heightfield = input.generator ? generateFromRecipe(input.generator) : decodeRequestEncoding(input.encoding);
+    const id = await insertCourse(deps.db, {
+      teamId: team.id,
+      userId: user.id,
+      name: input.name,
+      heightfield,
+      generator: input.generator ?? null,
+      now: deps.clock.now(),
+    });
+    res.status(201).json(await courseDetail(deps.db, team.id, id));
+  });
+
+  router.put('/:id', async (req, res) => {
+    const { team, user } = viewerOf(req);
+    const id = courseId(req.params.id);
+    // 404 before 400: another team's course is not there at all.
+    await courseSummary(deps.db, team.id, id);
+    const input = parseWith(courseUpdateSchema, req.body);
+    const heightfield = input.encoding ? decodeRequestEncoding(input.encoding) : undefined;
+    await updateCourse(deps.db, { teamId: team.id, userId: user.id, courseId: id, baseVersion: input.baseVersion, name: input.name, heightfield, now: deps.clock.now() });
+    res.json(await courseDetail(deps.db, team.id, id));
+  });
+
+  router.delete('/:id', async (req, res) => {
+    await deleteCourse(deps.db, viewerOf(req).team.id, courseId(req.params.id));
+    res.status(204).end();
+  });
+
+  return router;
+}

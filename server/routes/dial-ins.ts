@@ -1,0 +1,76 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../deps';
+import { HttpError, notFound, parseWith } from '../errors';
+import { viewerOf } from '../middleware/auth';
+import { dialInAcceptSchema, dialInRequestSchema, dialInResultSchema } from '../../schemas/dial-ins';
+import type { JobAccepted } from '../../schemas/jobs';
+import { TRIAL_SECONDS } from '../../schemas/trials';
+import { loadSuiteCourses } from '../services/courses';
+import { assertWithinLimit } from '../services/billing-limits';
+import { assertFitsRig, findLegSetup, loadWalkingCharacter, resolveLegSetup, saveLegSetup } from '../services/leg-setups';
+import { findJobRow } from '../jobs/job-rows';
+import type { DialInJobInput } from '../jobs/dial-in-job';
+import { jobRunnerOf } from './job-runner-of';
+
+const idSchema = z.coerce.number().int().positive();
+
+/** Dial-ins: start one as a job (202); accept a finished one as a new leg setup version (201). */
+export function dialInsRouter(deps: AppDeps): Router {
+  const router = Router();
+
+  router.post('/', async (req, res) => {
+    const { team, user } = viewerOf(req);
+    const ask = parseWith(dialInRequestSchema, req.body);
+    const character = await loadWalkingCharacter(deps.db, team.id, ask.characterId);
+    const resolved = await resolveLegSetup(deps.db, team.id, character, { legSetupId: ask.legSetupId });
+    const courses = await loadSuiteCourses(deps.db, team.id, ask.suiteId);
+    if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    // Refused before any work when the month's allowance would not cover it; the use is recorded when the job finishes.
+    await assertWithinLimit(deps.db, team.id, 'dialInCandidates', { adding: ask.candidates, now: deps.clock.now() });
+    const input: DialInJobInput = {
+      characterId: character.id,
+      suiteId: ask.suiteId,
+      courseIds: courses.map((c) => c.id),
+      base: resolved.setup,
+      baseLegSetupId: resolved.legSetupId,
+      params: ask.params,
+      candidates: ask.candidates,
+      seed: ask.seed,
+      duration: TRIAL_SECONDS,
+    };
+    const body: JobAccepted = { job: await jobRunnerOf(deps).enqueue({ teamId: team.id, userId: user.id, kind: 'dial-in', input }) };
+    res.status(202).json(body);
+  });
+
+  router.post('/:id/accept', async (req, res) => {
+    const { team, user } = viewerOf(req);
+    const id = idSchema.safeParse(req.params.id);
+    if (!id.success) throw notFound('That dial-in');
+    const { note } = parseWith(dialInAcceptSchema, req.body);
+    const legSetupId = await deps.db.transaction(async (trx) => {
+      const row = await findJobRow(trx, team.id, id.data);
+      if (row.kind !== 'dial-in') throw notFound('That dial-in');
+      if (row.status !== 'done' || !row.result) throw new HttpError(409, 'not_finished', 'This dial-in has not finished; accept it once it is done.');
+      const result = dialInResultSchema.parse(JSON.parse(row.result));
+      if (result.acceptedLegSetupId) throw new HttpError(409, 'already_accepted', 'This dial-in was already accepted as a leg setup version.');
+      const character = await loadWalkingCharacter(trx, team.id, result.characterId);
+      assertFitsRig(result.bestSetup!, character.rig);
+      const gain = (result.after!.footingScore - result.before!.footingScore).toFixed(1);
+      const saved = await saveLegSetup(trx, {
+        teamId: team.id,
+        characterId: character.id,
+        userId: user.id,
+        setup: result.bestSetup!,
+        note: note || `Dial-in ${row.id}: footing score ${result.before!.footingScore.toFixed(1)} → ${result.after!.footingScore.toFixed(1)} (${Number(gain) >= 0 ? '+' : ''}${gain})`,
+        source: 'dial-in',
+        now: deps.clock.now(),
+      });
+      await trx('jobs').where({ id: row.id }).update({ result: JSON.stringify({ ...result, acceptedLegSetupId: saved }), updated_at: deps.clock.now() });
+      return saved;
+    });
+    res.status(201).json({ legSetup: await findLegSetup(deps.db, team.id, legSetupId) });
+  });
+
+  return router;
+}

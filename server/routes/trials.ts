@@ -1,0 +1,47 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../deps';
+import { HttpError, notFound, parseWith } from '../errors';
+import { viewerOf } from '../middleware/auth';
+import { trialRequestSchema, TRIAL_SECONDS, type TrialList } from '../../schemas/trials';
+import type { JobAccepted } from '../../schemas/jobs';
+import { loadCourse, loadSuiteCourses } from '../services/courses';
+import { loadWalkingCharacter, resolveLegSetup } from '../services/leg-setups';
+import { listTrials, trialDetail } from '../services/trials';
+import type { TrialJobInput } from '../jobs/trial-job';
+import { jobRunnerOf } from './job-runner-of';
+
+const idSchema = z.coerce.number().int().positive();
+const listQuerySchema = z.object({ characterId: idSchema.optional(), jobId: idSchema.optional() });
+
+/** Trials: start one as a job (202), list, read one with its series. */
+export function trialsRouter(deps: AppDeps): Router {
+  const router = Router();
+
+  router.post('/', async (req, res) => {
+    const { team, user } = viewerOf(req);
+    const ask = parseWith(trialRequestSchema, req.body);
+    const character = await loadWalkingCharacter(deps.db, team.id, ask.characterId);
+    const resolved = await resolveLegSetup(deps.db, team.id, character, ask);
+    const courseIds =
+      ask.courseId !== undefined ? [(await loadCourse(deps.db, team.id, ask.courseId)).id] : (await loadSuiteCourses(deps.db, team.id, ask.suiteId!)).map((c) => c.id);
+    if (courseIds.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    const input: TrialJobInput = { characterId: character.id, courseIds, setup: resolved.setup, legSetupId: resolved.legSetupId, duration: TRIAL_SECONDS };
+    const body: JobAccepted = { job: await jobRunnerOf(deps).enqueue({ teamId: team.id, userId: user.id, kind: 'trial', input }) };
+    res.status(202).json(body);
+  });
+
+  router.get('/', async (req, res) => {
+    const q = parseWith(listQuerySchema, req.query);
+    const body: TrialList = { trials: await listTrials(deps.db, viewerOf(req).team.id, q) };
+    res.json(body);
+  });
+
+  router.get('/:id', async (req, res) => {
+    const id = idSchema.safeParse(req.params.id);
+    if (!id.success) throw notFound('That trial');
+    res.json(await trialDetail(deps.db, viewerOf(req).team.id, id.data));
+  });
+
+  return router;
+}

@@ -1,0 +1,138 @@
+/**
+ * Leg setups in the database: versions per character, the walking rig of a character, and which setup a
+ * trial or dial-in runs (a saved version, an unsaved one, the newest version, or the engine's defaults).
+ * Every query is scoped to one team.
+ */
+import type { Knex } from 'knex';
+import type { Db } from '../db';
+import { HttpError, notFound } from '../errors';
+import { rigFromCharacter } from '../../engine/gait/character-rig';
+import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
+import type { Rig } from '../../engine/gait/rig';
+import type { LegMapping } from '../../schemas/characters';
+import type { LegSetupSource, LegSetupVersion } from '../../schemas/leg-setups';
+import type { StoredSkeleton } from './gltf-import-store';
+
+type Conn = Db | Knex.Transaction;
+
+export interface WalkingCharacter {
+  id: number;
+  name: string;
+  rig: Rig;
+}
+
+/** A team's character as the engine walks it; a mapping the engine cannot build a rig from is a 400 naming why. */
+export async function loadWalkingCharacter(db: Conn, teamId: number, characterId: number): Promise<WalkingCharacter> {
+  const row = await db('characters').where({ id: characterId, team_id: teamId }).first('id', 'name', 'skeleton_json', 'legs_json');
+  if (!row) throw notFound('That character');
+  const skeleton = JSON.parse(row.skeleton_json) as StoredSkeleton;
+  const legs = JSON.parse(row.legs_json) as LegMapping[];
+  try {
+    return { id: row.id, name: row.name, rig: rigFromCharacter({ joints: skeleton.joints }, legs, { name: row.name }) };
+  } catch (err) {
+    throw new HttpError(400, 'unwalkable_character', `${row.name} cannot walk yet: ${(err as Error).message}. Check its leg mapping.`, {
+      characterId: (err as Error).message,
+    });
+  }
+}
+
+interface LegSetupRow {
+  id: number;
+  team_id: number;
+  character_id: number;
+  version: number;
+  setup: string;
+  note: string;
+  source: LegSetupSource;
+  created_by: number;
+  creator_name: string;
+  created_at: number;
+}
+
+function versionFromRow(r: LegSetupRow): LegSetupVersion {
+  return {
+    id: r.id,
+    characterId: r.character_id,
+    version: r.version,
+    setup: LegSetupSchema.parse(JSON.parse(r.setup)),
+    note: r.note,
+    source: r.source,
+    createdBy: { id: r.created_by, name: r.creator_name },
+    createdAt: Number(r.created_at),
+  };
+}
+
+const rows = (db: Conn, teamId: number) =>
+  db('leg_setups as s').join('users as u', 'u.id', 's.created_by').where('s.team_id', teamId).select<LegSetupRow[]>('s.*', 'u.name as creator_name');
+
+export async function listLegSetups(db: Conn, teamId: number, characterId: number): Promise<LegSetupVersion[]> {
+  return (await rows(db, teamId).where('s.character_id', characterId).orderBy('s.version', 'desc')).map(versionFromRow);
+}
+
+export async function findLegSetup(db: Conn, teamId: number, id: number): Promise<LegSetupVersion> {
+  const [row] = await rows(db, teamId).where('s.id', id);
+  if (!row) throw notFound('That leg setup');
+  return versionFromRow(row);
+}
+
+/** The setup must fit the rig (leg and joint names, phase offsets per leg): a 400 whose field names the setting. */
+export function assertFitsRig(setup: LegSetup, rig: Rig, field = 'setup'): void {
+  try {
+    checkLegSetupForRig(setup, rig);
+  } catch (err) {
+    const message = (err as Error).message;
+    const [path] = message.split(':');
+    throw new HttpError(400, 'invalid_input', `This leg setup does not fit the character: ${message}.`, { [`${field}.${path}`]: message });
+  }
+}
+
+/** Saves a new version (numbered after the character's newest) in one transaction. */
+export async function saveLegSetup(
+  db: Db,
+  v: { teamId: number; characterId: number; userId: number; setup: LegSetup; note: string; source: LegSetupSource; now: number },
+): Promise<number> {
+  return db.transaction(async (trx) => {
+    const top = await trx('leg_setups').where({ character_id: v.characterId }).max<{ n: number | null }>({ n: 'version' }).first();
+    const [id] = await trx('leg_setups').insert({
+      team_id: v.teamId,
+      character_id: v.characterId,
+      version: Number(top?.n ?? 0) + 1,
+      setup: JSON.stringify(v.setup),
+      note: v.note,
+      source: v.source,
+      created_by: v.userId,
+      created_at: v.now,
+    });
+    return typeof id === 'object' ? (id as { id: number }).id : id;
+  });
+}
+
+export interface ResolvedSetup {
+  setup: LegSetup;
+  legSetupId: number | null;
+  legSetupVersion: number | null;
+}
+
+/** Which setup a trial or dial-in runs: the version asked for, an unsaved one, else the newest version, else the defaults. */
+export async function resolveLegSetup(
+  db: Conn,
+  teamId: number,
+  character: WalkingCharacter,
+  ask: { legSetupId?: number; legSetup?: LegSetup },
+): Promise<ResolvedSetup> {
+  let resolved: ResolvedSetup;
+  if (ask.legSetupId !== undefined) {
+    const v = await findLegSetup(db, teamId, ask.legSetupId);
+    if (v.characterId !== character.id) throw new HttpError(400, 'invalid_input', `Leg setup ${ask.legSetupId} belongs to another character.`, { legSetupId: 'This leg setup belongs to another character.' });
+    resolved = { setup: v.setup, legSetupId: v.id, legSetupVersion: v.version };
+  } else if (ask.legSetup) {
+    resolved = { setup: ask.legSetup, legSetupId: null, legSetupVersion: null };
+  } else {
+    const [newest] = await listLegSetups(db, teamId, character.id);
+    resolved = newest
+      ? { setup: newest.setup, legSetupId: newest.id, legSetupVersion: newest.version }
+      : { setup: defaultLegSetup(character.rig), legSetupId: null, legSetupVersion: null };
+  }
+  assertFitsRig(resolved.setup, character.rig, ask.legSetup ? 'legSetup' : 'legSetupId');
+  return resolved;
+}

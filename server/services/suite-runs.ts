@@ -1,0 +1,84 @@
+/**
+ * Suite runs for compare, publish and the regression check, in-process: a 60 s trial takes tens of milliseconds,
+ * so waiting on the job queue would only add latency. Trials are deterministic, so a run is cached by what
+ * decides it (character file and legs, leg setup, course versions) and reused.
+ */
+import crypto from 'node:crypto';
+import type { Db } from '../db';
+import { HttpError } from '../errors';
+import type { LegMapping } from '../../schemas/characters';
+import type { Skeleton } from '../../engine/rig/types';
+import { rigFromCharacter } from '../../engine/gait/character-rig';
+import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
+import type { Rig } from '../../engine/gait/rig';
+import { runSuite, type SuiteRun } from '../../engine/profile/run-suite';
+import { findSuite } from './suites';
+import { loadSuiteCourses, type LoadedCourse } from './courses';
+import type { StoredSkeleton } from './gltf-import-store';
+
+export interface TrialCharacter {
+  name: string;
+  sha256: string;
+  skeleton: Skeleton;
+  legs: LegMapping[];
+}
+
+export interface LoadedSuite {
+  id: number;
+  name: string;
+  courses: LoadedCourse[];
+}
+
+export function characterOfRow(row: { name: string; sha256: string; skeleton_json: string; legs_json: string }): TrialCharacter {
+  const stored = JSON.parse(row.skeleton_json) as StoredSkeleton;
+  return { name: row.name, sha256: row.sha256, skeleton: { joints: stored.joints }, legs: JSON.parse(row.legs_json) as LegMapping[] };
+}
+
+/** The character's walking rig; a mapping that does not fit is a 400 naming the leg. */
+export function rigOf(c: TrialCharacter): Rig {
+  try {
+    return rigFromCharacter(c.skeleton, c.legs, { name: c.name });
+  } catch (err) {
+    throw new HttpError(400, 'invalid_legs', `${c.name} cannot walk with its leg mapping: ${(err as Error).message}. Fix the legs on the character page.`);
+  }
+}
+
+/** Checks a setup against the rig; a setup that does not fit (leg names, phase offsets) is a 400. */
+export function setupFor(rig: Rig, setup: unknown | undefined): LegSetup {
+  const parsed = setup === undefined ? defaultLegSetup(rig) : LegSetupSchema.parse(setup);
+  try {
+    checkLegSetupForRig(parsed, rig);
+  } catch (err) {
+    throw new HttpError(400, 'invalid_leg_setup', `The leg setup does not fit ${rig.name}: ${(err as Error).message}`, { legSetup: (err as Error).message });
+  }
+  return parsed;
+}
+
+export async function loadSuite(db: Db, teamId: number, suiteId: number): Promise<LoadedSuite> {
+  const suite = await findSuite(db, teamId, suiteId);
+  const courses = await loadSuiteCourses(db, teamId, suiteId);
+  if (courses.length === 0) throw new HttpError(400, 'empty_suite', `The suite "${suite.name}" has no courses. Add a course to it first.`, { suiteId: 'This suite has no courses.' });
+  return { id: suite.id, name: suite.name, courses };
+}
+
+const cache = new Map<string, SuiteRun>();
+const CACHE_SIZE = 48;
+
+export function runCharacterSuite(c: TrialCharacter, setup: LegSetup, suite: LoadedSuite): SuiteRun {
+  const key = crypto
+    .createHash('sha256')
+    .update(JSON.stringify([c.sha256, c.legs, setup, suite.courses.map((k) => [k.id, k.version])]))
+    .digest('hex');
+  const hit = cache.get(key);
+  if (hit) return hit;
+  const rig = rigOf(c);
+  let run: SuiteRun;
+  try {
+    run = runSuite(rig, setup, suite.courses.map((k) => ({ name: k.name, heightfield: k.heightfield })));
+  } catch (err) {
+    throw new HttpError(400, 'trial_failed', `${c.name} could not walk the suite "${suite.name}": ${(err as Error).message}`);
+  }
+  if (cache.size >= CACHE_SIZE) cache.delete(cache.keys().next().value as string);
+  cache.set(key, run);
+  return run;
+}
