@@ -20,7 +20,8 @@ const TRIG_REFRESH = 64;
 
 /**
  * Forward kinematics from the current pose: joint world frames, per-DOF world
- * axes and pivots, the sole point (ws.foot) and sole normal (ws.footUp).
+ * axes, the sole point (ws.foot) and sole normal (ws.footUp). A rotational
+ * DOF's pivot is its joint's position (ws.jPos).
  * `from` > 0 recomputes only joints from that index on (the earlier ones must be current).
  *
  * The running frame lives in locals (p, R row-major r00..r22); each joint's
@@ -35,7 +36,6 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
   const dAxis = ws.dAxis;
   const dAxisCode = ws.dAxisCode;
   const dAxisW = ws.dAxisW;
-  const dPivot = ws.dPivot;
   const jOffset = ws.jOffset;
   const jRest = ws.jRest;
   const jKind = ws.jKind;
@@ -142,9 +142,6 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
           trigCos[d] = c;
           trigSin[d] = sn;
         }
-        dPivot[3 * d] = px;
-        dPivot[3 * d + 1] = py;
-        dPivot[3 * d + 2] = pz;
         const code = dAxisCode[d];
         if (code < 6) {
           // Axis-aligned (±X, ±Y, ±Z): the world axis is a column of R; rotate two columns.
@@ -244,11 +241,6 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
       dAxisW[3 * d + 6] = r02;
       dAxisW[3 * d + 7] = r12;
       dAxisW[3 * d + 8] = r22;
-      for (let k = 0; k < 9; k += 3) {
-        dPivot[3 * d + k] = px;
-        dPivot[3 * d + k + 1] = py;
-        dPivot[3 * d + k + 2] = pz;
-      }
       const qo = 4 * ws.jBall[j];
       const x = quat[qo];
       const y = quat[qo + 1];
@@ -300,9 +292,6 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
       px += wx * sl;
       py += wy * sl;
       pz += wz * sl;
-      dPivot[3 * d] = px;
-      dPivot[3 * d + 1] = py;
-      dPivot[3 * d + 2] = pz;
     }
     jPos[3 * j] = px;
     jPos[3 * j + 1] = py;
@@ -351,7 +340,8 @@ export function jacobian(
   const fy = ws.foot[1];
   const fz = ws.foot[2];
   const A = ws.dAxisW;
-  const P = ws.dPivot;
+  const P = ws.jPos;
+  const DJ = ws.dJoint;
   const K = ws.dKind;
   for (let i = 0; i < n; i++) {
     const ax = A[3 * i];
@@ -368,9 +358,10 @@ export function jacobian(
         out[c + 5] = 0;
       }
     } else {
-      const rx = fx - P[3 * i];
-      const ry = fy - P[3 * i + 1];
-      const rz = fz - P[3 * i + 2];
+      const pj = 3 * DJ[i];
+      const rx = fx - P[pj];
+      const ry = fy - P[pj + 1];
+      const rz = fz - P[pj + 2];
       out[c] = ay * rz - az * ry;
       out[c + 1] = az * rx - ax * rz;
       out[c + 2] = ax * ry - ay * rx;

@@ -173,9 +173,10 @@ function nullSpaceBias(ws: IKWorkspace, w: Float64Array): boolean {
       cy = ay;
       cz = az;
     } else {
-      const rx = kx - ws.dPivot[3 * i];
-      const ry = ky - ws.dPivot[3 * i + 1];
-      const rz = kz - ws.dPivot[3 * i + 2];
+      const pj = 3 * ws.dJoint[i];
+      const rx = kx - ws.jPos[pj];
+      const ry = ky - ws.jPos[pj + 1];
+      const rz = kz - ws.jPos[pj + 2];
       cx = ay * rz - az * ry;
       cy = az * rx - ax * rz;
       cz = ax * ry - ay * rx;
@@ -478,9 +479,9 @@ function ccdSweep(ws: IKWorkspace): number {
     const kind = ws.jKind[j];
     const d0 = ws.jDof0[j];
     if (kind === JOINT_BALL) {
-      const px = ws.dPivot[3 * d0];
-      const py = ws.dPivot[3 * d0 + 1];
-      const pz = ws.dPivot[3 * d0 + 2];
+      const px = ws.jPos[3 * j];
+      const py = ws.jPos[3 * j + 1];
+      const pz = ws.jPos[3 * j + 2];
       const r1x = ws.foot[0] - px;
       const r1y = ws.foot[1] - py;
       const r1z = ws.foot[2] - pz;
@@ -517,9 +518,9 @@ function ccdSweep(ws: IKWorkspace): number {
       if (kind === JOINT_SLIDER) {
         delta = ax * (t[0] - ws.foot[0]) + ay * (t[1] - ws.foot[1]) + az * (t[2] - ws.foot[2]);
       } else {
-        const px = ws.dPivot[3 * d];
-        const py = ws.dPivot[3 * d + 1];
-        const pz = ws.dPivot[3 * d + 2];
+        const px = ws.jPos[3 * j];
+        const py = ws.jPos[3 * j + 1];
+        const pz = ws.jPos[3 * j + 2];
         let r1x = ws.foot[0] - px;
         let r1y = ws.foot[1] - py;
         let r1z = ws.foot[2] - pz;

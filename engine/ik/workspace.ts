@@ -112,7 +112,6 @@ export interface IKWorkspace {
   // ---- forward kinematics output ----
   readonly jPos: Float64Array; // 3 per joint
   readonly jRot: Float64Array; // 9 per joint (world, row-major)
-  readonly dPivot: Float64Array; // 3 per DOF (world)
   readonly dAxisW: Float64Array; // 3 per DOF (world)
   readonly foot: Float64Array; // sole point, world
   readonly footUp: Float64Array; // sole normal, world
@@ -353,7 +352,6 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     rootRot,
     jPos: new Float64Array(3 * nJ),
     jRot: new Float64Array(9 * nJ),
-    dPivot: new Float64Array(3 * n),
     dAxisW: new Float64Array(3 * n),
     foot: new Float64Array(3),
     footUp: new Float64Array(3),
