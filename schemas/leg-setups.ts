@@ -1,6 +1,7 @@
 /** API shapes of leg setups: versions of a character's LegSetupSchema (engine/gait/leg-setup.ts), never redeclared here. */
 import { z } from 'zod';
 import { LegSetupSchema } from '../engine/gait/leg-setup';
+import type { Rig } from '../engine/gait/rig';
 
 export const legSetupSourceSchema = z.enum(['form', 'dial-in', 'seed']);
 export type LegSetupSource = z.infer<typeof legSetupSourceSchema>;
@@ -23,6 +24,8 @@ export const legSetupListSchema = z.object({
   versions: z.array(legSetupVersionSchema),
   defaults: LegSetupSchema,
   legNames: z.array(z.string()),
+  /** The walking rig (engine/gait/character-rig.ts) the live preview runs. */
+  rig: z.custom<Rig>(),
 });
 export type LegSetupList = z.infer<typeof legSetupListSchema>;
 

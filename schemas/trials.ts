@@ -4,6 +4,7 @@ import { CourseEncodingSchema } from '../engine/course/encoding';
 import { LegSetupSchema } from '../engine/gait/leg-setup';
 import { SeriesEncodingSchema } from '../engine/gait/series-encoding';
 import { TrialMetricsSchema } from '../engine/metrics/trial-metrics';
+import type { Rig } from '../engine/gait/rig';
 
 const idSchema = (what: string) => z.number({ error: `Pick ${what}.` }).int(`Pick ${what}.`).positive(`Pick ${what}.`);
 
@@ -55,6 +56,8 @@ export const trialDetailSchema = z.object({
   /** The course now; `courseChanged` says it was edited after the trial. Null when the course was deleted. */
   course: CourseEncodingSchema.nullable(),
   courseChanged: z.boolean(),
+  /** The character's walking rig as it is mapped now (engine/gait/character-rig.ts), for replay and re-solving a frame. */
+  rig: z.custom<Rig>(),
 });
 export type TrialDetail = z.infer<typeof trialDetailSchema>;
 

@@ -3,6 +3,7 @@ import type { Role } from '../schemas/roles';
 import { hashPassword } from '../server/services/accounts';
 import { seedDemoCharacters } from './demo-characters';
 import { seedDemoCourses } from './demo-courses';
+import { seedDemoTrials } from './demo-trials';
 import { seedDemoProfiles } from './demo-profiles';
 
 /** Demo-only sign-ins for the invented studio; never use these outside a local demo. */
@@ -20,6 +21,7 @@ export async function seedDemoStudio(db: Db, { now, dataDir }: { now: number; da
   const { teamId, ownerId } = await seedMembers(db, now);
   await seedDemoCharacters(db, teamId, ownerId, dataDir, now);
   await seedDemoCourses(db, teamId, ownerId, now);
+  await seedDemoTrials(db, teamId, ownerId, now);
   await seedDemoProfiles(db, teamId, ownerId, now);
   return { teamId };
 }

@@ -15,10 +15,22 @@ const RADII = ['0.1', '0.2', '0.35', '0.6'] as const;
 const STRENGTHS = ['0.25', '0.5', '1'] as const;
 
 /** Which brush, how wide (metres) and how strong (0–1 of its full effect per dab). */
-export function BrushBar({ value, onChange, disabled }: { value: BrushSettings; onChange(b: BrushSettings): void; disabled?: boolean }) {
+export function BrushBar({
+  value,
+  onChange,
+  disabled,
+  part = 'all',
+}: {
+  value: BrushSettings;
+  onChange(b: BrushSettings): void;
+  disabled?: boolean;
+  /** A phone shows the brush kind above the map and its size below it. */
+  part?: 'all' | 'kind' | 'size';
+}) {
   return (
     <View style={styles.bar}>
-      <ChoiceChips label="Brush" choices={KINDS} value={value.kind} onChange={(kind) => onChange({ ...value, kind })} disabled={disabled} />
+      {part !== 'size' ? <ChoiceChips label="Brush" choices={KINDS} value={value.kind} onChange={(kind) => onChange({ ...value, kind })} disabled={disabled} /> : null}
+      {part !== 'kind' ? (
       <View style={styles.pair}>
         <ChoiceChips
           label="Radius"
@@ -35,6 +47,7 @@ export function BrushBar({ value, onChange, disabled }: { value: BrushSettings; 
           disabled={disabled}
         />
       </View>
+      ) : null}
     </View>
   );
 }

@@ -1,5 +1,5 @@
 import { useCallback, useMemo, useRef, useState } from 'react';
-import { StyleSheet, Text, View, useWindowDimensions } from 'react-native';
+import { ScrollView, StyleSheet, Text, View, useWindowDimensions } from 'react-native';
 import { decodeCourse, encodeCourse, type CourseEncoding } from '../../engine/course/encoding';
 import { heightRange } from '../../engine/course/heightfield';
 import { courseUpdateSchema, COURSE_VERSION_CONFLICT, type CourseDetail, type CourseUpdate } from '../../schemas/courses';
@@ -33,7 +33,7 @@ export interface CourseEditorProps {
   onDelete(): Promise<void>;
 }
 
-const PROFILE_DEPTH_PHONE = 118;
+const PROFILE_DEPTH_PHONE = 104;
 const PROFILE_DEPTH_WIDE = 170;
 const SIDE_PANEL = 340;
 
@@ -58,6 +58,8 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   const [conflict, setConflict] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
   const [areaWidth, setAreaWidth] = useState(0);
+  const viewport = useRef<ScrollView>(null);
+  const atStart = useRef(false);
 
   const dirty = history.position !== savedPosition || name.trim() !== savedName;
 
@@ -142,7 +144,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
     if (!areaWidth) return null;
     return wide
       ? courseFrame(hf, 'right', areaWidth, Math.min(340, window.height * 0.4))
-      : courseFrame(hf, 'up', areaWidth - profileDepth - space.md, Math.max(300, window.height - 360));
+      : courseFrame(hf, 'up', areaWidth - profileDepth - space.md - 4, 8000);
   }, [hf, wide, areaWidth, window.height, profileDepth]);
 
   const figures = courseFigures({ ...detail.course, version: baseVersion, minHeight: range.min, maxHeight: range.max });
@@ -222,12 +224,27 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
         <>
           {toolbar}
           {messages}
-          {mayEdit ? <BrushBar value={brush} onChange={setBrush} /> : null}
-          <View style={styles.phoneArea} onLayout={(e) => setAreaWidth(Math.floor(e.nativeEvent.layout.width))}>
-            {map}
-            {profile}
+          {mayEdit ? <BrushBar value={brush} onChange={setBrush} part="kind" /> : null}
+          {/* The map fits the width and scrolls along the walk inside its own window: drag the profile to move along. */}
+          <View onLayout={(e) => setAreaWidth(Math.floor(e.nativeEvent.layout.width))}>
+            {frame ? (
+              <ScrollView
+                ref={viewport}
+                testID="sculpt-viewport"
+                // The walk starts at the bottom of the map: open the window there.
+                onContentSizeChange={() => {
+                  if (atStart.current) return;
+                  atStart.current = true;
+                  viewport.current?.scrollToEnd({ animated: false });
+                }}
+                style={[styles.viewport, { height: Math.min(frame.height + 24, Math.max(260, window.height - 420)) }]} contentContainerStyle={styles.phoneArea}>
+                {map}
+                {profile}
+              </ScrollView>
+            ) : null}
           </View>
           <RampLegend lo={range.lo} hi={range.hi} />
+          {mayEdit ? <BrushBar value={brush} onChange={setBrush} part="size" /> : null}
           {details}
         </>
       )}
@@ -244,6 +261,7 @@ const styles = StyleSheet.create({
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   status: { ...type.small, color: colors.graphite, flexBasis: '100%' },
   phoneArea: { flexDirection: 'row', gap: space.md, alignItems: 'flex-start' },
+  viewport: { borderRadius: 8, borderWidth: 1, borderColor: colors.rule, backgroundColor: colors.card },
   wideRow: { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' },
   wideMain: { flex: 1, gap: space.md, minWidth: 0 },
   widePanel: { width: SIDE_PANEL, gap: space.lg },

@@ -1,10 +1,10 @@
 /**
  * Preset legs built in code (tests, benchmarks, demo characters).
  *
- * Every preset is expressed in its root (hip socket) frame: +Y up, +Z forward,
- * +X to the character's left for a right leg... in practice the presets are
- * sagittally symmetric except for limits, and `mirrorChain` gives the other side.
- * The leg hangs along −Y at rest.
+ * Every preset is expressed in its root (hip socket) frame: +Y up, +Z forward
+ * (glTF convention), the leg hanging along −Y (the insect leg sticks out along
+ * +X). The presets are symmetric about the sagittal plane except for limits
+ * and sideways offsets; `mirrorChain` gives the other side.
  */
 import type { ChainJoint, LegChain } from './types';
 

@@ -98,11 +98,22 @@ export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
       perCourse: courses.map((c, k) => ({ courseId: c.id, courseName: c.name, footingScore: s.perCourse[k] })),
     });
     const total = results.reduce((s, r) => s + r.tried, 0);
+    // The plot of record: the searches' candidates interleaved in a fixed order, best so far along it.
+    const plot: DialInResult['history'] = [];
+    let running = -Infinity;
+    for (let k = 0; k < Math.max(...results.map((r) => r.scores.length)); k++) {
+      for (const r of results) {
+        if (k >= r.scores.length) continue;
+        running = Math.max(running, r.scores[k]);
+        plot.push({ candidate: plot.length + 1, score: r.scores[k], best: running });
+      }
+    }
     await db.transaction(async (trx) => {
       await consumeAllowance(trx, ctx.teamId, 'dialInCandidates', total, clock.now());
     });
     const result: DialInResult = {
       ...partial(),
+      history: thin(plot),
       candidatesTried: total,
       bestSoFar: best.score,
       before: scores(results[0].first),

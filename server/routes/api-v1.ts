@@ -30,6 +30,13 @@ function optionalUpload(cap: number): RequestHandler {
   };
 }
 
+/** RFC 9110 §13.1.2: a list of entity tags or "*", compared weakly (a W/ prefix is ignored). */
+function matchesNoneMatch(header: string | undefined, etag: string): boolean {
+  if (!header) return false;
+  if (header.trim() === '*') return true;
+  return header.split(',').some((t) => t.trim().replace(/^W\//, '') === etag);
+}
+
 /** A file's download name: the character, the version, and what it is. */
 const fileName = (character: string, version: number) => `${character.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'character'}-v${version}.leg-profile.json`;
 
@@ -73,7 +80,14 @@ export function apiV1Router(deps: AppDeps): Router {
     const id = parseId(req.params.id, 'That leg profile');
     const version = parseWith(versionParamSchema, req.params.version);
     const row = await findVersion(deps.db, team.id, id, version);
-    res.setHeader('ETag', `"${row.sha256}"`);
+    const etag = `"${row.sha256}"`;
+    res.setHeader('ETag', etag);
+    // Evaluated here rather than by Express's req.fresh, which ignores If-None-Match when the request says
+    // Cache-Control: no-cache — and fetch() adds exactly that to every conditional request (Fetch standard, HTTP-network-or-cache fetch).
+    if (matchesNoneMatch(req.get('if-none-match'), etag)) {
+      res.status(304).end();
+      return;
+    }
     res.setHeader('Content-Type', 'application/json; charset=utf-8');
     if (req.query.download !== undefined) {
       const name = (JSON.parse(row.document) as { character: { name: string } }).character.name;

@@ -26,6 +26,7 @@ export function legSetupsRouter(deps: AppDeps): Router {
       versions: await listLegSetups(deps.db, team.id, character.id),
       defaults: defaultLegSetup(character.rig),
       legNames: character.rig.legs.map((l) => l.name),
+      rig: character.rig,
     };
     res.json(body);
   });

@@ -40,7 +40,8 @@ export function trialsRouter(deps: AppDeps): Router {
   router.get('/:id', async (req, res) => {
     const id = idSchema.safeParse(req.params.id);
     if (!id.success) throw notFound('That trial');
-    res.json(await trialDetail(deps.db, viewerOf(req).team.id, id.data));
+    const teamId = viewerOf(req).team.id;
+    res.json(await trialDetail(deps.db, teamId, id.data, async (characterId) => (await loadWalkingCharacter(deps.db, teamId, characterId)).rig));
   });
 
   return router;

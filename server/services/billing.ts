@@ -1,7 +1,7 @@
 import type Stripe from 'stripe';
 import type { AppDeps } from '../deps';
 import type { Viewer } from '../middleware/auth';
-import type { BillingView, Invoice, OwnerBilling, PlanId } from '../../schemas/billing';
+import type { BillingView, Invoice, OwnerBilling, PlanId, PlansResponse } from '../../schemas/billing';
 import { HttpError } from '../errors';
 import { FREE_PLAN, isPaidPlan, planById, PLANS } from './plans';
 import { priceIds } from './billing-catalog';
@@ -40,7 +40,7 @@ export async function billingViewFor(deps: AppDeps, viewer: Viewer): Promise<Bil
   return view;
 }
 
-export function plansList(deps: AppDeps) {
+export function plansList(deps: AppDeps): PlansResponse {
   return { plans: [...PLANS], testMode: deps.payments.testMode };
 }
 

@@ -3,6 +3,7 @@ import type { Db } from '../db';
 import { notFound } from '../errors';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
 import type { TrialDetail, TrialSummary } from '../../schemas/trials';
+import type { Rig } from '../../engine/gait/rig';
 
 interface TrialRow {
   id: number;
@@ -51,7 +52,7 @@ export async function listTrials(db: Db, teamId: number, filter: { characterId?:
   return (await q).map(summaryOf);
 }
 
-export async function trialDetail(db: Db, teamId: number, id: number): Promise<TrialDetail> {
+export async function trialDetail(db: Db, teamId: number, id: number, rigOf: (characterId: number) => Promise<Rig>): Promise<TrialDetail> {
   const row = await base(db, teamId)
     .leftJoin('courses as c', function join() {
       this.on('c.id', '=', 't.course_id').andOn('c.team_id', '=', 't.team_id');
@@ -65,5 +66,6 @@ export async function trialDetail(db: Db, teamId: number, id: number): Promise<T
     series: JSON.parse(row.series),
     course: row.current_encoding ? JSON.parse(row.current_encoding) : null,
     courseChanged: row.current_version !== null && row.current_version !== row.course_version,
+    rig: await rigOf(row.character_id),
   };
 }

@@ -8,6 +8,9 @@ import { DEMO_DESIGNS } from '../../seeds/characters';
 import { anonymised, file, twistedRigGlb, wicket } from '../fixtures/gltf/build-fixtures';
 import type { Skeleton } from '../../engine/rig/types';
 
+// Generous ceiling for loading the glTF libraries on a busy machine; no test asserts time.
+jest.setTimeout(60_000);
+
 /** three.js's GLTFLoader (the reference loader) on the same bytes: the world matrix of each skin joint. */
 async function threeJointWorlds(glb: Uint8Array): Promise<THREE.Matrix4[]> {
   const loader = new GLTFLoader();

@@ -6,6 +6,9 @@ import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { anonymised, file, wicket } from '../fixtures/gltf/build-fixtures';
 import { footprint, signedIn, upload, type Agent } from './characters-helpers';
 
+// Generous ceiling for loading the glTF libraries on a busy machine; no test asserts time.
+jest.setTimeout(60_000);
+
 let t: TestApp;
 const as: Record<'owner' | 'designer' | 'programmer' | 'artlead' | 'outsider', Agent> = {} as never;
 

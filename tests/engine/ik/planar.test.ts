@@ -10,6 +10,7 @@ import {
   forwardKinematics,
   jacobian,
   pseudoinverseStep,
+  sdlsStep,
   setPose,
   solve,
   transposeStep,
@@ -93,6 +94,24 @@ describe('2-link planar arm (Spong et al. ch. 1 & 5; Craig)', () => {
     pseudoinverseStep(ws, w, 3, 1e-9, e, dq);
     expect(dq[0]).toBeCloseTo(-0.05, 6);
     expect(dq[1]).toBeCloseTo(-0.036603, 6);
+  });
+
+  test('SDLS (Buss & Kim 2005): with a large γmax it is the pseudoinverse step; no component exceeds γmax', () => {
+    const ws = createWorkspace(chain);
+    setPose(ws, [deg(30), deg(90)]);
+    forwardKinematics(ws);
+    jacobian(ws, 3);
+    const w = Float64Array.from([1, 1]);
+    const e = Float64Array.from([0.1, 0, 0, 0, 0, 0]);
+    const a = new Float64Array(2);
+    const b = new Float64Array(2);
+    sdlsStep(ws, w, 3, 100, e, a);
+    pseudoinverseStep(ws, w, 3, 1e-12, e, b);
+    expect(a[0]).toBeCloseTo(b[0], 12);
+    expect(a[1]).toBeCloseTo(b[1], 12);
+    const big = Float64Array.from([1.5, -2, 0, 0, 0, 0]);
+    sdlsStep(ws, w, 3, deg(45), big, a);
+    expect(Math.max(Math.abs(a[0]), Math.abs(a[1]))).toBeLessThanOrEqual(deg(45) + 1e-12);
   });
 
   test('Jacobian transpose step uses α = ⟨e, JJᵀe⟩/⟨JJᵀe, JJᵀe⟩ (Buss 2004)', () => {

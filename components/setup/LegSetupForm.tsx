@@ -1,0 +1,83 @@
+import { StyleSheet, Text, View } from 'react-native';
+import { GAIT_PATTERNS } from '../../engine/gait/patterns';
+import { SOLVER_METHODS } from '../../engine/ik/types';
+import { colors, space, type } from '../../constants/theme';
+import { useIsWide } from '../../hooks/useLayout';
+import { ChoiceChips } from '../ui/ChoiceChips';
+import { SectionHeading } from '../ui/SectionHeading';
+import { TextField } from '../ui/TextField';
+import { BODY_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, type Draft, type NumberField } from './setup-draft';
+import { LegLimitsEditor } from './LegLimitsEditor';
+
+const choices = (values: readonly string[]) => values.map((v) => ({ value: v, label: v }));
+const YES_NO = [
+  { value: 'true', label: 'on' },
+  { value: 'false', label: 'off' },
+];
+
+/** Every engine setting of a leg setup as a field; messages come from the shared LegSetupSchema. */
+export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draft: Draft; errors: Record<string, string>; onChange(path: string, value: string): void; legs: { name: string; joints: string[] }[]; disabled?: boolean }) {
+  const wide = useIsWide();
+  const numbers = (fields: NumberField[]) => (
+    <View style={[styles.fields, wide && styles.fieldsWide]}>
+      {fields.map((f) => (
+        <View key={f.path} style={wide ? styles.half : undefined}>
+          <TextField
+            label={f.unit ? `${f.label} (${f.unit})` : f.label}
+            hint={f.nullable}
+            value={draft[f.path]}
+            onChangeText={(v) => onChange(f.path, v)}
+            error={errors[f.path]}
+            inputMode={f.integer ? 'numeric' : 'decimal'}
+            editable={!disabled}
+            nativeID={`setup-${f.path.replace(/\./g, '-')}`}
+          />
+        </View>
+      ))}
+    </View>
+  );
+  return (
+    <View style={styles.wrap}>
+      <SectionHeading>Solver</SectionHeading>
+      <ChoiceChips label="Method" choices={choices(SOLVER_METHODS)} value={draft['solver.method']} onChange={(v) => onChange('solver.method', v)} error={errors['solver.method']} disabled={disabled} />
+      {numbers(SOLVER_FIELDS)}
+      <ChoiceChips label="Adaptive damping from" choices={choices(['manipulability', 'error'])} value={draft['solver.adaptiveMode']} onChange={(v) => onChange('solver.adaptiveMode', v)} disabled={disabled} />
+      <ChoiceChips label="Warm start" choices={[{ value: 'previous', label: 'last pose' }, { value: 'extrapolate', label: 'carried on' }]} value={draft['solver.warmStart']} onChange={(v) => onChange('solver.warmStart', v)} disabled={disabled} />
+      <ChoiceChips label="Re-solve joints at their limits" choices={YES_NO} value={draft['solver.resolveSaturated']} onChange={(v) => onChange('solver.resolveSaturated', v)} disabled={disabled} />
+      <ChoiceChips label="Turn the sole to the ground" choices={YES_NO} value={draft['solver.footOrientation']} onChange={(v) => onChange('solver.footOrientation', v)} disabled={disabled} />
+      <ChoiceChips label="Null-space bias" choices={[{ value: 'none', label: 'none' }, { value: 'rest', label: 'toward rest pose' }]} value={draft['solver.nullSpace.kind']} onChange={(v) => onChange('solver.nullSpace.kind', v)} disabled={disabled} />
+      {draft['solver.nullSpace.kind'] === 'rest' ? (
+        <TextField label="Null-space gain (0–1)" value={draft['solver.nullSpace.gain']} onChangeText={(v) => onChange('solver.nullSpace.gain', v)} error={errors['solver.nullSpace.gain']} inputMode="decimal" editable={!disabled} />
+      ) : null}
+
+      <SectionHeading>Gait</SectionHeading>
+      <ChoiceChips label="Pattern" choices={choices(GAIT_PATTERNS)} value={draft['gait.pattern']} onChange={(v) => onChange('gait.pattern', v)} error={errors['gait.pattern']} disabled={disabled} />
+      <TextField
+        label="Phase offsets (touchdown as a share of the cycle, one per leg)"
+        hint={`blank = the pattern's; legs in order: ${legs.map((l) => l.name).join(', ')}`}
+        value={draft['gait.phaseOffsets']}
+        onChangeText={(v) => onChange('gait.phaseOffsets', v)}
+        error={errors['gait.phaseOffsets'] ?? Object.entries(errors).find(([k]) => k.startsWith('gait.phaseOffsets.'))?.[1]}
+        editable={!disabled}
+      />
+      <ChoiceChips label="Timing" choices={[{ value: 'speed', label: 'by speed' }, { value: 'cycle', label: 'by cycle time' }]} value={draft['gait.timing.mode']} onChange={(v) => onChange('gait.timing.mode', v)} disabled={disabled} />
+      <TextField label={draft['gait.timing.mode'] === 'speed' ? 'Speed (m/s)' : 'Cycle time (s)'} value={draft['gait.timing.value']} onChangeText={(v) => onChange('gait.timing.value', v)} error={errors['gait.timing.value']} inputMode="decimal" editable={!disabled} />
+      {numbers(GAIT_FIELDS)}
+
+      <SectionHeading>Body</SectionHeading>
+      {numbers(BODY_FIELDS)}
+
+      <SectionHeading>Limits per leg</SectionHeading>
+      <Text style={styles.note}>Joint limits that replace the mapped ones for one leg (radians; metres for sliders).</Text>
+      <LegLimitsEditor value={draft.legs} onChange={(v) => onChange('legs', v)} legs={legs} errors={errors} disabled={disabled} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.md },
+  fields: { gap: space.md },
+  fieldsWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
+  half: { flexBasis: '47%', flexGrow: 1 },
+  note: { ...type.small, color: colors.graphite },
+});

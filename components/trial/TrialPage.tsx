@@ -1,0 +1,70 @@
+import { useMemo, useState } from 'react';
+import { StyleSheet, Text, View } from 'react-native';
+import { decodeCourse } from '../../engine/course/encoding';
+import { decodeSeries } from '../../engine/gait/series-encoding';
+import type { TrialDetail } from '../../schemas/trials';
+import { colors, space, type } from '../../constants/theme';
+import { useIsWide } from '../../hooks/useLayout';
+import { Screen } from '../layout/Screen';
+import { Card } from '../ui/Card';
+import { Notice } from '../ui/Notice';
+import { SectionHeading } from '../ui/SectionHeading';
+import { MetricCards } from './MetricCards';
+import { RunTrialPanel } from './RunTrialPanel';
+import { StumbleTimeline } from './StumbleTimeline';
+import { TrialPlayback } from './TrialPlayback';
+import { TrialPlots } from './TrialPlots';
+
+/** A stored trial: playback, stumble timeline, metric cards, plots, and running it again. Wide screens put playback and figures side by side. */
+export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDetail; characterName: string; mayRun: boolean }) {
+  const wide = useIsWide();
+  const series = useMemo(() => decodeSeries(detail.series), [detail.series]);
+  const course = useMemo(() => (detail.course ? decodeCourse(detail.course) : null), [detail.course]);
+  const [time, setTime] = useState(0);
+  const { trial } = detail;
+  const duration = Math.max(0, (series.length - 1) / series.rate);
+  const setupLabel = trial.legSetupVersion ? `leg setup v${trial.legSetupVersion}` : 'an unsaved leg setup';
+
+  const playback = course ? (
+    <TrialPlayback series={series} course={course} rig={detail.rig} time={time} onTime={setTime} height={wide ? 380 : 260} />
+  ) : (
+    <Notice tone="info" message="The course of this trial was deleted; its figures and plots remain." />
+  );
+  return (
+    <Screen title={`${characterName} on ${trial.courseName}`} lede={`Trial ${trial.id}: ${setupLabel}, ${trial.metrics.simSeconds.toFixed(1)} s simulated, ${trial.metrics.steps} steps.`}>
+      {detail.courseChanged ? <Notice tone="info" message={`The course was edited after this trial (it ran version ${trial.courseVersion}); the playback shows the course as it is now.`} /> : null}
+      <View style={[styles.split, wide && styles.splitWide]}>
+        <View style={[styles.col, wide && styles.main]}>
+          {playback}
+          <Card>
+            <SectionHeading>Stumbles</SectionHeading>
+            <StumbleTimeline events={trial.metrics.events} duration={duration} time={time} onSeek={setTime} legNames={trial.legNames} />
+          </Card>
+        </View>
+        <View style={[styles.col, wide && styles.side]}>
+          <MetricCards metrics={trial.metrics} />
+        </View>
+      </View>
+      <Card>
+        <SectionHeading>Plots</SectionHeading>
+        <TrialPlots series={series} legNames={trial.legNames} time={time} rig={detail.rig} setup={detail.setup} course={course} duration={trial.metrics.simSeconds} />
+      </Card>
+      {mayRun ? (
+        <Card>
+          <SectionHeading>Run again</SectionHeading>
+          <Text style={styles.note}>The same character and setup as a new trial of record.</Text>
+          <RunTrialPanel characterId={trial.characterId} legSetupId={trial.legSetupId ?? undefined} legSetup={trial.legSetupId ? undefined : detail.setup} initialCourseId={trial.courseId} />
+        </Card>
+      ) : null}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  split: { gap: space.lg },
+  splitWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  col: { gap: space.lg },
+  main: { flex: 3, minWidth: 0 },
+  side: { flex: 2, minWidth: 0 },
+  note: { ...type.small, color: colors.graphite },
+});

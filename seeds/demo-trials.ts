@@ -1,0 +1,56 @@
+import type { Db } from '../server/db';
+import { defaultLegSetup, type LegSetup } from '../engine/gait/leg-setup';
+import { runTrial } from '../engine/gait/trial';
+import { encodeSeries } from '../engine/gait/series-encoding';
+import { loadCourse } from '../server/services/courses';
+import { loadWalkingCharacter, saveLegSetup } from '../server/services/leg-setups';
+import { TRIAL_SECONDS } from '../schemas/trials';
+import { DEMO_SUITE } from './demo-courses';
+
+/**
+ * A first leg setup version for each demo character (the engine's defaults), a second for Burrow with the body
+ * lowered (its legs stand almost straight at rest), and a stored trial per character on the first demo courses, run
+ * here synchronously through the engine. Characters that already have a setup are left as they are.
+ */
+/** Courses of the demo suite each character gets a stored trial on (the first ones; a few trials are enough to show). */
+const SEEDED_COURSES = 2;
+
+export async function seedDemoTrials(db: Db, teamId: number, userId: number, now: number): Promise<void> {
+  const suite = await db('suites').where({ team_id: teamId, name: DEMO_SUITE }).first('id');
+  const courseIds: number[] = suite ? (await db('suite_courses').where({ suite_id: suite.id }).orderBy('position').select('course_id')).map((r) => r.course_id) : [];
+  const characters = await db('characters').where({ team_id: teamId }).orderBy('created_at').orderBy('id').select('id', 'name');
+  let tick = 0;
+  for (const c of characters) {
+    if (await db('leg_setups').where({ character_id: c.id }).first('id')) continue;
+    const character = await loadWalkingCharacter(db, teamId, c.id).catch(() => null);
+    if (!character) continue;
+    const at = now + 60_000 * tick++;
+    const defaults = defaultLegSetup(character.rig);
+    let setup: LegSetup = defaults;
+    let legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Engine defaults', source: 'seed', now: at });
+    if (c.name === 'Burrow') {
+      setup = { ...defaults, body: { ...defaults.body, heightOffset: -0.18 } };
+      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Body 18 cm lower: the legs stood almost straight and missed their reach.', source: 'seed', now: at + 1000 });
+    }
+    for (const courseId of courseIds.slice(0, SEEDED_COURSES)) {
+      const course = await loadCourse(db, teamId, courseId);
+      const result = runTrial(character.rig, setup, course.heightfield, { duration: TRIAL_SECONDS });
+      await db('trials').insert({
+        team_id: teamId,
+        character_id: c.id,
+        leg_setup_id: legSetupId,
+        setup: JSON.stringify(setup),
+        course_id: course.id,
+        course_name: course.name,
+        course_version: course.version,
+        job_id: null,
+        metrics: JSON.stringify(result.metrics),
+        leg_names: JSON.stringify(result.legNames),
+        series: JSON.stringify(encodeSeries(result.series)),
+        footing_score: result.metrics.footingScore,
+        created_by: userId,
+        created_at: at + 2000,
+      });
+    }
+  }
+}
