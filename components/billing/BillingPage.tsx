@@ -46,6 +46,8 @@ export function BillingPage({ checkoutReturn }: { checkoutReturn: CheckoutReturn
 function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBilling; plans: Plan[]; checkoutReturn: CheckoutReturn }) {
   const wide = useIsWide();
   const [confirming, setConfirming] = useState<PlanId | 'cancel' | null>(null);
+  // The note about the way back from checkout is about that moment; the next action makes it old news.
+  const [returnNote, setReturnNote] = useState(checkoutReturn);
   const checkout = useStartCheckout();
   const change = useChangePlan();
   const cancel = useCancelSubscription();
@@ -62,6 +64,7 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
   }
   function choose(plan: Plan) {
     [checkout, change, cancel, resume].forEach((m) => m.reset());
+    setReturnNote(undefined);
     if (!paid) checkout.mutate(plan.id);
     else setConfirming(plan.monthlyPrice === 0 ? 'cancel' : plan.id);
   }
@@ -76,8 +79,8 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
 
   return (
     <Screen title="Billing" lede="The studio’s plan, what it uses, and its invoices.">
-      {checkoutReturn === 'done' ? <Notice tone="info" message={paid ? `Payment received: the studio is on ${billing.plan.name}.` : 'Waiting for the payment service to confirm the payment…'} /> : null}
-      {checkoutReturn === 'cancelled' ? <Notice tone="info" message="Checkout cancelled. Nothing was charged and the plan is unchanged." /> : null}
+      {returnNote === 'done' ? <Notice tone="info" message={paid ? `Payment received: the studio is on ${billing.plan.name}.` : 'Waiting for the payment service to confirm the payment…'} /> : null}
+      {returnNote === 'cancelled' ? <Notice tone="info" message="Checkout cancelled. Nothing was charged and the plan is unchanged." /> : null}
       {problem ? <Notice message={problem} /> : null}
       <BillingCautions testMode={billing.testMode} />
 
@@ -88,10 +91,16 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
             freePlan={solo}
             confirmingCancel={confirming === 'cancel'}
             busy={cancel.isPending || resume.isPending}
-            onAskCancel={() => setConfirming('cancel')}
+            onAskCancel={() => {
+              setReturnNote(undefined);
+              setConfirming('cancel');
+            }}
             onCancel={() => cancel.mutate(undefined, { onSuccess: done })}
             onKeep={done}
-            onResume={() => resume.mutate()}
+            onResume={() => {
+              setReturnNote(undefined);
+              resume.mutate();
+            }}
           />
         </View>
         <View style={wide && styles.half}>
@@ -112,6 +121,7 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
             plan={plan}
             wide={wide}
             current={plan.id === billing.plan.id}
+            upgrade={plan.monthlyPrice > billing.plan.monthlyPrice}
             actionLabel={actionFor(plan)}
             busy={(checkout.isPending && checkout.variables === plan.id) || (change.isPending && change.variables === plan.id)}
             disabled={checkout.isPending || change.isPending}

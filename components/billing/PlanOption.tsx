@@ -12,10 +12,12 @@ const LIMIT_ROWS: { kind: LimitKind; label: string }[] = [
 ];
 
 /** One plan with its price and limits, and what choosing it would do from where the studio stands. */
-export function PlanOption({ plan, wide, current, actionLabel, busy, disabled, onChoose, children }: {
+export function PlanOption({ plan, wide, current, upgrade, actionLabel, busy, disabled, onChoose, children }: {
   plan: Plan;
   wide: boolean;
   current: boolean;
+  /** Upgrades are the page's call to action; moving down is offered quietly. */
+  upgrade: boolean;
   actionLabel: string | null;
   busy: boolean;
   disabled: boolean;
@@ -41,7 +43,7 @@ export function PlanOption({ plan, wide, current, actionLabel, busy, disabled, o
           </View>
         ))}
       </View>
-      {actionLabel ? <Button label={actionLabel} tone={current ? 'quiet' : 'action'} busy={busy} disabled={disabled} onPress={onChoose} /> : null}
+      {actionLabel ? <Button label={actionLabel} tone={upgrade ? 'action' : 'quiet'} busy={busy} disabled={disabled} onPress={onChoose} /> : null}
       {children}
     </View>
   );

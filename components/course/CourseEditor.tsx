@@ -226,6 +226,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
           {messages}
           {mayEdit ? <BrushBar value={brush} onChange={setBrush} part="kind" /> : null}
           {/* The map fits the width and scrolls along the walk inside its own window: drag the profile to move along. */}
+          <Text style={styles.hint}>The walk starts at the bottom of the map. Paint on the map; drag the profile beside it to move along.</Text>
           <View onLayout={(e) => setAreaWidth(Math.floor(e.nativeEvent.layout.width))}>
             {frame ? (
               <ScrollView
@@ -260,6 +261,7 @@ function rangeOf(hf: ReturnType<typeof decodeCourse>) {
 const styles = StyleSheet.create({
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   status: { ...type.small, color: colors.graphite, flexBasis: '100%' },
+  hint: { ...type.small, color: colors.graphite },
   phoneArea: { flexDirection: 'row', gap: space.md, alignItems: 'flex-start' },
   viewport: { borderRadius: 8, borderWidth: 1, borderColor: colors.rule, backgroundColor: colors.card },
   wideRow: { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' },

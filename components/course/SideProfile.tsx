@@ -92,7 +92,7 @@ export function SideProfile({ hf, frame, revision, depth }: { hf: Heightfield; f
           </>
         )}
       </Svg>
-      <Text style={styles.caption}>Profile on the walking line · heights ×{shape.exaggeration.toFixed(1)}</Text>
+      {up ? null : <Text style={styles.caption}>Profile on the walking line · heights ×{shape.exaggeration.toFixed(1)}</Text>}
     </View>
   );
 }

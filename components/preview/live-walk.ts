@@ -22,7 +22,7 @@ export interface LiveWalk {
 export function createLiveWalk(rig: Rig, setup: LegSetup, course: Heightfield): LiveWalk {
   let trial = createTrial(rig, setup, course, { duration: PREVIEW_SECONDS, recordRate: 1 });
   let started: number | null = null;
-  const joints = rig.legs.map(() => new Float64Array(0));
+  const joints: ArrayLike<number>[] = rig.legs.map(() => []);
   const walk: LiveWalk = {
     trial,
     advance(now) {

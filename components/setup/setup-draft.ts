@@ -59,7 +59,8 @@ function put(o: Record<string, unknown>, path: string, value: unknown) {
   at[keys[keys.length - 1]] = value;
 }
 
-const numberText = (v: unknown) => (v === null || v === undefined ? '' : String(v));
+/** Shown to 6 significant digits (engine defaults such as a speed from the Froude number carry 16). */
+const numberText = (v: unknown) => (v === null || v === undefined ? '' : typeof v === 'number' ? String(parseFloat(v.toPrecision(6))) : String(v));
 
 export function draftOf(s: LegSetup): Draft {
   const d: Draft = {};
@@ -74,7 +75,7 @@ export function draftOf(s: LegSetup): Draft {
   d['gait.pattern'] = s.gait.pattern;
   d['gait.phaseOffsets'] = s.gait.phaseOffsets ? s.gait.phaseOffsets.join(', ') : '';
   d['gait.timing.mode'] = s.gait.timing.mode;
-  d['gait.timing.value'] = String(s.gait.timing.mode === 'speed' ? s.gait.timing.speed : s.gait.timing.cycleTime);
+  d['gait.timing.value'] = numberText(s.gait.timing.mode === 'speed' ? s.gait.timing.speed : s.gait.timing.cycleTime);
   d.legs = JSON.stringify(s.legs);
   return d;
 }

@@ -14,6 +14,7 @@ const forwardKinematics = K.forwardKinematics;
 const jacobian = K.jacobian;
 const premultiplyQuat = K.premultiplyQuat;
 const dlsStepS = S.dlsStepS;
+const jacobianDlsStep3 = S.jacobianDlsStep3;
 const manipulability = S.manipulability;
 const pseudoinverseStep = S.pseudoinverseStep;
 const sdlsStep = S.sdlsStep;
@@ -370,7 +371,6 @@ function predictedResidual2(ws: IKWorkspace, m: number, e: Float64Array, d: Floa
 function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   const n = ws.nDof;
   const o = ws.options;
-  jacobian(ws, m === 6 ? 6 : 3);
   // Target clamp (Buss 2004; Buss & Kim 2005).
   const e = ws.e;
   const el2 = e[0] * e[0] + e[1] * e[1] + e[2] * e[2];
@@ -389,7 +389,19 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
     const g = ws.scalars[7];
     if (g !== 1) for (let i = 0; i < n; i++) ws.z[i] *= g;
   }
-  biasedStep(ws, code, m, e, hasBias, ws.weight, ws.sqrtWeight);
+  if (code === METHOD_DLS && m === 3 && !hasBias) {
+    // The common case (position task, fixed damping): Jacobian and step fused.
+    const sc = ws.scalars;
+    const l2 = o.lambda * o.lambda;
+    sc[0] = l2;
+    if (!jacobianDlsStep3(ws, ws.weight, e, ws.dq)) {
+      sc[0] = l2 + 1e-12;
+      dlsStepS(ws, ws.weight, 3, e, ws.dq);
+    }
+  } else {
+    jacobian(ws, m === 6 ? 6 : 3);
+    biasedStep(ws, code, m, e, hasBias, ws.weight, ws.sqrtWeight);
+  }
   limitStepSize(ws);
   let hits = 0;
   if (o.resolveSaturated && violates(ws)) {

@@ -90,6 +90,82 @@ export function dlsStep3(
   return true;
 }
 
+/**
+ * The position Jacobian (3 rows, into ws.J) and the DLS step in one pass: the
+ * columns are accumulated into JWJᵀ as they are made. λ² from ws.scalars[0].
+ * Same result as jacobian(ws, 3) followed by dlsStepS(ws, w, 3, e, dq).
+ */
+export function jacobianDlsStep3(ws: IKWorkspace, w: Float64Array, e: Float64Array, dq: Float64Array): boolean {
+  const n = ws.nDof;
+  const J = ws.J;
+  const AX = ws.dAxisW;
+  const P = ws.jPos;
+  const DJ = ws.dJoint;
+  const K = ws.dKind;
+  const fx = ws.foot[0];
+  const fy = ws.foot[1];
+  const fz = ws.foot[2];
+  const lambda2 = ws.scalars[0];
+  let a00 = lambda2;
+  let a01 = 0;
+  let a02 = 0;
+  let a11 = lambda2;
+  let a12 = 0;
+  let a22 = lambda2;
+  for (let i = 0; i < n; i++) {
+    const ax = AX[3 * i];
+    const ay = AX[3 * i + 1];
+    const az = AX[3 * i + 2];
+    let x: number, y: number, z: number;
+    if (K[i] === 2) {
+      x = ax;
+      y = ay;
+      z = az;
+    } else {
+      const pj = 3 * DJ[i];
+      const rx = fx - P[pj];
+      const ry = fy - P[pj + 1];
+      const rz = fz - P[pj + 2];
+      x = ay * rz - az * ry;
+      y = az * rx - ax * rz;
+      z = ax * ry - ay * rx;
+    }
+    const c = 6 * i;
+    J[c] = x;
+    J[c + 1] = y;
+    J[c + 2] = z;
+    const wi = w[i];
+    const wx = wi * x;
+    const wy = wi * y;
+    a00 += wx * x;
+    a01 += wx * y;
+    a02 += wx * z;
+    a11 += wy * y;
+    a12 += wy * z;
+    a22 += wi * z * z;
+  }
+  const e0 = e[0];
+  const e1 = e[1];
+  const e2 = e[2];
+  const c00 = a11 * a22 - a12 * a12;
+  const c01 = a02 * a12 - a01 * a22;
+  const c02 = a01 * a12 - a02 * a11;
+  const det = a00 * c00 + a01 * c01 + a02 * c02;
+  if (!(det > 1e-300)) return false;
+  const c11 = a00 * a22 - a02 * a02;
+  const c12 = a01 * a02 - a00 * a12;
+  const c22 = a00 * a11 - a01 * a01;
+  const inv = 1 / det;
+  const y0 = (c00 * e0 + c01 * e1 + c02 * e2) * inv;
+  const y1 = (c01 * e0 + c11 * e1 + c12 * e2) * inv;
+  const y2 = (c02 * e0 + c12 * e1 + c22 * e2) * inv;
+  for (let i = 0; i < n; i++) {
+    const c = 6 * i;
+    dq[i] = w[i] * (J[c] * y0 + J[c + 1] * y1 + J[c + 2] * y2);
+  }
+  return true;
+}
+
 /** DLS for any m (3 or 6) with damping λ²: dq = W·Jᵀ·(JWJᵀ + λ²I)⁻¹·e. */
 export function dlsStep(ws: IKWorkspace, w: Float64Array, m: number, lambda2: number, e: Float64Array, dq: Float64Array): boolean {
   ws.scalars[0] = lambda2;

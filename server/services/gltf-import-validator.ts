@@ -1,5 +1,5 @@
 /** Runs the Khronos glTF validator (the reference implementation of the glTF 2.0 specification's rules) and keeps its report. */
-import * as validator from 'gltf-validator';
+import { createRequire } from 'node:module';
 import type { ImportReport } from '../../schemas/characters';
 import type { Container } from './gltf-import-container';
 
@@ -8,9 +8,14 @@ export const MAX_REPORTED_ISSUES = 200;
 
 const SEVERITY = ['error', 'warning', 'info', 'hint'] as const;
 
+// The validator is several megabytes of compiled Dart: load it on the first upload, not whenever the app is built.
+const nodeRequire = createRequire(__filename);
+let validatorLib: typeof import('gltf-validator') | null = null;
+const validator = () => (validatorLib ??= nodeRequire('gltf-validator') as typeof import('gltf-validator'));
+
 export async function validateContainer(c: Container): Promise<ImportReport['validator']> {
   const bytes = new Uint8Array(c.main.buffer.buffer, c.main.buffer.byteOffset, c.main.buffer.byteLength);
-  const report = await validator.validateBytes(bytes, {
+  const report = await validator().validateBytes(bytes, {
     uri: c.main.originalname,
     format: c.format,
     maxIssues: MAX_REPORTED_ISSUES,

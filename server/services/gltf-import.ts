@@ -32,8 +32,6 @@ export interface ImportedCharacter {
   report: ImportReport;
 }
 
-
-
 async function readDocument(c: Container): Promise<Document> {
   const io = memoryNodeIO();
   try {

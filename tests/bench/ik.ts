@@ -1,6 +1,6 @@
 /**
  * Leg IK benchmark: `npm run bench:ik` (add `--json` for a machine-readable last line,
- * `--quick` for a short smoke run).
+ * `--quick` for a short smoke run, `--chain=human` for some legs only).
  *
  * Per preset leg, two workloads on seeded targets:
  *  - cold: 10,000 reachable targets (FK of seeded poses inside the limits) and
@@ -24,12 +24,14 @@ import { FdDlsPeer, ThreeCcdPeer } from './ik-peers';
 
 const args = new Set(process.argv.slice(2));
 const JSON_OUT = args.has('--json');
+/** `--chain=human` (comma-separated) runs only those preset legs. */
+const CHAINS = (process.argv.find((a) => a.startsWith('--chain='))?.slice(8).split(',') ?? null) as PresetName[] | null;
 const QUICK = args.has('--quick');
 
 const N_REACH = QUICK ? 1000 : 10000;
 const N_UNREACH = QUICK ? 100 : 1000;
 const N_TRACK = QUICK ? 1200 : 6000; // 100 s of walking at 60 Hz
-const MIN_TIME_MS = QUICK ? 60 : 250; // per (chain, workload, method) for our solvers
+const MIN_TIME_MS = QUICK ? 60 : 200; // per (chain, workload, method) for our solvers
 const PEER_REPS = QUICK ? 1 : 3; // timed passes of each peer on tracking (best kept)
 const PEER_REPS_COLD = QUICK ? 1 : 2; // … and on cold
 const SUCCESS_M = 1e-3;
@@ -290,16 +292,16 @@ function runFdPeer(chain: LegChain, w: Workload, stride: number): Row {
   };
   const its = new Int32Array(sub.count);
   const errs = new Float64Array(sub.count);
-  const pass = (): void => {
+  const pass = (count = sub.count): void => {
     peer.reset();
-    for (let k = 0; k < sub.count; k++) {
+    for (let k = 0; k < count; k++) {
       if (sub.cold) peer.reset();
       const r = peer.solve(sub.targets.subarray(3 * k, 3 * k + 3));
       its[k] = r.iterations;
       errs[k] = r.error;
     }
   };
-  pass(); // warm-up
+  pass(Math.ceil(sub.count / 5)); // warm-up (JIT)
   let best = Infinity;
   for (let rep = 0; rep < (w.cold ? PEER_REPS_COLD : PEER_REPS); rep++) {
     const t0 = cpu();
@@ -312,6 +314,7 @@ function runFdPeer(chain: LegChain, w: Workload, stride: number): Row {
 }
 
 const CCD_ITERATIONS = [1, 2, 3, 4, 6, 8, 12, 16, 24, 32, 40, 48, 64];
+// (the probe runs each on a subset; the chosen one is then timed on the full set)
 
 function runThreePeer(chain: LegChain, w: Workload, stride: number): Row {
   const peer = new ThreeCcdPeer(chain, 1);
@@ -352,8 +355,7 @@ function runThreePeer(chain: LegChain, w: Workload, stride: number): Row {
   }
   const chosen = CCD_ITERATIONS[rates.findIndex((r) => r >= bestRate)];
   const idx = pick(w.cold ? stride : 1);
-  run(idx, chosen); // warm-up
-  let r = run(idx, chosen);
+  let r = run(idx, chosen); // (the probe already warmed it up)
   for (let rep = 1; rep < (w.cold ? PEER_REPS_COLD : PEER_REPS); rep++) {
     const again = run(idx, chosen);
     if (again.sec < r.sec) r = again;
@@ -509,7 +511,8 @@ function main(): void {
   const rows: Row[] = [];
   const floorUsPerIter: Record<string, number> = {};
   const flops: Record<string, number> = {};
-  for (const name of PRESET_NAMES as readonly PresetName[]) {
+  const names = (PRESET_NAMES as readonly PresetName[]).filter((nm) => !CHAINS || CHAINS.includes(nm));
+  for (const name of names) {
     const chain = presetLeg(name);
     const ws = createWorkspace(chain);
     flops[name] = flopsPerIteration(ws);
@@ -550,7 +553,7 @@ function main(): void {
   for (const b of body) console.log(line(b));
   console.log('');
   console.log('flop floor of one solve iteration (FK + Jacobian + one DLS step):');
-  for (const name of PRESET_NAMES) console.log(`  ${name.padEnd(12)} ${String(flops[name]).padStart(5)} flops  ${fmt(floorUsPerIter[name], 4)} µs`);
+  for (const name of names) console.log(`  ${name.padEnd(12)} ${String(flops[name]).padStart(5)} flops  ${fmt(floorUsPerIter[name], 4)} µs`);
 
   const bd = breakdown(presetLeg('human'));
   console.log('');

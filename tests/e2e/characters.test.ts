@@ -23,7 +23,6 @@ async function newPage(size: { width: number; height: number }): Promise<Page> {
   const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
   const page = await context.newPage();
   page.on('pageerror', (err) => {
-    console.log('PAGEERROR', err.stack);
     throw err;
   });
   return page;
@@ -128,8 +127,9 @@ describe('characters in the browser', () => {
   });
 
   it('shows the table and a character page side by side on a wide screen', async () => {
-    const page = await newPage(WIDE);
+    const page = await newPage(PHONE);
     await signIn(page, 'owner@brassmoth.test');
+    await page.setViewportSize(WIDE);
     await page.goto(`${server.url}/characters`);
     await page.getByRole('table', { name: 'Characters' }).waitFor();
     await page.getByRole('columnheader', { name: 'File size' }).waitFor();

@@ -142,6 +142,15 @@ describe('sculpting a course', () => {
     const theirs = await courseByName(page, 'Scrap rubble, west yard');
     expect(theirs.course.version).toBe(3);
     expect(theirs.encoding).toEqual(after.encoding);
+
+    // The generator form with its live preview, at phone size.
+    await page.getByRole('link', { name: 'Courses' }).click();
+    await page.getByRole('button', { name: 'New course' }).click();
+    await page.getByLabel('Name', { exact: true }).fill('Short trench');
+    await page.getByRole('radio', { name: 'Trench' }).nth(1).click();
+    await page.getByLabel('Preview of the new course from above').waitFor();
+    await page.getByLabel('Preview of the new course from above').scrollIntoViewIfNeeded();
+    await screenshot(page, 'course-generator-phone');
   });
 
   it('sculpts with the mouse on a wide screen and shows the list, suites and generator form', async () => {

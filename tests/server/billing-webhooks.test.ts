@@ -122,3 +122,18 @@ it('the SDK refuses to talk to the fake with a live-looking key (the fake accept
   const live = new Stripe('sk_live_nope', { host: '127.0.0.1', port: t.payments.fake.port, protocol: 'http', maxNetworkRetries: 0 });
   await expect(live.customers.create({})).rejects.toMatchObject({ type: 'StripeAuthenticationError' });
 });
+
+it('activates the plan paid on either of two checkouts opened at once (each may have made its own customer)', async () => {
+  const other = await createStudio(t.db, 'twin');
+  const agent = await signedIn(t.app, other.members.owner.email);
+  const [first, second] = await Promise.all([
+    agent.post('/api/billing/checkout').send({ plan: 'crew' }),
+    agent.post('/api/billing/checkout').send({ plan: 'studio' }),
+  ]);
+  expect([first.status, second.status]).toEqual([200, 200]);
+  const paid = await payOnCheckoutPage(first.body.url, '4242 4242 4242 4242');
+  expect(paid.status).toBe(303);
+  expect(await t.db('team_billing').where({ team_id: other.teamId }).first()).toMatchObject({ plan: 'crew', status: 'active' });
+  // The other checkout is still open, but paying it now would make a second subscription: Treadle refuses new ones.
+  expect((await agent.post('/api/billing/checkout').send({ plan: 'studio' })).status).toBe(409);
+});

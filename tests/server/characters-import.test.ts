@@ -1,8 +1,10 @@
 import fs from 'node:fs';
+import * as validator from 'gltf-validator';
 import { testApp, type TestApp } from '../support/test-app';
 import { seedDemoStudio } from '../../seeds/demo-studio';
 import { characterDetailSchema, characterUploadResultSchema } from '../../schemas/characters';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
+import { DEMO_DESIGNS } from '../../seeds/characters';
 import { brokenCorpus, file, wicketAsGltf, wicket, type BrokenCase } from '../fixtures/gltf/build-fixtures';
 import { footprint, signedIn, upload, type Agent } from './characters-helpers';
 
@@ -23,6 +25,15 @@ beforeAll(async () => {
   corpus = await brokenCorpus();
 });
 afterAll(() => t.cleanup());
+
+describe('the demo characters', () => {
+  it.each(DEMO_DESIGNS.map((d) => [d.name, d] as const))('%s passes the Khronos glTF validator with no errors and no warnings', async (_name, design) => {
+    // Reference: the Khronos gltf-validator package, which implements the glTF 2.0 specification's rules.
+    const report = await validator.validateBytes(await buildCharacterGlb(design), { format: 'glb' });
+    expect(report.issues.numErrors).toBe(0);
+    expect(report.issues.numWarnings).toBe(0);
+  });
+});
 
 describe('broken uploads', () => {
   it('refuses each with its own code and message, leaves no row or file behind, and keeps serving', async () => {

@@ -4,7 +4,10 @@ import { DEMO_COURSES, DEMO_SUITE, seedDemoCourses } from '../../seeds/demo-cour
 import { CODE_STAIRS } from '../../engine/course/generators';
 import { heightAt } from '../../engine/course/sample';
 import { loadCourse, loadSuiteCourses } from '../../server/services/courses';
-import { countRows, demoAgents, type Agent, type Who } from './courses-helpers';
+import { countRows, studioWithCourses, type Agent, type Who } from './courses-helpers';
+
+// The machine is shared: give set-up room, never assert on time.
+jest.setTimeout(60_000);
 
 let t: TestApp;
 let as: Record<Who, Agent>;
@@ -13,7 +16,7 @@ let demoIds: Record<string, number>;
 
 beforeAll(async () => {
   t = await testApp();
-  ({ as, teamId } = await demoAgents(t));
+  ({ as, teamId } = await studioWithCourses(t));
   const { courses } = courseListSchema.parse((await as.owner.get('/api/courses')).body);
   demoIds = Object.fromEntries(courses.map((c) => [c.name, c.id]));
 });

@@ -6,7 +6,10 @@ import { applyBrush } from '../../engine/course/brushes';
 import { heightAt } from '../../engine/course/sample';
 import { createHeightfieldGrid } from '../../engine/course/heightfield';
 import { loadCourse } from '../../server/services/courses';
-import { countRows, demoAgents, type Agent, type Who } from './courses-helpers';
+import { countRows, studioWithCourses, type Agent, type Who } from './courses-helpers';
+
+// The machine is shared: give set-up room, never assert on time.
+jest.setTimeout(60_000);
 
 let t: TestApp;
 let as: Record<Who, Agent>;
@@ -14,7 +17,7 @@ let teamId: number;
 
 beforeAll(async () => {
   t = await testApp();
-  ({ as, teamId } = await demoAgents(t));
+  ({ as, teamId } = await studioWithCourses(t));
 });
 afterAll(() => t.cleanup());
 
@@ -37,7 +40,7 @@ describe('creating and reading courses', () => {
   it('makes a course from a generator recipe and stores the heights the engine generates', async () => {
     const made = await create(as.designer, { name: 'Curb by the gate', generator: curbRecipe });
     expect(made.course).toMatchObject({ name: 'Curb by the gate', version: 1, cols: 21, rows: 41, generatorKinds: ['flat', 'curb'] });
-    expect(made.course.createdBy.name).toBe('Dario Moth');
+    expect(made.course.createdBy.name).toBe('designer of yard');
     expect(made.generator?.segments).toHaveLength(2);
     // The stored encoding is the engine's own encoding of the generated field (1 mm quantum).
     expect(made.encoding).toEqual(encodeCourse(generateCourse(curbRecipe)));
@@ -113,7 +116,7 @@ describe('saving with a version check', () => {
     expect(heightAt(decodeCourse(saved.encoding), 0, 0.5)).toBeCloseTo(0.05, 9);
     const renamed = await as.owner.put(`/api/courses/${made.course.id}`).send({ baseVersion: 2, name: 'Sculpted' });
     expect(renamed.body.course).toMatchObject({ name: 'Sculpted', version: 3 });
-    expect(renamed.body.course.updatedBy.name).toBe('Ottilie Brass');
+    expect(renamed.body.course.updatedBy.name).toBe('owner of yard');
   });
 
   it('answers 409 to a save based on a stale version and keeps the newer save', async () => {
@@ -128,7 +131,7 @@ describe('saving with a version check', () => {
     const stale = await as.designer.put(`/api/courses/${id}`).send({ baseVersion: 1, encoding: encodeCourse(mine) });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('version_conflict');
-    expect(stale.body.error.message).toMatch(/Ottilie Brass.*version 1.*version 2.*Reload it, or save your edit as a copy/);
+    expect(stale.body.error.message).toMatch(/owner of yard.*version 1.*version 2.*Reload it, or save your edit as a copy/);
     expect(stale.body.error.fields).toEqual({ baseVersion: 'The course is now at version 2.' });
     const now = courseDetailSchema.parse((await as.designer.get(`/api/courses/${id}`)).body);
     expect(now.course.version).toBe(2);

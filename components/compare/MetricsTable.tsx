@@ -1,0 +1,103 @@
+import { useState } from 'react';
+import { StyleSheet, Text, View } from 'react-native';
+import { bestIndex, METRIC_GROUPS, METRIC_ROWS, type MetricGroup, type MetricRow } from '../../engine/profile/metric-rows';
+import { colors, fonts, space, type } from '../../constants/theme';
+import type { CompareResult } from '../../hooks/useCompare';
+import { useIsWide } from '../../hooks/useLayout';
+import { ChoiceChips } from '../ui/ChoiceChips';
+import { ENTRY_STYLES } from './entryStyles';
+
+type Entry = CompareResult['entries'][number];
+
+const fmt = (v: number | null, digits: number) => (v === null ? '—' : v.toFixed(digits));
+const signed = (v: number, digits: number) => `${v > 0 ? '+' : v < 0 ? '−' : '±'}${Math.abs(v).toFixed(digits)}`;
+
+function Row({ row, entries }: { row: MetricRow; entries: Entry[] }) {
+  const values = entries.map((e) => row.value(e.metrics));
+  const best = bestIndex(row, values);
+  const allSame = values.every((v) => v === values[0]);
+  return (
+    <View role="row" style={styles.row}>
+      <View role="rowheader" style={styles.labelCell}>
+        <Text style={styles.label}>{row.label}</Text>
+        <Text style={styles.unit}>
+          {row.unit ? `${row.unit} · ` : ''}
+          {row.better === 'higher' ? 'higher is better' : 'lower is better'}
+        </Text>
+      </View>
+      {values.map((v, i) => {
+        const isBest = i === best && !allSame;
+        const diff = v !== null && best >= 0 && values[best] !== null && !isBest && !allSame ? v - (values[best] as number) : null;
+        return (
+          <View key={entries[i].pick} role="cell" style={[styles.cell, isBest && styles.bestCell]} aria-label={`${entries[i].characterName}: ${fmt(v, row.digits)}${isBest ? ', best' : ''}`}>
+            <Text style={[styles.value, isBest && styles.bestValue]}>
+              {isBest ? '★ ' : ''}
+              {fmt(v, row.digits)}
+            </Text>
+            {diff !== null ? <Text style={styles.diff}>{signed(diff, row.digits)}</Text> : isBest ? <Text style={styles.bestWord}>best</Text> : null}
+          </View>
+        );
+      })}
+    </View>
+  );
+}
+
+/** Metrics side by side, the best of each row starred; phone: one group at a time, wide: all of them. */
+export function MetricsTable({ entries }: { entries: Entry[] }) {
+  const wide = useIsWide();
+  const [group, setGroup] = useState<MetricGroup>('score');
+  const groups = wide ? METRIC_GROUPS : METRIC_GROUPS.filter((g) => g.group === group);
+  return (
+    <View style={styles.wrap}>
+      {wide ? null : <ChoiceChips label="Metric group" choices={METRIC_GROUPS.map((g) => ({ value: g.group as MetricGroup, label: g.label }))} value={group} onChange={(g: MetricGroup) => setGroup(g)} />}
+      <View role="table" aria-label="Metrics side by side" style={styles.table}>
+        <View role="row" style={[styles.row, styles.head]}>
+          <Text role="columnheader" style={[styles.labelCell, styles.headText]}>
+            Metric
+          </Text>
+          {entries.map((e, i) => (
+            <View key={e.pick} role="columnheader" style={styles.cell}>
+              <View style={[styles.swatch, { backgroundColor: ENTRY_STYLES[i].color }]} />
+              <Text style={styles.headText} numberOfLines={1}>
+                {e.characterName}
+              </Text>
+              <Text style={styles.unit} numberOfLines={1}>
+                {e.label.split(' · ')[1] ?? ''}
+              </Text>
+            </View>
+          ))}
+        </View>
+        {groups.map((g) => (
+          <View key={g.group}>
+            <Text role="row" style={styles.groupTitle}>
+              {g.label}
+            </Text>
+            {METRIC_ROWS.filter((r) => r.group === g.group).map((r) => (
+              <Row key={r.key} row={r} entries={entries} />
+            ))}
+          </View>
+        ))}
+      </View>
+      <Text style={styles.unit}>★ marks the best in each row; the small figures are each entry's difference from the best.</Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.md },
+  table: { borderTopWidth: 1, borderTopColor: colors.rule },
+  head: { backgroundColor: colors.paperDeep },
+  headText: { fontFamily: fonts.bodyStrong, fontSize: 13, color: colors.ink, textAlign: 'right' },
+  row: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.rule, alignItems: 'stretch' },
+  groupTitle: { fontFamily: fonts.headingMedium, fontSize: 15, color: colors.ink, paddingTop: space.md, paddingBottom: space.xs },
+  labelCell: { flex: 1.6, paddingVertical: space.sm, paddingRight: space.sm, justifyContent: 'center', textAlign: 'left' },
+  label: { fontFamily: fonts.bodyMedium, fontSize: 14, color: colors.ink },
+  unit: { ...type.small, color: colors.graphite, fontSize: 12 },
+  cell: { flex: 1, paddingVertical: space.sm, paddingHorizontal: space.xs, alignItems: 'flex-end', justifyContent: 'center', minWidth: 0 },
+  bestCell: { backgroundColor: '#E4EDDF' },
+  value: { fontFamily: fonts.mono, fontSize: 14, color: colors.ink, textAlign: 'right' },
+  bestValue: { fontFamily: fonts.monoMedium },
+  diff: { fontFamily: fonts.mono, fontSize: 12, color: colors.graphite, textAlign: 'right' },
+  bestWord: { fontFamily: fonts.bodyMedium, fontSize: 12, color: colors.moss },
+  swatch: { width: 18, height: 3, borderRadius: 2, marginBottom: 2 },
+});

@@ -1,0 +1,83 @@
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { StyleSheet, Text, View } from 'react-native';
+import { decodeCourse } from '../../engine/course/encoding';
+import type { LegSetup } from '../../engine/gait/leg-setup';
+import type { Rig } from '../../engine/gait/rig';
+import { STUMBLE_KINDS, type StumbleKind } from '../../engine/metrics/stumble-thresholds';
+import { colors, fonts, space, type } from '../../constants/theme';
+import { useCourse, useCourses } from '../../hooks/useCourses';
+import { ChoiceChips } from '../ui/ChoiceChips';
+import { Notice } from '../ui/Notice';
+import { StumbleGlyph } from '../trial/StumbleGlyph';
+import { STUMBLE_LABELS } from '../trial/stumble-glyphs';
+import { WalkView } from '../trial/WalkView';
+import { createLiveWalk, type LiveWalk } from './live-walk';
+
+/**
+ * The same engine as a trial of record, running in the browser at display rate with the form's current
+ * setup over a chosen course; a change in the form restarts it at once. The stored trial stays the number
+ * of record: these counts are a preview.
+ */
+export function LivePreview({ rig, setup, problem }: { rig: Rig; setup: LegSetup | null; problem: string | null }) {
+  const courses = useCourses();
+  const [courseId, setCourseId] = useState<string | undefined>(undefined);
+  useEffect(() => {
+    if (!courseId && courses.data?.courses.length) setCourseId(String(courses.data.courses[0].id));
+  }, [courseId, courses.data]);
+  const course = useCourse(Number(courseId ?? 0));
+  const heightfield = useMemo(() => (course.data ? decodeCourse(course.data.encoding) : null), [course.data]);
+  const [error, setError] = useState<string | null>(null);
+  const walk = useMemo<LiveWalk | null>(() => {
+    if (!heightfield || !setup) return null;
+    try {
+      setError(null);
+      return createLiveWalk(rig, setup, heightfield);
+    } catch (err) {
+      setError((err as Error).message);
+      return null;
+    }
+  }, [rig, setup, heightfield]);
+  const walkRef = useRef(walk);
+  walkRef.current = walk;
+  const [counts, setCounts] = useState<Record<StumbleKind, number> | null>(null);
+  useEffect(() => {
+    const timer = setInterval(() => setCounts(walkRef.current?.counts() ?? null), 500);
+    return () => clearInterval(timer);
+  }, []);
+
+  return (
+    <View style={styles.wrap} testID="live-preview">
+      <ChoiceChips label="Preview course" choices={(courses.data?.courses ?? []).map((c) => ({ value: String(c.id), label: c.name }))} value={courseId} onChange={setCourseId} />
+      {heightfield && walk ? (
+        <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={() => walkRef.current?.advance(performance.now()) ?? null} height={260} label="Live preview of the walk with the settings in the form" />
+      ) : (
+        <View style={styles.placeholder}>
+          <Text style={styles.note}>{courses.data && !courses.data.courses.length ? 'Make a course to preview the walk on.' : 'Loading the course…'}</Text>
+        </View>
+      )}
+      {problem ? <Notice tone="info" message={`The preview keeps the last valid settings: ${problem}`} /> : null}
+      {error ? <Notice message={error} /> : null}
+      <View style={styles.counts}>
+        {STUMBLE_KINDS.map((k) => (
+          <View key={k} style={styles.count}>
+            <StumbleGlyph kind={k} />
+            <Text style={styles.countText}>
+              {STUMBLE_LABELS[k]} <Text style={styles.fig}>{counts ? counts[k] : 0}</Text>
+            </Text>
+          </View>
+        ))}
+      </View>
+      <Text style={styles.note}>Preview only: run a trial for figures of record.</Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  placeholder: { height: 260, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperDeep, borderRadius: 16 },
+  counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  count: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
+  countText: { ...type.small, color: colors.ink },
+  fig: { fontFamily: fonts.mono },
+  note: { ...type.small, color: colors.graphite },
+});

@@ -1,0 +1,120 @@
+import { useMemo, useRef, useState } from 'react';
+import { StyleSheet, Text, View } from 'react-native';
+import { Link } from 'expo-router';
+import type { LegSetup } from '../../engine/gait/leg-setup';
+import type { LegSetupList } from '../../schemas/leg-setups';
+import { colors, space, type } from '../../constants/theme';
+import { useIsWide } from '../../hooks/useLayout';
+import { useSaveLegSetup } from '../../hooks/useLegSetups';
+import { Screen } from '../layout/Screen';
+import { LivePreview } from '../preview/LivePreview';
+import { RunTrialPanel } from '../trial/RunTrialPanel';
+import { Button } from '../ui/Button';
+import { Card } from '../ui/Card';
+import { Notice } from '../ui/Notice';
+import { SectionHeading } from '../ui/SectionHeading';
+import { TextField } from '../ui/TextField';
+import { LegSetupForm } from './LegSetupForm';
+import { checkDraft, draftOf, type Draft } from './setup-draft';
+import { VersionList } from './VersionList';
+
+/** The leg setup of one character: the form, the live preview beside it, saved versions, and running a trial. */
+export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean }) {
+  const wide = useIsWide();
+  const start = list.versions[0]?.setup ?? list.defaults;
+  const [draft, setDraft] = useState<Draft>(() => draftOf(start));
+  const [note, setNote] = useState('');
+  const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
+  const [message, setMessage] = useState<{ tone: 'info' | 'problem'; text: string } | null>(null);
+  const save = useSaveLegSetup(characterId);
+  const checked = useMemo(() => checkDraft(draft), [draft]);
+  const lastValid = useRef<LegSetup>(start);
+  if (checked.setup) lastValid.current = checked.setup;
+  const previewSetup = checked.setup ?? lastValid.current;
+  const errors = { ...(checked.errors ?? {}), ...serverErrors };
+  const legs = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => j.name) }));
+
+  const change = (path: string, value: string) => {
+    setDraft((d) => ({ ...d, [path]: value }));
+    setServerErrors({});
+    setMessage(null);
+  };
+
+  async function onSave() {
+    if (!checked.setup) {
+      setMessage({ tone: 'problem', text: 'Some settings need attention; see the messages beside them.' });
+      return;
+    }
+    try {
+      const saved = await save.mutateAsync({ setup: checked.setup, note });
+      setNote('');
+      setMessage({ tone: 'info', text: `Saved as version ${saved.legSetup.version}.` });
+    } catch (err) {
+      const fields = (err as { fields?: Record<string, string> }).fields ?? {};
+      setServerErrors(Object.fromEntries(Object.entries(fields).map(([k, v]) => [k.replace(/^setup\./, ''), v])));
+      setMessage({ tone: 'problem', text: (err as Error).message });
+    }
+  }
+
+  const form = (
+    <Card>
+      <LegSetupForm draft={draft} errors={errors} onChange={change} legs={legs} disabled={!mayEdit} />
+      {mayEdit ? (
+        <View style={styles.actions}>
+          <TextField label="Note for this version (optional)" value={note} onChangeText={setNote} error={serverErrors.note} />
+          {message ? <Notice tone={message.tone} message={message.text} /> : null}
+          <View style={styles.buttons}>
+            <Button label="Save as a new version" onPress={onSave} busy={save.isPending} />
+            <Button tone="quiet" label="Reset to defaults" onPress={() => { setDraft(draftOf(list.defaults)); setServerErrors({}); setMessage({ tone: 'info', text: 'The engine defaults are in the form; save to keep them.' }); }} />
+          </View>
+        </View>
+      ) : (
+        <Notice tone="info" message="Your role can read leg setups; owners and designers change them." />
+      )}
+    </Card>
+  );
+  const side = (
+    <View style={styles.col}>
+      <Card>
+        <SectionHeading>Live preview</SectionHeading>
+        <LivePreview rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} />
+      </Card>
+      {mayRun ? (
+        <Card>
+          <SectionHeading>Trial of record</SectionHeading>
+          <Text style={styles.note}>Runs the settings in the form (saved or not) on the server.</Text>
+          <RunTrialPanel characterId={characterId} legSetup={checked.setup ?? undefined} />
+        </Card>
+      ) : null}
+      <Card>
+        <SectionHeading>Versions</SectionHeading>
+        <VersionList versions={list.versions} onPick={(v) => { setDraft(draftOf(v.setup)); setMessage({ tone: 'info', text: `Version ${v.version} is in the form.` }); }} />
+        {mayDialIn ? (
+          <Link href={`/characters/dial-in/${characterId}`} style={styles.link}>
+            Dial in these settings automatically →
+          </Link>
+        ) : null}
+      </Card>
+    </View>
+  );
+  return (
+    <Screen title={`${characterName}: leg setup`} lede="Every setting of the legs: the solver, the gait and the body. Changes show in the preview at once.">
+      <View style={[styles.split, wide && styles.splitWide]}>
+        <View style={[styles.col, wide && styles.formCol]}>{wide ? form : side}</View>
+        <View style={[styles.col, wide && styles.sideCol]}>{wide ? side : form}</View>
+      </View>
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  split: { gap: space.lg },
+  splitWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  col: { gap: space.lg },
+  formCol: { flex: 3, minWidth: 0 },
+  sideCol: { flex: 2, minWidth: 0 },
+  actions: { gap: space.md },
+  buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  note: { ...type.small, color: colors.graphite },
+  link: { ...type.label, color: colors.ember, paddingVertical: space.md },
+});
