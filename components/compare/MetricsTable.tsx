@@ -22,7 +22,7 @@ function Row({ row, entries }: { row: MetricRow; entries: Entry[] }) {
         <Text style={styles.label}>{row.label}</Text>
         <Text style={styles.unit}>
           {row.unit ? `${row.unit} · ` : ''}
-          {row.better === 'higher' ? 'higher is better' : 'lower is better'}
+          {row.better === 'higher' ? 'higher is better' : row.better === 'lower' ? 'lower is better' : 'for reference'}
         </Text>
       </View>
       {values.map((v, i) => {
@@ -52,9 +52,9 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
       {wide ? null : <ChoiceChips label="Metric group" choices={METRIC_GROUPS.map((g) => ({ value: g.group as MetricGroup, label: g.label }))} value={group} onChange={(g: MetricGroup) => setGroup(g)} />}
       <View role="table" aria-label="Metrics side by side" style={styles.table}>
         <View role="row" style={[styles.row, styles.head]}>
-          <Text role="columnheader" style={[styles.labelCell, styles.headText]}>
-            Metric
-          </Text>
+          <View role="columnheader" style={styles.labelCell}>
+            <Text style={[styles.headText, styles.left]}>Metric</Text>
+          </View>
           {entries.map((e, i) => (
             <View key={e.pick} role="columnheader" style={styles.cell}>
               <View style={[styles.swatch, { backgroundColor: ENTRY_STYLES[i].color }]} />
@@ -85,6 +85,7 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
 
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
+  left: { textAlign: 'left' },
   table: { borderTopWidth: 1, borderTopColor: colors.rule },
   head: { backgroundColor: colors.paperDeep },
   headText: { fontFamily: fonts.bodyStrong, fontSize: 13, color: colors.ink, textAlign: 'right' },

@@ -15,7 +15,7 @@ export function ProfilePage({ detail, mayManageTokens }: { detail: ProfileDetail
   const fileName = `${profile.character.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}.leg-profile.json`;
   return (
     <View style={[styles.cols, wide && styles.wide]}>
-      <View style={styles.col}>
+      <View style={[styles.col, wide && styles.colWide]}>
         <Card>
           <SectionHeading>Versions</SectionHeading>
           <VersionList profileId={profile.id} characterName={profile.character.name} versions={versions} />
@@ -25,7 +25,7 @@ export function ProfilePage({ detail, mayManageTokens }: { detail: ProfileDetail
           <VersionDiff profileId={profile.id} versions={versions} />
         </Card>
       </View>
-      <View style={styles.col}>
+      <View style={[styles.col, wide && styles.colWide]}>
         <Card>
           <SectionHeading>Use it in a build</SectionHeading>
           <BuildUse profileId={profile.id} fileName={fileName} mayManageTokens={mayManageTokens} />
@@ -38,5 +38,6 @@ export function ProfilePage({ detail, mayManageTokens }: { detail: ProfileDetail
 const styles = StyleSheet.create({
   cols: { gap: space.lg },
   wide: { flexDirection: 'row', alignItems: 'flex-start' },
-  col: { flex: 1, gap: space.lg, minWidth: 0 },
+  col: { gap: space.lg },
+  colWide: { flex: 1, minWidth: 0 },
 });

@@ -117,7 +117,7 @@ function taskError(ws: IKWorkspace, orient: boolean): void {
   } else {
     errState[0] = 0;
   }
-  errState[2] = Math.sqrt(ex * ex + ey * ey + ez * ez);
+  errState[2] = ex * ex + ey * ey + ez * ez; // squared: the loop compares squares
 }
 
 /** Secondary-task joint velocity z (null-space bias); returns false when there is none. */
@@ -634,17 +634,18 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
   const wo = o.orientationWeight;
   forwardKinematics(ws);
   taskError(ws, orient);
-  let posErr = errState[2];
+  let posErr2 = errState[2];
   let ang = errState[0];
-  if (hist) hist[0] = orient ? Math.sqrt(posErr * posErr + wo * wo * ang * ang) : posErr;
+  if (hist) hist[0] = Math.sqrt(posErr2 + (orient ? wo * wo * ang * ang : 0));
   let it = 0;
   let hits = 0;
   let converged = false;
   const tol = o.tolerance;
+  const tol2 = tol * tol;
   const otol = o.orientationTolerance;
   const minStep = o.minStep;
   for (;;) {
-    if (posErr <= tol && (!orient || ang <= otol)) {
+    if (posErr2 <= tol2 && (!orient || ang <= otol)) {
       converged = true;
       break;
     }
@@ -660,18 +661,18 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
     }
     it++;
     taskError(ws, orient);
-    posErr = errState[2];
+    posErr2 = errState[2];
     ang = errState[0];
-    if (hist) hist[it] = orient ? Math.sqrt(posErr * posErr + wo * wo * ang * ang) : posErr;
+    if (hist) hist[it] = Math.sqrt(posErr2 + (orient ? wo * wo * ang * ang : 0));
     if (change < minStep) {
-      converged = posErr <= tol && (!orient || ang <= otol);
+      converged = posErr2 <= tol2 && (!orient || ang <= otol);
       break;
     }
   }
   if (ws.nBall > 0) syncBallPose(ws);
   const r = ws.result;
   r.iterations = it;
-  r.positionError = posErr;
+  r.positionError = Math.sqrt(posErr2);
   r.orientationError = ang;
   r.converged = converged;
   r.limitHits = hits;

@@ -9,7 +9,8 @@ export interface MetricRow {
   label: string;
   group: MetricGroup;
   unit: string;
-  better: 'higher' | 'lower';
+  /** 'neither' for figures that are context, not quality (how many steps a suite took). */
+  better: 'higher' | 'lower' | 'neither';
   /** Decimals shown. */
   digits: number;
   value: (m: SuiteMetrics) => number | null;
@@ -23,7 +24,7 @@ export const METRIC_GROUPS: readonly { group: MetricGroup; label: string }[] = [
 
 export const METRIC_ROWS: readonly MetricRow[] = [
   { key: 'footingScore', label: 'Footing score', group: 'score', unit: '', better: 'higher', digits: 1, value: (m) => m.footingScore },
-  { key: 'steps', label: 'Steps', group: 'score', unit: '', better: 'higher', digits: 0, value: (m) => m.steps },
+  { key: 'steps', label: 'Steps', group: 'score', unit: '', better: 'neither', digits: 0, value: (m) => m.steps },
   ...STUMBLE_KINDS.map(
     (k): MetricRow => ({ key: `stumbles.${k}`, label: k, group: 'stumbles', unit: '/100', better: 'lower', digits: 2, value: (m) => m.stumblesPer100Steps[k] }),
   ),
@@ -51,7 +52,7 @@ export function metricDeltas(before: SuiteMetrics, after: SuiteMetrics): MetricD
     const a = r.value(before);
     const b = r.value(after);
     const delta = a === null || b === null ? null : b - a;
-    const improved = delta === null || delta === 0 ? null : r.better === 'higher' ? delta > 0 : delta < 0;
+    const improved = delta === null || delta === 0 || r.better === 'neither' ? null : r.better === 'higher' ? delta > 0 : delta < 0;
     return { key: r.key, label: r.label, unit: r.unit, before: a, after: b, delta, improved };
   });
 }
@@ -59,6 +60,7 @@ export function metricDeltas(before: SuiteMetrics, after: SuiteMetrics): MetricD
 /** Index of the best value in a row (ties: the first), or -1 when no value is known. */
 export function bestIndex(row: MetricRow, values: readonly (number | null)[]): number {
   let best = -1;
+  if (row.better === 'neither') return best;
   values.forEach((v, i) => {
     if (v === null) return;
     const cur = best < 0 ? null : values[best];

@@ -30,7 +30,7 @@ bones.splice(3, 0, ...mirrorBones(bones.filter((b) => b.name === 'feeler_L'), '_
 function leg(s: 'L' | 'R', n: number): PartSpec[] {
   return [
     limb(bones, `coxa_${s}${n}`, `femur_${s}${n}`, 0.05, 'frame'),
-    limb(bones, `femur_${s}${n}`, `tibia_${s}${n}`, 0.045, 'accent'),
+    limb(bones, `femur_${s}${n}`, `tibia_${s}${n}`, 0.045, 'shell'),
     limb(bones, `tibia_${s}${n}`, `tarsus_${s}${n}`, 0.035, 'dark'),
   ];
 }

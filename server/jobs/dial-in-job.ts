@@ -49,6 +49,15 @@ function thin<T>(points: T[]): T[] {
   return out;
 }
 
+/** How the budget is split: one search from the base setup, and (from SPLIT_FROM on) a second from a seeded start. */
+export function planSearches(candidates: number, seed: number, dimensions: number): { budgets: number[]; starts: (number[] | null)[] } {
+  const searches = candidates >= SPLIT_FROM ? 2 : 1;
+  const rng = mulberry32(seed);
+  const budgets = Array.from({ length: searches }, (_, i) => Math.floor(candidates / searches) + (i < candidates % searches ? 1 : 0));
+  const starts = budgets.map((_, i) => (i === 0 ? null : Array.from({ length: dimensions }, () => rng.next())));
+  return { budgets, starts };
+}
+
 export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
   return async (ctx) => {
     const input = dialInJobInputSchema.parse(ctx.input);
@@ -56,10 +65,7 @@ export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
     const courses: LoadedCourse[] = [];
     for (const id of input.courseIds) courses.push(await loadCourse(db, ctx.teamId, id));
     const encodings = courses.map((c) => encodeCourse(c.heightfield));
-    const searches = input.candidates >= SPLIT_FROM ? 2 : 1;
-    const rng = mulberry32(input.seed);
-    const budgets = Array.from({ length: searches }, (_, i) => Math.floor(input.candidates / searches) + (i < input.candidates % searches ? 1 : 0));
-    const starts = budgets.map((_, i) => (i === 0 ? null : input.params.map(() => rng.next())));
+    const { budgets, starts } = planSearches(input.candidates, input.seed, input.params.length);
     const tried = budgets.map(() => 0);
     const history: DialInResult['history'] = [];
     let bestSoFar: number | null = null;

@@ -27,21 +27,28 @@ export function defaultThreads(env: NodeJS.ProcessEnv = process.env): number {
   return Math.max(1, os.availableParallelism?.() ?? os.cpus().length);
 }
 
-export function createPiscinaPool(threads = defaultThreads()): TaskPool {
-  const pool = new Piscina({ filename: WORKER_ENTRY, minThreads: threads, maxThreads: threads, idleTimeout: 60_000 });
+export function createPiscinaPool(threads = defaultThreads()): TaskPool & { eventLoopUtilization(): number[] } {
+  // Started on the first task, so a server or test app that runs no job never spawns a thread.
+  let started: Piscina | null = null;
+  const pool = () => (started ??= new Piscina({ filename: WORKER_ENTRY, minThreads: threads, maxThreads: threads, idleTimeout: 60_000 }));
   return {
     threads,
     async run<T>(name: WorkerTaskName, payload: unknown, onMessage: (message: unknown) => void, signal: AbortSignal): Promise<T> {
       const channel = new MessageChannel();
       channel.port1.on('message', onMessage);
       try {
-        return (await pool.run({ payload, port: channel.port2 }, { name, transferList: [channel.port2] as unknown as TransferList, signal })) as T;
+        return (await pool().run({ payload, port: channel.port2 }, { name, transferList: [channel.port2] as unknown as TransferList, signal })) as T;
       } finally {
         channel.port1.close();
       }
     },
+    /** Share of its life each worker thread spent running tasks (node:worker_threads eventLoopUtilization). */
+    eventLoopUtilization() {
+      return (started?.threads ?? []).map((w) => w.performance.eventLoopUtilization().utilization);
+    },
     async close() {
-      await pool.destroy();
+      await started?.destroy();
+      started = null;
     },
   };
 }

@@ -39,16 +39,30 @@ const EASE_S = 1; // tracking: seconds of ease-in from the standing pose
 
 const now = (): number => performance.now();
 /**
- * CPU time of this process, ms (user + system). The passes are timed with it,
- * not the wall clock: this machine is shared, and a descheduled process would
- * otherwise be charged for other work. After warm-up our solvers run on one
- * thread and allocate nothing, so this is their time on one core; the peers'
- * garbage collection threads are charged to them, as is fair.
+ * Pass timing: the smaller of the wall-clock and the process CPU time of the
+ * pass. Both over-count the solver's own time on its core: the wall clock
+ * counts time descheduled (this machine is shared), CPU time counts V8's
+ * helper threads (compiler, concurrent GC). The smaller is the tighter bound.
  */
 const cpu = (): number => {
   const u = process.cpuUsage();
   return (u.user + u.system) / 1000;
 };
+class PassTimer {
+  private c = 0;
+  private w = 0;
+  start(): void {
+    this.c = cpu();
+    this.w = now();
+  }
+  /** ms of the pass just ended. */
+  stop(): number {
+    const dc = cpu() - this.c;
+    const dw = now() - this.w;
+    return dc < dw ? dc : dw;
+  }
+}
+const timer = new PassTimer();
 
 interface Workload {
   name: 'cold' | 'tracking';
@@ -250,10 +264,10 @@ function runOurs(chain: LegChain, w: Workload, methods: readonly SolverMethod[])
     for (const st of states) {
       if (st.reps >= 2 && st.spent >= MIN_TIME_MS) continue;
       pending = true;
-      const t0 = cpu();
       const w0 = now();
+      timer.start();
       pass(st, n);
-      const dtm = cpu() - t0;
+      const dtm = timer.stop();
       st.bestWall = Math.min(st.bestWall, now() - w0);
       st.spent += dtm;
       st.reps++;
@@ -304,9 +318,9 @@ function runFdPeer(chain: LegChain, w: Workload, stride: number): Row {
   pass(Math.ceil(sub.count / 5)); // warm-up (JIT)
   let best = Infinity;
   for (let rep = 0; rep < (w.cold ? PEER_REPS_COLD : PEER_REPS); rep++) {
-    const t0 = cpu();
+    timer.start();
     pass();
-    best = Math.min(best, cpu() - t0);
+    best = Math.min(best, timer.stop());
   }
   const row = summarise(chain.name, sub, 'peer-fd-dls', best / 1000, its, errs);
   if (sub.count !== w.count) row.note = `every ${stride}th target`;
@@ -327,13 +341,13 @@ function runThreePeer(chain: LegChain, w: Workload, stride: number): Row {
     peer.setIterations(iters);
     const errs = new Float64Array(idx.length);
     peer.reset();
-    const t0 = cpu();
+    timer.start();
     for (let q = 0; q < idx.length; q++) {
       const k = idx[q];
       if (w.cold) peer.reset();
       errs[q] = peer.solve(w.targets.subarray(3 * k, 3 * k + 3));
     }
-    const sec = (cpu() - t0) / 1000;
+    const sec = timer.stop() / 1000;
     let ok = 0;
     let nr = 0;
     for (let q = 0; q < idx.length; q++)
@@ -451,9 +465,9 @@ function measureFlopRate(): number {
   let best = Infinity;
   const reps = 4000;
   for (let t = 0; t < 5; t++) {
-    const t0 = cpu();
+    timer.start();
     sink += kernel(reps);
-    best = Math.min(best, cpu() - t0);
+    best = Math.min(best, timer.stop());
   }
   if (sink === 42) console.log('');
   return (reps * 256 * 16) / (best / 1000);
@@ -472,9 +486,9 @@ function breakdown(chain: LegChain): { fk: number; jac: number; step: number; co
     for (let i = 0; i < N; i++) fn(i);
     let best = Infinity;
     for (let r = 0; r < 40; r++) {
-      const t0 = cpu();
+      timer.start();
       for (let i = 0; i < N; i++) fn(i);
-      best = Math.min(best, cpu() - t0);
+      best = Math.min(best, timer.stop());
     }
     return (best / N) * 1e6;
   };
@@ -544,7 +558,7 @@ function main(): void {
   const line = (cells: string[]) =>
     cells.map((c, i) => (i >= 3 && i <= 8 ? c.padStart(widths[i]) : c.padEnd(widths[i]))).join('  ');
   console.log(`IK benchmark (one core; success = final error < 1 mm on reachable targets)`);
-  console.log(`measured scalar flop rate: ${(flopRate / 1e9).toFixed(2)} GFlop/s; 1-min load average ${load0.toFixed(2)} at start, ${loadavg()[0].toFixed(2)} at end (passes timed in process CPU time, best pass kept; a loaded machine still costs some cache and frequency)`);
+  console.log(`measured scalar flop rate: ${(flopRate / 1e9).toFixed(2)} GFlop/s; 1-min load average ${load0.toFixed(2)} at start, ${loadavg()[0].toFixed(2)} at end (each pass timed by the smaller of wall clock and process CPU time, best pass kept; a loaded machine still costs cache and shared-core throughput)`);
   console.log(
     `defaults: λ = ${DEFAULT_OPTIONS.lambda} m, tolerance = ${DEFAULT_OPTIONS.tolerance} m, maxIterations = ${DEFAULT_OPTIONS.maxIterations}, maxStepAngle = ${DEFAULT_OPTIONS.maxStepAngle} rad`,
   );
@@ -555,28 +569,30 @@ function main(): void {
   console.log('flop floor of one solve iteration (FK + Jacobian + one DLS step):');
   for (const name of names) console.log(`  ${name.padEnd(12)} ${String(flops[name]).padStart(5)} flops  ${fmt(floorUsPerIter[name], 4)} µs`);
 
-  const bd = breakdown(presetLeg('human'));
-  console.log('');
-  console.log(
-    `human, measured per call: FK ${fmt(bd.fk, 1)} ns (${flopsFk(presetLeg('human'))} flops), position Jacobian ${fmt(bd.jac, 1)} ns, DLS step ${fmt(bd.step, 1)} ns, already-converged solve (FK + test + result) ${fmt(bd.convergedSolve, 1)} ns`,
-  );
+  if (names.includes('human')) {
+    const bd = breakdown(presetLeg('human'));
+    console.log('');
+    console.log(
+      `human, measured per call: FK ${fmt(bd.fk, 1)} ns (${flopsFk(presetLeg('human'))} flops), position Jacobian ${fmt(bd.jac, 1)} ns, DLS step ${fmt(bd.step, 1)} ns, already-converged solve (FK + test + result) ${fmt(bd.convergedSolve, 1)} ns`,
+    );
 
-  // Goals on the human leg, tracking.
-  const get = (m: string) => rows.find((r) => r.chain === 'human' && r.workload === 'tracking' && r.method === m)!;
-  const dls = get('dls');
-  const ccd3 = get('peer-three-ccd');
-  const fd = get('peer-fd-dls');
-  const usPerSolve = 1e6 / dls.solvesPerSec;
-  console.log('');
-  console.log('goals (human, tracking):');
-  console.log(
-    `  dls: ${Math.round(dls.solvesPerSec).toLocaleString('en-US')} solves/s (CPU time; best pass by the wall clock ${Math.round(dls.wallSolvesPerSec ?? 0).toLocaleString('en-US')}) at ${fmt(100 * dls.successRate, 3)} % success (goal ≥ 1,000,000 at ≥ 99.5 %)`,
-  );
-  console.log(`  vs peer-three-ccd: ${fmt(dls.solvesPerSec / ccd3.solvesPerSec, 1)}× (goal ≥ 20×; three ${fmt(100 * ccd3.successRate, 2)} % at ${ccd3.note})`);
-  console.log(`  vs peer-fd-dls: ${fmt(dls.solvesPerSec / fd.solvesPerSec, 1)}× (goal ≥ 10×; fd ${fmt(100 * fd.successRate, 2)} %)`);
-  console.log(
-    `  time per solve ${fmt(usPerSolve, 3)} µs = ${fmt(usPerSolve / floorUsPerIter.human, 2)}× the floor of one solve iteration (goal ≤ 3×); ${fmt(dls.meanIters, 2)} iterations per solve, ${fmt(dls.usPerIter / floorUsPerIter.human, 2)}× floor per iteration`,
-  );
+    // Goals on the human leg, tracking.
+    const get = (m: string) => rows.find((r) => r.chain === 'human' && r.workload === 'tracking' && r.method === m)!;
+    const dls = get('dls');
+    const ccd3 = get('peer-three-ccd');
+    const fd = get('peer-fd-dls');
+    const usPerSolve = 1e6 / dls.solvesPerSec;
+    console.log('');
+    console.log('goals (human, tracking):');
+    console.log(
+      `  dls: ${Math.round(dls.solvesPerSec).toLocaleString('en-US')} solves/s (best pass; by the wall clock alone ${Math.round(dls.wallSolvesPerSec ?? 0).toLocaleString('en-US')}) at ${fmt(100 * dls.successRate, 3)} % success (goal ≥ 1,000,000 at ≥ 99.5 %)`,
+    );
+    console.log(`  vs peer-three-ccd: ${fmt(dls.solvesPerSec / ccd3.solvesPerSec, 1)}× (goal ≥ 20×; three ${fmt(100 * ccd3.successRate, 2)} % at ${ccd3.note})`);
+    console.log(`  vs peer-fd-dls: ${fmt(dls.solvesPerSec / fd.solvesPerSec, 1)}× (goal ≥ 10×; fd ${fmt(100 * fd.successRate, 2)} %)`);
+    console.log(
+      `  time per solve ${fmt(usPerSolve, 3)} µs = ${fmt(usPerSolve / floorUsPerIter.human, 2)}× the floor of one solve iteration (goal ≤ 3×); ${fmt(dls.meanIters, 2)} iterations per solve, ${fmt(dls.usPerIter / floorUsPerIter.human, 2)}× floor per iteration`,
+    );
+  }
   console.log(`total time ${((now() - t0) / 1000).toFixed(1)} s`);
   if (JSON_OUT) {
     const results = rows.map(({ note: _note, wallSolvesPerSec: _wall, ...r }) => r);

@@ -127,9 +127,8 @@ describe('characters in the browser', () => {
   });
 
   it('shows the table and a character page side by side on a wide screen', async () => {
-    const page = await newPage(PHONE);
+    const page = await newPage(WIDE);
     await signIn(page, 'owner@brassmoth.test');
-    await page.setViewportSize(WIDE);
     await page.goto(`${server.url}/characters`);
     await page.getByRole('table', { name: 'Characters' }).waitFor();
     await page.getByRole('columnheader', { name: 'File size' }).waitFor();

@@ -64,6 +64,17 @@ const scrollOffsets = (page: Page) =>
     return tops;
   });
 
+/** The part of the map the phone shows (the map scrolls along the walk in its own window), brought into view. */
+async function dragZone(page: Page) {
+  await page.getByTestId('sculpt-viewport').evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  const box = (await page.getByTestId('sculpt-canvas').boundingBox())!;
+  const view = (await page.getByTestId('sculpt-viewport').boundingBox())!;
+  const top = Math.max(box.y, view.y, 70);
+  const bottom = Math.min(box.y + box.height, view.y + view.height, PHONE.height - 90);
+  expect(bottom - top).toBeGreaterThan(120);
+  return { cx: box.x + box.width / 2, top, bottom };
+}
+
 /** Samples that rose and fell between two encodings of the same grid. */
 function difference(before: CourseDetail, after: CourseDetail) {
   const a = decodeCourse(before.encoding).heights;
@@ -96,17 +107,11 @@ describe('sculpting a course', () => {
     expect(await canvas.evaluate((el) => getComputedStyle(el).touchAction)).toBe('none');
     await page.getByRole('radio', { name: 'Raise' }).click();
     await page.getByRole('radio', { name: 'Full' }).click();
+    await page.getByRole('heading', { name: 'Scrap rubble' }).scrollIntoViewIfNeeded();
     await screenshot(page, 'course-editor-phone');
 
-    // Drag inside the part of the map the phone shows (the map scrolls along the walk in its own window).
-    await page.getByTestId('sculpt-viewport').evaluate((el) => el.scrollIntoView({ block: 'start' }));
-    const box = (await canvas.boundingBox())!;
-    const view = (await page.getByTestId('sculpt-viewport').boundingBox())!;
-    const top = Math.max(box.y, view.y, 70);
-    const bottom = Math.min(box.y + box.height, view.y + view.height, PHONE.height - 90);
-    expect(bottom - top).toBeGreaterThan(120);
+    let { cx, top, bottom } = await dragZone(page);
     const scrolled = await scrollOffsets(page);
-    const cx = box.x + box.width / 2;
     const cy = top + (bottom - top) * 0.3;
     await touchDrag(page, { x: cx - 12, y: cy }, { x: cx + 12, y: cy + 30 });
     // The drag sculpted; it did not scroll the page.
@@ -128,6 +133,7 @@ describe('sculpting a course', () => {
     // Someone else saves version 3 while this editor still holds version 2.
     const other = await page.request.put(`${server.url}/api/courses/${after.course.id}`, { data: { baseVersion: 2, name: 'Scrap rubble, west yard' } });
     expect(other.status()).toBe(200);
+    ({ cx, top, bottom } = await dragZone(page));
     await touchDrag(page, { x: cx - 10, y: top + (bottom - top) * 0.75 }, { x: cx + 10, y: top + (bottom - top) * 0.85 });
     await page.getByRole('button', { name: 'Save' }).click();
     await page.getByText('Saved by someone else meanwhile').waitFor();
@@ -158,7 +164,7 @@ describe('sculpting a course', () => {
     await signInAsDesigner(page);
     await page.goto(`${server.url}/courses`);
     await page.getByRole('row', { name: 'Open Loading dock steps' }).waitFor();
-    await page.getByText('Scrapyard crossing').waitFor();
+    await page.getByText('Scrapyard crossing', { exact: true }).waitFor();
     await screenshot(page, 'courses-list-wide');
 
     await page.getByRole('button', { name: 'New course' }).click();

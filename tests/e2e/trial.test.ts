@@ -30,7 +30,8 @@ afterAll(async () => {
 });
 
 async function signedInPage(size: { width: number; height: number }): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
+  // Signs in at phone size, then takes the asked size (the page it lands on first is not part of this test).
+  const context = await browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
   const page = await context.newPage();
   const problems: string[] = [];
   page.on('pageerror', (err) => problems.push(err.message));
@@ -38,10 +39,12 @@ async function signedInPage(size: { width: number; height: number }): Promise<Pa
   await page.getByLabel('E-mail').fill('designer@brassmoth.test');
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Home' }).waitFor().catch(async (err) => {
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+  await page.getByRole('button', { name: 'Sign out' }).first().waitFor().catch(async (err) => {
     await screenshot(page, `trial-sign-in-failed-${size.width}`);
     throw new Error(`${(err as Error).message}; page errors: ${problems.join(' | ')}`);
   });
+  await page.setViewportSize(size);
   (page as Page & { problems?: string[] }).problems = problems;
   return page;
 }
@@ -98,7 +101,10 @@ describe('running a trial and reading it', () => {
     const page = await signedInPage(WIDE);
     const trial = await server.db('trials').where({ character_id: burrowId }).orderBy('id', 'desc').first('id');
     await page.goto(`${server.url}/trials/${trial.id}`);
-    await page.getByTestId('metric-cards').waitFor();
+    await page.getByTestId('metric-cards').waitFor().catch(async (err) => {
+      await screenshot(page, 'trial-wide-failed');
+      throw new Error(`${(err as Error).message}; page errors: ${(page as Page & { problems?: string[] }).problems?.join(' | ')}`);
+    });
     await page.waitForTimeout(800);
     await screenshot(page, 'trial-wide');
     await page.goto(`${server.url}/characters/setup/${burrowId}`);

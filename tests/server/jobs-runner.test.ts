@@ -18,6 +18,9 @@ import { createStudio } from '../support/studio';
 import type { Db } from '../../server/db';
 
 type Studio = Awaited<ReturnType<typeof createStudio>>;
+// Worker threads start on the first job and the machine is shared: generous timeouts, no timing assertions.
+jest.setTimeout(120_000);
+
 let database: Awaited<ReturnType<typeof freshDatabase>>;
 let db: Db;
 const clock = manualClock();

@@ -9,6 +9,9 @@ import { testApp, type TestApp } from '../support/test-app';
 import { signedIn } from '../support/studio';
 import { trialStudio, type TrialStudio } from './trials-helpers';
 
+// Worker threads start on the first job and the machine is shared: generous timeouts, no timing assertions.
+jest.setTimeout(120_000);
+
 let t: TestApp;
 let studio: TrialStudio;
 let other: TrialStudio;
