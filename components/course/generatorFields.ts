@@ -106,12 +106,21 @@ export function recipeOf(d: GeneratorDraft): CourseGeneratorInput {
   };
 }
 
+/** zod's bound messages in the words of a form ("Too big: expected number to be <=0.5" → "Use at most 0.5."). */
+function plainBound(message: string): string {
+  const bound = /^Too (big|small): expected number to be ([<>])=?(-?[\d.e+-]+)$/.exec(message);
+  if (bound) return `Use ${bound[2] === '<' ? 'at most' : 'at least'} ${bound[3]}.`;
+  if (/expected number, received (undefined|NaN)/.test(message)) return 'Enter a number.';
+  if (/expected int, received number/.test(message)) return 'Enter a whole number.';
+  return message;
+}
+
 /** Server and schema messages on "generator.…" keys, as the form's own keys ("segments.1.riser", "width"). */
 export function formFieldErrors(fields: Record<string, string>): Record<string, string> {
   const out: Record<string, string> = {};
   for (const [key, message] of Object.entries(fields)) {
     const local = key === 'generator' ? '_' : key.startsWith('generator.') ? key.slice('generator.'.length) : key;
-    if (!(local in out)) out[local] = message;
+    if (!(local in out)) out[local] = plainBound(message);
   }
   return out;
 }

@@ -16,7 +16,7 @@ export function SideRail({ active }: { active: Section }) {
         const on = s.name === active.name;
         return (
           <Link key={s.name} href={s.href} asChild>
-            <Pressable aria-current={on ? 'page' : undefined} style={[styles.item, on && styles.itemOn]}>
+            <Pressable aria-current={on ? 'page' : undefined} style={StyleSheet.flatten([styles.item, on && styles.itemOn])}>
               <SectionIcon name={s.name} color={on ? colors.ember : colors.onInk} size={20} />
               <Text style={[styles.label, on && styles.labelOn]}>{s.label}</Text>
             </Pressable>

@@ -173,7 +173,7 @@ describe('sculpting a course', () => {
     await page.getByLabel('Riser (m)').fill('0.9');
     await page.getByRole('button', { name: 'Make course' }).click();
     // The shared schema's message, beside the field, before anything is sent.
-    await page.getByText('Too big: expected number to be <=0.5').waitFor();
+    await page.getByText('Use at most 0.5.').waitFor();
     await screenshot(page, 'course-generator-wide');
     await page.getByLabel('Riser (m)').fill('0.15');
     await page.getByRole('button', { name: 'Make course' }).click();

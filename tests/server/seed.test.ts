@@ -5,6 +5,9 @@ import { freshDatabase } from '../support/test-db';
 import { seedDemoStudio, DEMO_USERS, DEMO_PASSWORD } from '../../seeds/demo-studio';
 import { verifyCredentials } from '../../server/services/accounts';
 
+// The seed imports the three demo characters through the real glTF pipeline.
+jest.setTimeout(60_000);
+
 describe('the demo seed', () => {
   it('creates one member per role and is idempotent', async () => {
     const { db, cleanup } = await freshDatabase();
