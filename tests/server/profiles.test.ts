@@ -110,7 +110,9 @@ describe('immutability', () => {
   });
 
   it('the database refuses a raw UPDATE and a raw DELETE', async () => {
-    const where = { profile_id: s.profiles.Wicket.id, version: 1 };
+    const row = await t.db('profile_versions').where({ profile_id: s.profiles.Wicket.id, version: 1 }).first('id');
+    expect(row).toBeDefined();
+    const where = { id: row.id };
     await expect(t.db('profile_versions').where(where).update({ notes: 'rewritten' })).rejects.toThrow(/immutable/);
     await expect(t.db('profile_versions').where(where).delete()).rejects.toThrow(/immutable/);
     expect((await t.db('profile_versions').where(where).first('notes')).notes).not.toBe('rewritten');
