@@ -23,10 +23,10 @@ export async function seedDemoProfiles(db: Db, teamId: number, fallbackAuthorId:
   let tick = 0;
   for (const c of characters) {
     if (await db('profiles').where({ character_id: c.id }).first('id')) continue;
-    const saved = await db('leg_setups').where({ team_id: teamId, character_id: c.id }).orderBy('version', 'desc').first('id');
     const at = now + 60_000 * tick++;
+    // Publishes the character's newest saved leg setup (the leg-setup seed's), or the engine's defaults.
     const first = { teamId, author, characterId: c.id, suiteId: suite.id, notes: `First profile of ${c.name}, measured on ${DEMO_SUITE}.`, now: at };
-    await publishProfile(db, saved ? { ...first, legSetupId: saved.id } : first);
+    await publishProfile(db, first);
     if (c.name !== 'Wicket') continue;
     // Version 2: the same setup with more DLS damping (steadier knees near full extension).
     const row = await findCharacterRow(db, teamId, c.id);

@@ -15,6 +15,7 @@ import { InviteForm } from './InviteForm';
 import { MemberList } from './MemberList';
 import { PendingInvites } from './PendingInvites';
 import { PermissionMatrix } from './PermissionMatrix';
+import { StudioLinks } from './StudioLinks';
 
 export function TeamPage() {
   const me = useMe();
@@ -37,6 +38,8 @@ export function TeamPage() {
       title="Team"
       lede={canManage ? 'Who is in the studio and what each role may do. Changes take effect at once.' : 'Who is in the studio and what each role may do.'}
     >
+      <StudioLinks />
+
       <SectionHeading>Members</SectionHeading>
       <MemberList members={team.data.members} manage={canManage} viewerId={me.data.user.id} />
 

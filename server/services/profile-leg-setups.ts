@@ -23,3 +23,9 @@ export async function loadLegSetupVersion(db: Db, teamId: number, legSetupId: nu
   }
   return saved.setup;
 }
+
+/** The id of a character's newest saved leg setup version, if it has any. */
+export async function newestLegSetupId(db: Db, teamId: number, characterId: number): Promise<number | undefined> {
+  const row = await db('leg_setups').where({ team_id: teamId, character_id: characterId }).orderBy('version', 'desc').first('id');
+  return row?.id;
+}

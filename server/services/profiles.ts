@@ -10,7 +10,7 @@ import { diffLegProfiles, type ProfileDiff } from '../../engine/profile/diff';
 import { consumeAllowance } from './billing-limits';
 import { findCharacterRow } from './gltf-import-store';
 import { characterOfRow, loadSuite, rigOf, runCharacterSuite, setupFor } from './suite-runs';
-import { loadLegSetupVersion } from './profile-leg-setups';
+import { loadLegSetupVersion, newestLegSetupId } from './profile-leg-setups';
 
 export interface VersionRow {
   id: number;
@@ -51,7 +51,9 @@ export async function publishProfile(db: Db, input: PublishInput): Promise<{ pro
   if (!row) throw new HttpError(404, 'not_found', 'That character was not found.', { characterId: 'Pick a character of your team.' });
   const character = characterOfRow(row);
   const rig = rigOf(character);
-  const fromSaved = input.legSetupId !== undefined ? await loadLegSetupVersion(db, input.teamId, input.legSetupId, row.id) : undefined;
+  // Neither a saved version nor a setup given: the character's newest saved version, else the engine's defaults.
+  const legSetupId = input.legSetupId ?? (input.legSetup === undefined ? await newestLegSetupId(db, input.teamId, row.id) : undefined);
+  const fromSaved = legSetupId !== undefined ? await loadLegSetupVersion(db, input.teamId, legSetupId, row.id) : undefined;
   const setup = setupFor(rig, fromSaved ?? input.legSetup);
   const suite = await loadSuite(db, input.teamId, input.suiteId);
   const run = runCharacterSuite(character, setup, suite);
@@ -87,7 +89,7 @@ export async function publishProfile(db: Db, input: PublishInput): Promise<{ pro
       sha256: sha256(document),
       character_sha256: row.sha256,
       suite_id: suite.id,
-      leg_setup_id: input.legSetupId ?? null,
+      leg_setup_id: legSetupId ?? null,
       footing_score: run.metrics.footingScore,
       notes: input.notes,
       author_id: input.author.id,
