@@ -1,4 +1,4 @@
-import { Link } from 'expo-router';
+import { useRouter } from 'expo-router';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { sections, type Section } from '../../constants/sections';
 import { colors, fonts, radius, space, touchTarget } from '../../constants/theme';
@@ -7,6 +7,8 @@ import { TreadleMark } from '../ui/TreadleMark';
 
 /** Wide-screen navigation: the same sections in a dark rail on the left. */
 export function SideRail({ active }: { active: Section }) {
+  const router = useRouter();
+  // A plain pressable link: expo-router's <Link asChild> handed react-native-web a style array it could not apply.
   return (
     <View role="navigation" aria-label="Sections" style={styles.rail}>
       <View style={styles.mark}>
@@ -15,12 +17,17 @@ export function SideRail({ active }: { active: Section }) {
       {sections.map((s) => {
         const on = s.name === active.name;
         return (
-          <Link key={s.name} href={s.href} asChild>
-            <Pressable aria-current={on ? 'page' : undefined} style={StyleSheet.flatten([styles.item, on && styles.itemOn])}>
-              <SectionIcon name={s.name} color={on ? colors.ember : colors.onInk} size={20} />
-              <Text style={[styles.label, on && styles.labelOn]}>{s.label}</Text>
-            </Pressable>
-          </Link>
+          <Pressable
+            key={s.name}
+            role="link"
+            accessibilityLabel={s.label}
+            aria-current={on ? 'page' : undefined}
+            onPress={() => router.push(s.href)}
+            style={[styles.item, on && styles.itemOn]}
+          >
+            <SectionIcon name={s.name} color={on ? colors.ember : colors.onInk} size={20} />
+            <Text style={[styles.label, on && styles.labelOn]}>{s.label}</Text>
+          </Pressable>
         );
       })}
     </View>

@@ -2,7 +2,7 @@ import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
 import { startTestServer } from '../support/test-server';
 import { decodeCourse } from '../../engine/course/encoding';
-import type { CourseDetail, CourseList } from '../../schemas/courses';
+import type { CourseDetail, CourseList, SuiteList } from '../../schemas/courses';
 
 jest.setTimeout(180_000);
 
@@ -197,5 +197,16 @@ describe('sculpting a course', () => {
     await page.getByText('Saved as version 2.').waitFor();
     expect(difference(made, await courseByName(page, 'Gantry stairs')).rose).toBeGreaterThan(10);
     await screenshot(page, 'course-editor-wide');
+
+    // Suites: put the ramp first in the demo suite.
+    await page.getByRole('link', { name: 'Courses' }).click();
+    await page.getByRole('button', { name: 'Edit Scrapyard crossing' }).click();
+    for (let i = 0; i < 3; i++) await page.getByRole('button', { name: 'Move Ramp to the gantry earlier' }).click();
+    await page.getByRole('checkbox', { name: 'Gantry stairs' }).click();
+    await screenshot(page, 'suite-editor-wide');
+    await page.getByRole('button', { name: 'Save suite' }).click();
+    await page.getByRole('button', { name: 'Edit Scrapyard crossing' }).waitFor();
+    const { suites } = (await (await page.request.get(`${server.url}/api/suites`)).json()) as SuiteList;
+    expect(suites[0].courses.map((c) => c.name)).toEqual(['Ramp to the gantry', 'Loading dock steps', 'Scrap rubble', 'Drainage trench', 'Gantry stairs']);
   });
 });
