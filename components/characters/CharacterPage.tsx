@@ -14,6 +14,7 @@ import { formatBytes } from './format';
 import { ImportReportView } from './ImportReportView';
 import { LegList } from './LegList';
 import { LegMappingForm } from './LegMappingForm';
+import { CharacterActions } from './CharacterActions';
 
 /** A character: the 3D view, its legs (and the form to correct them), and the import report. */
 export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail: CharacterDetail; fileUrl: string; mayEdit: boolean; onSaveLegs(legs: LegMapping[]): Promise<void> }) {
@@ -54,6 +55,7 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
   );
   return (
     <Screen title={character.name} lede={lede} actions={<Link href="/characters" style={styles.back}>All characters</Link>}>
+      <CharacterActions characterId={character.id} />
       {wide ? (
         <View style={styles.columns}>
           <View style={styles.main}>
