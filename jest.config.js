@@ -4,8 +4,6 @@ const nodeProject = (name, roots) => ({
   testEnvironment: 'node',
   roots,
   testMatch: ['**/*.test.ts'],
-  // bcrypt set-ups and real servers take seconds on a busy 2-core machine; a test's time is never asserted.
-  testTimeout: 30_000,
   transform: { '^.+\\.m?[jt]sx?$': 'babel-jest' },
   // ESM-only packages that the node projects load through babel.
   transformIgnorePatterns: ['/node_modules/(?!(three|simplex-noise|gl-matrix|@gltf-transform|property-graph|ktx-parse|fmin)/)'],
@@ -13,6 +11,8 @@ const nodeProject = (name, roots) => ({
 });
 
 module.exports = {
+  // bcrypt set-ups, seeds and real servers take seconds on a busy 2-core machine; a test's time is never asserted.
+  testTimeout: 30_000,
   projects: [
     nodeProject('engine', ['<rootDir>/tests/engine']),
     nodeProject('server', ['<rootDir>/tests/server']),
