@@ -1,34 +1,23 @@
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
-import { startTestServer } from '../support/test-server';
+import type { Page } from 'playwright-core';
+import { PHONE, WIDE, screenshot } from '../support/browser';
+import { e2eStudio } from '../support/e2e';
 
 jest.setTimeout(180_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
+const studio = e2eStudio();
 
 async function signedInPage(size: { width: number; height: number }, email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
+  const context = await studio.browser.newContext({ viewport: size, deviceScaleFactor: 1 });
   const page = await context.newPage();
   page.on('pageerror', (err) => {
     throw err;
   });
-  await page.goto(`${server.url}/sign-in`);
+  await page.goto(`${studio.server.url}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('treadle-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByText('Brassmoth Interactive', { exact: true }).first().waitFor();
-  await page.goto(`${server.url}/team/billing`);
+  await page.goto(`${studio.server.url}/team/billing`);
   await page.getByRole('heading', { name: 'Billing', level: 1 }).waitFor();
   return page;
 }
@@ -42,7 +31,7 @@ async function fillCard(page: Page, number: string) {
 
 /** The fake's page at desk width, with its refusal; it lives on the fake's origin, outside Treadle's shell. */
 async function checkoutPageAtDeskWidth(url: string) {
-  const context = await browser.newContext({ viewport: WIDE, deviceScaleFactor: 1 });
+  const context = await studio.browser.newContext({ viewport: WIDE, deviceScaleFactor: 1 });
   const page = await context.newPage();
   await page.goto(url);
   await page.getByRole('heading', { name: 'Test payment page — no real money moves' }).waitFor();
@@ -62,7 +51,7 @@ describe('the owner’s billing screen and the local checkout page', () => {
     await screenshot(page, 'billing-solo-phone');
 
     await page.getByRole('button', { name: 'Upgrade to Crew' }).click();
-    await page.waitForURL(`${server.paymentsUrl}/pay/**`);
+    await page.waitForURL(`${studio.server.paymentsUrl}/pay/**`);
     await page.getByRole('heading', { name: 'Test payment page — no real money moves' }).waitFor();
     await screenshot(page, 'checkout-page-phone');
     await checkoutPageAtDeskWidth(page.url());
@@ -77,7 +66,7 @@ describe('the owner’s billing screen and the local checkout page', () => {
     // 4242 4242 4242 4242: the provider's published test card that always succeeds (Stripe docs, "Testing").
     await fillCard(page, '4242 4242 4242 4242');
     await page.getByRole('button', { name: /^Pay / }).click();
-    await page.waitForURL(`${server.url}/team/billing?checkout=done**`);
+    await page.waitForURL(`${studio.server.url}/team/billing?checkout=done**`);
     await page.getByText('Payment received: the studio is on Crew.').waitFor();
     await page.getByText('Crew (monthly)').waitFor();
     await screenshot(page, 'billing-crew-phone');
@@ -114,7 +103,7 @@ describe('the owner’s billing screen and the local checkout page', () => {
 
   it('shows other roles the plan name only', async () => {
     const page = await signedInPage(PHONE, 'designer@brassmoth.test');
-    const answer = await (await page.request.get(`${server.url}/api/billing`)).json();
+    const answer = await (await page.request.get(`${studio.server.url}/api/billing`)).json();
     expect(answer).toEqual({ view: 'member', plan: { id: expect.any(String), name: expect.any(String) } });
     await page.getByText('The studio is on the').waitFor();
     await page.getByText(answer.plan.name, { exact: true }).first().waitFor();

@@ -1,40 +1,14 @@
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
-import { startTestServer } from '../support/test-server';
+import type { Page } from 'playwright-core';
+import { PHONE, WIDE, screenshot } from '../support/browser';
+import { e2eStudio } from '../support/e2e';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { wicket } from '../../seeds/characters';
 
 jest.setTimeout(180_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const studio = e2eStudio();
 
-beforeAll(async () => {
-  server = await startTestServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
-
-async function newPage(size: { width: number; height: number }): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-  const page = await context.newPage();
-  page.on('pageerror', (err) => {
-    throw err;
-  });
-  return page;
-}
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('treadle-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByText('Brassmoth Interactive', { exact: true }).first().waitFor();
-}
+const { newPage, signIn } = studio;
 
 /**
  * Reads the 3D view's pixels back through WebGL (the GLView asks for preserveDrawingBuffer on web) and counts
@@ -69,7 +43,7 @@ describe('characters in the browser', () => {
   it('uploads a demo .glb at phone size, shows the import report, the legs and a drawn 3D view', async () => {
     const page = await newPage(PHONE);
     // A studio of its own, so the upload is new rather than recognised as the seeded Wicket.
-    await page.goto(`${server.url}/sign-up`);
+    await page.goto(`${studio.server.url}/sign-up`);
     await page.getByLabel('Your name').fill('Nell Sprocket');
     await page.getByLabel('Studio name').fill('Lantern Yard');
     await page.getByLabel('E-mail').fill('nell@lantern.test');
@@ -77,7 +51,7 @@ describe('characters in the browser', () => {
     await page.getByRole('button', { name: 'Create studio' }).click();
     await page.getByText('Lantern Yard', { exact: true }).first().waitFor();
 
-    await page.goto(`${server.url}/characters`);
+    await page.goto(`${studio.server.url}/characters`);
     await page.getByText('Bring your first character').waitFor();
     await page.getByRole('button', { name: 'Upload character' }).click();
     const chooser = page.waitForEvent('filechooser');
@@ -119,7 +93,7 @@ describe('characters in the browser', () => {
   it('lists the seeded characters as cards on a phone and hides the upload button from a programmer', async () => {
     const page = await newPage(PHONE);
     await signIn(page, 'programmer@brassmoth.test');
-    await page.goto(`${server.url}/characters`);
+    await page.goto(`${studio.server.url}/characters`);
     for (const name of ['Wicket', 'Burrow', 'Skitter']) await page.getByRole('listitem', { name }).waitFor();
     expect(await page.getByRole('button', { name: 'Upload character' }).count()).toBe(0);
     await screenshot(page, 'characters-phone');
@@ -129,7 +103,7 @@ describe('characters in the browser', () => {
   it('shows the table and a character page side by side on a wide screen', async () => {
     const page = await newPage(WIDE);
     await signIn(page, 'owner@brassmoth.test');
-    await page.goto(`${server.url}/characters`);
+    await page.goto(`${studio.server.url}/characters`);
     await page.getByRole('table', { name: 'Characters' }).waitFor();
     await page.getByRole('columnheader', { name: 'File size' }).waitFor();
     await page.getByRole('button', { name: 'Upload character' }).waitFor();

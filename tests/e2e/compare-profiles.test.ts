@@ -5,32 +5,21 @@
  */
 import fs from 'node:fs';
 import Ajv2020 from 'ajv/dist/2020';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
-import { startTestServer } from '../support/test-server';
+import type { Page } from 'playwright-core';
+import { PHONE, WIDE, screenshot } from '../support/browser';
+import { e2eStudio } from '../support/e2e';
 
 jest.setTimeout(240_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
+const studio = e2eStudio();
 
 async function signedInPage(size: { width: number; height: number }, email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1, acceptDownloads: true });
+  const context = await studio.browser.newContext({ viewport: size, deviceScaleFactor: 1, acceptDownloads: true });
   const page = await context.newPage();
   page.on('pageerror', (err) => {
     throw err;
   });
-  await page.goto(`${server.url}/sign-in`);
+  await page.goto(`${studio.server.url}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('treadle-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
@@ -39,17 +28,17 @@ async function signedInPage(size: { width: number; height: number }, email: stri
 }
 
 async function ids() {
-  const chars = await server.db('characters').select('id', 'name');
+  const chars = await studio.server.db('characters').select('id', 'name');
   const id = (name: string) => chars.find((c: { name: string }) => c.name === name).id as number;
-  const suite = await server.db('suites').where({ name: 'Scrapyard crossing' }).first('id');
-  const profile = await server.db('profiles').where({ character_id: id('Wicket') }).first('id');
+  const suite = await studio.server.db('suites').where({ name: 'Scrapyard crossing' }).first('id');
+  const profile = await studio.server.db('profiles').where({ character_id: id('Wicket') }).first('id');
   return { wicket: id('Wicket'), skitter: id('Skitter'), suite: suite.id as number, wicketProfile: profile.id as number };
 }
 
 describe('compare', () => {
   it('the art lead picks a suite and two characters on a phone; the choice lands in the URL and the table marks the best', async () => {
     const page = await signedInPage(PHONE, 'artlead@brassmoth.test');
-    await page.goto(`${server.url}/compare`);
+    await page.goto(`${studio.server.url}/compare`);
     await page.getByRole('heading', { name: 'Compare', level: 1 }).waitFor();
     await page.getByRole('radio', { name: 'Scrapyard crossing' }).click();
     await page.getByRole('checkbox', { name: 'Wicket' }).click();
@@ -72,7 +61,7 @@ describe('compare', () => {
   it('opens a shared comparison link at desk width with the whole table', async () => {
     const { wicket, skitter, suite } = await ids();
     const page = await signedInPage(WIDE, 'artlead@brassmoth.test');
-    await page.goto(`${server.url}/compare?suite=${suite}&pick=c${wicket},c${skitter}`);
+    await page.goto(`${studio.server.url}/compare?suite=${suite}&pick=c${wicket},c${skitter}`);
     await page.getByRole('table', { name: 'Metrics side by side' }).waitFor({ timeout: 60_000 });
     // Every group is shown at once on a wide screen.
     await page.getByRole('rowheader').filter({ hasText: 'Touchdown overshoot' }).waitFor();
@@ -86,7 +75,7 @@ describe('profiles', () => {
   it('the programmer sees the versions, what changed, and downloads a profile JSON that validates against the schema (phone)', async () => {
     const { wicketProfile } = await ids();
     const page = await signedInPage(PHONE, 'programmer@brassmoth.test');
-    await page.goto(`${server.url}/profiles`);
+    await page.goto(`${studio.server.url}/profiles`);
     await page.getByRole('link', { name: 'Open the leg profile of Wicket' }).click();
     await page.getByRole('heading', { name: 'Wicket leg profile', level: 1 }).waitFor();
     await page.getByText('solver.lambda').waitFor();
@@ -96,7 +85,7 @@ describe('profiles', () => {
     const file = JSON.parse(fs.readFileSync((await download.path())!, 'utf8'));
     expect(file.version).toBe(2);
     expect(file.profileId).toBe(wicketProfile);
-    const schema = await (await fetch(`${server.url}/api/schema/leg-profile.json`)).json();
+    const schema = await (await fetch(`${studio.server.url}/api/schema/leg-profile.json`)).json();
     const ajv = new Ajv2020({ strict: true });
     // RFC 3339 §5.6 date-time.
     ajv.addFormat('date-time', /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?(Z|[+-]\d{2}:\d{2})$/);
@@ -108,7 +97,7 @@ describe('profiles', () => {
 
   it('at desk width: the list, the profile page, and a token made once and revoked', async () => {
     const page = await signedInPage(WIDE, 'programmer@brassmoth.test');
-    await page.goto(`${server.url}/profiles`);
+    await page.goto(`${studio.server.url}/profiles`);
     await page.getByRole('link', { name: 'Open the leg profile of Skitter' }).waitFor();
     await screenshot(page, 'profiles-wide');
     await page.getByRole('link', { name: 'Open the leg profile of Wicket' }).click();
@@ -122,20 +111,20 @@ describe('profiles', () => {
     const secret = (await page.getByLabel('API token', { exact: true }).textContent())!.trim();
     expect(secret).toMatch(/^tdl_/);
     await screenshot(page, 'tokens-wide-created');
-    const res = await fetch(`${server.url}/api/v1/characters`, { headers: { Authorization: `Bearer ${secret}` } });
+    const res = await fetch(`${studio.server.url}/api/v1/characters`, { headers: { Authorization: `Bearer ${secret}` } });
     expect(res.status).toBe(200);
     await page.getByRole('button', { name: 'I have stored it' }).click();
     await page.getByRole('button', { name: 'Revoke CI build', exact: true }).click();
     await page.getByRole('button', { name: 'Revoke CI build now' }).click();
     await page.getByText(/Revoked/).waitFor();
-    expect((await fetch(`${server.url}/api/v1/characters`, { headers: { Authorization: `Bearer ${secret}` } })).status).toBe(401);
+    expect((await fetch(`${studio.server.url}/api/v1/characters`, { headers: { Authorization: `Bearer ${secret}` } })).status).toBe(401);
     await screenshot(page, 'tokens-wide-revoked');
     await page.context().close();
   });
 
   it('tokens on a phone', async () => {
     const page = await signedInPage(PHONE, 'owner@brassmoth.test');
-    await page.goto(`${server.url}/tokens`);
+    await page.goto(`${studio.server.url}/tokens`);
     await page.getByRole('heading', { name: 'API tokens', level: 1 }).waitFor();
     await page.getByText('No tokens yet.').or(page.getByRole('list', { name: 'API tokens' })).first().waitFor();
     await screenshot(page, 'tokens-phone');

@@ -1,26 +1,15 @@
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
-import { startTestServer } from '../support/test-server';
+import type { Page } from 'playwright-core';
+import { PHONE, WIDE, screenshot } from '../support/browser';
+import { e2eStudio } from '../support/e2e';
 import { decodeCourse } from '../../engine/course/encoding';
 import type { CourseDetail, CourseList, SuiteList } from '../../schemas/courses';
 
 jest.setTimeout(180_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
+const studio = e2eStudio();
 
 async function newPage(size: { width: number; height: number }, touch = false): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1, hasTouch: touch, isMobile: false });
+  const context = await studio.browser.newContext({ viewport: size, deviceScaleFactor: 1, hasTouch: touch, isMobile: false });
   const page = await context.newPage();
   page.on('pageerror', (err) => {
     throw err;
@@ -29,7 +18,7 @@ async function newPage(size: { width: number; height: number }, touch = false): 
 }
 
 async function signInAsDesigner(page: Page) {
-  await page.goto(`${server.url}/`);
+  await page.goto(`${studio.server.url}/`);
   await page.waitForURL('**/sign-in');
   await page.getByLabel('E-mail').fill('designer@brassmoth.test');
   await page.getByLabel('Password').fill('treadle-demo');
@@ -38,9 +27,9 @@ async function signInAsDesigner(page: Page) {
 }
 
 async function courseByName(page: Page, name: string): Promise<CourseDetail> {
-  const list = (await (await page.request.get(`${server.url}/api/courses`)).json()) as CourseList;
+  const list = (await (await page.request.get(`${studio.server.url}/api/courses`)).json()) as CourseList;
   const id = list.courses.find((c) => c.name === name)!.id;
-  return (await (await page.request.get(`${server.url}/api/courses/${id}`)).json()) as CourseDetail;
+  return (await (await page.request.get(`${studio.server.url}/api/courses/${id}`)).json()) as CourseDetail;
 }
 
 /** A finger drag through the DevTools protocol: real touch input, which Chromium turns into pointer events of type "touch". */
@@ -131,7 +120,7 @@ describe('sculpting a course', () => {
     await screenshot(page, 'course-saved-phone');
 
     // Someone else saves version 3 while this editor still holds version 2.
-    const other = await page.request.put(`${server.url}/api/courses/${after.course.id}`, { data: { baseVersion: 2, name: 'Scrap rubble, west yard' } });
+    const other = await page.request.put(`${studio.server.url}/api/courses/${after.course.id}`, { data: { baseVersion: 2, name: 'Scrap rubble, west yard' } });
     expect(other.status()).toBe(200);
     ({ cx, top, bottom } = await dragZone(page));
     await touchDrag(page, { x: cx - 10, y: top + (bottom - top) * 0.75 }, { x: cx + 10, y: top + (bottom - top) * 0.85 });
@@ -162,7 +151,7 @@ describe('sculpting a course', () => {
   it('sculpts with the mouse on a wide screen and shows the list, suites and generator form', async () => {
     const page = await newPage(WIDE);
     await signInAsDesigner(page);
-    await page.goto(`${server.url}/courses`);
+    await page.goto(`${studio.server.url}/courses`);
     await page.getByRole('row', { name: 'Open Loading dock steps' }).waitFor();
     await page.getByText('Scrapyard crossing', { exact: true }).waitFor();
     await screenshot(page, 'courses-list-wide');
@@ -206,7 +195,7 @@ describe('sculpting a course', () => {
     await screenshot(page, 'suite-editor-wide');
     await page.getByRole('button', { name: 'Save suite' }).click();
     await page.getByRole('button', { name: 'Edit Scrapyard crossing' }).waitFor();
-    const { suites } = (await (await page.request.get(`${server.url}/api/suites`)).json()) as SuiteList;
+    const { suites } = (await (await page.request.get(`${studio.server.url}/api/suites`)).json()) as SuiteList;
     expect(suites[0].courses.map((c) => c.name)).toEqual([
       'Ramp to the gantry',
       'Loading dock steps',

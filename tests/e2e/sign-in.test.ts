@@ -1,30 +1,12 @@
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
-import { startTestServer } from '../support/test-server';
+import type { Page } from 'playwright-core';
+import { PHONE, WIDE, screenshot } from '../support/browser';
+import { e2eStudio } from '../support/e2e';
 
 jest.setTimeout(120_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const studio = e2eStudio();
 
-beforeAll(async () => {
-  server = await startTestServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
-
-async function newPage(size: { width: number; height: number }): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-  const page = await context.newPage();
-  page.on('pageerror', (err) => {
-    throw err;
-  });
-  return page;
-}
+const newPage = studio.newPage;
 
 async function signIn(page: Page, email: string, password: string) {
   await page.getByLabel('E-mail').fill(email);
@@ -35,7 +17,7 @@ async function signIn(page: Page, email: string, password: string) {
 describe('signing up, out and in', () => {
   it('takes a new studio from sign-up into the shell, out, and back in as the seeded designer (phone)', async () => {
     const page = await newPage(PHONE);
-    await page.goto(`${server.url}/`);
+    await page.goto(`${studio.server.url}/`);
     await page.waitForURL('**/sign-in');
     await page.getByText('Sign in to your studio').waitFor();
     await screenshot(page, 'sign-in-phone');
@@ -81,7 +63,7 @@ describe('signing up, out and in', () => {
     ['artlead@brassmoth.test', 'Art lead'],
   ])('lets %s in on a wide screen, through every section by the side rail', async (email, roleLabel) => {
     const page = await newPage(WIDE);
-    await page.goto(`${server.url}/characters`);
+    await page.goto(`${studio.server.url}/characters`);
     await page.waitForURL('**/sign-in');
     await signIn(page, email, 'treadle-demo');
     await page.getByText(new RegExp(`· ${roleLabel}$`)).waitFor();
@@ -98,10 +80,10 @@ describe('signing up, out and in', () => {
 
   it('opens a deep link typed into the address bar once signed in', async () => {
     const page = await newPage(PHONE);
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${studio.server.url}/sign-in`);
     await signIn(page, 'designer@brassmoth.test', 'treadle-demo');
     await page.getByText('Brassmoth Interactive', { exact: true }).waitFor();
-    await page.goto(`${server.url}/profiles`);
+    await page.goto(`${studio.server.url}/profiles`);
     await page.getByRole('heading', { name: 'Profiles', level: 1 }).waitFor();
     await screenshot(page, 'profiles-phone');
     await page.context().close();

@@ -1,38 +1,12 @@
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, PHONE, WIDE, screenshot } from '../support/browser';
-import { startTestServer } from '../support/test-server';
+import type { Page } from 'playwright-core';
+import { PHONE, WIDE, screenshot } from '../support/browser';
+import { e2eStudio } from '../support/e2e';
 
 jest.setTimeout(120_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const studio = e2eStudio();
 
-beforeAll(async () => {
-  server = await startTestServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
-
-async function newPage(size: { width: number; height: number }): Promise<Page> {
-  const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-  const page = await context.newPage();
-  page.on('pageerror', (err) => {
-    throw err;
-  });
-  return page;
-}
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('treadle-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Home', level: 1 }).waitFor();
-}
+const { newPage, signIn } = studio;
 
 describe('a new member through the local inbox', () => {
   it('owner invites a programmer on a phone; the programmer opens the mail in the local inbox and joins', async () => {
@@ -48,7 +22,7 @@ describe('a new member through the local inbox', () => {
     await screenshot(owner, 'team-invite-phone');
 
     const inbox = await newPage(PHONE);
-    await inbox.goto(server.mail.inboxUrl!);
+    await inbox.goto(studio.server.mail.inboxUrl!);
     await inbox.getByText('invited you to Brassmoth Interactive on Treadle').click();
     await screenshot(inbox, 'local-inbox-mail-phone');
     await inbox.getByRole('link', { name: /\/invite\// }).click();
@@ -63,7 +37,7 @@ describe('a new member through the local inbox', () => {
     // The link worked once.
     const link = await inbox.evaluate(() => document.referrer);
     void link;
-    const mail = server.mail.messages().find((m) => m.to === 'tamsin@brassmoth.test')!;
+    const mail = studio.server.mail.messages().find((m) => m.to === 'tamsin@brassmoth.test')!;
     const url = mail.text.match(/http:\/\/\S+\/invite\/\S+/)![0];
     const again = await newPage(PHONE);
     await again.goto(url);
@@ -76,7 +50,7 @@ describe('a new member through the local inbox', () => {
   it('shows the owner the whole team page on a wide screen, and a programmer the read-only one', async () => {
     const owner = await newPage(WIDE);
     await signIn(owner, 'owner@brassmoth.test');
-    await owner.goto(`${server.url}/team`);
+    await owner.goto(`${studio.server.url}/team`);
     await owner.getByRole('heading', { name: 'Who may do what' }).waitFor();
     await owner.getByRole('heading', { name: 'Team log' }).waitFor();
     await screenshot(owner, 'team-owner-wide');
@@ -84,7 +58,7 @@ describe('a new member through the local inbox', () => {
 
     const programmer = await newPage(PHONE);
     await signIn(programmer, 'programmer@brassmoth.test');
-    await programmer.goto(`${server.url}/team`);
+    await programmer.goto(`${studio.server.url}/team`);
     await programmer.getByRole('heading', { name: 'Who may do what' }).waitFor();
     expect(await programmer.getByRole('heading', { name: 'Invite someone' }).count()).toBe(0);
     expect(await programmer.getByRole('button', { name: /Remove/ }).count()).toBe(0);
@@ -94,13 +68,13 @@ describe('a new member through the local inbox', () => {
 
   it('resets a forgotten password through the local inbox', async () => {
     const page = await newPage(PHONE);
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${studio.server.url}/sign-in`);
     await page.getByText('Forgot your password?').click();
     await page.getByLabel('E-mail').fill('artlead@brassmoth.test');
     await page.getByRole('button', { name: 'Send reset link' }).click();
     await page.getByText('If that address has a Treadle account', { exact: false }).waitFor();
     await screenshot(page, 'reset-request-phone');
-    const mail = await server.mail.waitFor((m) => m.to === 'artlead@brassmoth.test');
+    const mail = await studio.server.mail.waitFor((m) => m.to === 'artlead@brassmoth.test');
     await page.goto(mail.text.match(/http:\/\/\S+\/reset-password\/\S+/)![0]);
     await page.getByLabel('New password').fill('scrapyard sunrise');
     await page.getByRole('button', { name: 'Set new password' }).click();
