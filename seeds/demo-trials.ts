@@ -9,9 +9,24 @@ import { DEMO_SUITE } from './demo-courses';
 
 /**
  * A first leg setup version for each demo character (the engine's defaults), a second for Burrow with the body
- * lowered (its legs stand almost straight at rest), and a stored trial per character on the first demo courses, run
+ * lowered (its legs stand almost straight at rest) and for Wicket with wider ankles, and a stored trial per character on the first demo courses, run
  * here synchronously through the engine. Characters that already have a setup are left as they are.
  */
+/** Wicket's second version, as a designer would tune it by hand after reading its first trials. */
+function wicketByHand(defaults: LegSetup, legs: { leg: string; knee: string; ankle: string }[]): LegSetup {
+  return {
+    ...defaults,
+    body: { ...defaults.body, heightOffset: -0.1 },
+    legs: legs.map(({ leg, knee, ankle }) => ({
+      leg,
+      limits: [
+        { joint: ankle, dof: 0, min: -1.2, max: 1.2 },
+        { joint: knee, dof: 0, min: -0.3, max: 2.4 },
+      ],
+    })),
+  };
+}
+
 /** Courses of the demo suite each character gets a stored trial on (the first ones; a few trials are enough to show). */
 const SEEDED_COURSES = 2;
 
@@ -31,6 +46,11 @@ export async function seedDemoTrials(db: Db, teamId: number, userId: number, now
     if (c.name === 'Burrow') {
       setup = { ...defaults, body: { ...defaults.body, heightOffset: -0.18 } };
       legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Body 18 cm lower: the legs stood almost straight and missed their reach.', source: 'seed', now: at + 1000 });
+    }
+    if (c.name === 'Wicket') {
+      setup = wicketByHand(defaults, character.rig.legs.map((l) => ({ leg: l.name, knee: l.chain.joints[1].name, ankle: l.chain.joints[2].name })));
+      const note = 'Body 10 cm lower, ankles free to ±69°: the detected ankle range was too tight for feet that plant at the toe, so every step snapped.';
+      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note, source: 'seed', now: at + 1000 });
     }
     for (const courseId of courseIds.slice(0, SEEDED_COURSES)) {
       const course = await loadCourse(db, teamId, courseId);
