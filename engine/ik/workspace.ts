@@ -432,24 +432,15 @@ export function resetPose(ws: IKWorkspace): void {
   }
 }
 
+// Scratch for the scalar entry point, so both entry points share one exp map without allocating.
+const ROTATION_VECTOR = new Float64Array(3);
+
 /** Rotation vector → unit quaternion (exact exp map), written at q[o..o+3]. */
 export function expRotationVector(x: number, y: number, z: number, q: Float64Array, o: number): void {
-  const t2 = x * x + y * y + z * z;
-  let s: number;
-  let c: number;
-  if (t2 < 1e-2) {
-    const h2 = t2 * 0.25;
-    c = 1 - h2 / 2 + (h2 * h2) / 24 - (h2 * h2 * h2) / 720 + (h2 * h2 * h2 * h2) / 40320;
-    s = 0.5 * (1 - h2 / 6 + (h2 * h2) / 120 - (h2 * h2 * h2) / 5040 + (h2 * h2 * h2 * h2) / 362880);
-  } else {
-    const t = Math.sqrt(t2);
-    c = Math.cos(t / 2);
-    s = Math.sin(t / 2) / t;
-  }
-  q[o] = x * s;
-  q[o + 1] = y * s;
-  q[o + 2] = z * s;
-  q[o + 3] = c;
+  ROTATION_VECTOR[0] = x;
+  ROTATION_VECTOR[1] = y;
+  ROTATION_VECTOR[2] = z;
+  expRotationVectorAt(ROTATION_VECTOR, 0, q, o);
 }
 
 /** expRotationVector reading the rotation vector from v[vo..vo+2] (no boxed arguments). */

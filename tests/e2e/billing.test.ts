@@ -7,16 +7,8 @@ jest.setTimeout(180_000);
 const studio = e2eStudio();
 
 async function signedInPage(size: { width: number; height: number }, email: string): Promise<Page> {
-  const context = await studio.browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-  const page = await context.newPage();
-  page.on('pageerror', (err) => {
-    throw err;
-  });
-  await page.goto(`${studio.server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('treadle-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByText('Brassmoth Interactive', { exact: true }).first().waitFor();
+  const page = await studio.newPage(size);
+  await studio.signIn(page, email);
   await page.goto(`${studio.server.url}/team/billing`);
   await page.getByRole('heading', { name: 'Billing', level: 1 }).waitFor();
   return page;

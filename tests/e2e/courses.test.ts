@@ -8,23 +8,8 @@ jest.setTimeout(180_000);
 
 const studio = e2eStudio();
 
-async function newPage(size: { width: number; height: number }, touch = false): Promise<Page> {
-  const context = await studio.browser.newContext({ viewport: size, deviceScaleFactor: 1, hasTouch: touch, isMobile: false });
-  const page = await context.newPage();
-  page.on('pageerror', (err) => {
-    throw err;
-  });
-  return page;
-}
-
-async function signInAsDesigner(page: Page) {
-  await page.goto(`${studio.server.url}/`);
-  await page.waitForURL('**/sign-in');
-  await page.getByLabel('E-mail').fill('designer@brassmoth.test');
-  await page.getByLabel('Password').fill('treadle-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Home' }).waitFor();
-}
+const newPage = (size: { width: number; height: number }, touch = false) => studio.newPage(size, { hasTouch: touch, isMobile: false });
+const signInAsDesigner = (page: Page) => studio.signIn(page, 'designer@brassmoth.test');
 
 async function courseByName(page: Page, name: string): Promise<CourseDetail> {
   const list = (await (await page.request.get(`${studio.server.url}/api/courses`)).json()) as CourseList;
