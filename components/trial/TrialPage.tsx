@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { decodeCourse } from '../../engine/course/encoding';
 import { decodeSeries } from '../../engine/gait/series-encoding';
@@ -20,9 +20,13 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
   const wide = useIsWide();
   const series = useMemo(() => decodeSeries(detail.series), [detail.series]);
   const course = useMemo(() => (detail.course ? decodeCourse(detail.course) : null), [detail.course]);
-  const [time, setTime] = useState(0);
+  const [time, setTimeRaw] = useState(0);
   const { trial } = detail;
   const duration = Math.max(0, (series.length - 1) / series.rate);
+  // Whatever asks to move the playhead, the clock only ever holds a time inside the walk.
+  const setTime = useCallback((t: number) => {
+    if (Number.isFinite(t)) setTimeRaw(Math.min(duration, Math.max(0, t)));
+  }, [duration]);
   const setupLabel = trial.legSetupVersion ? `leg setup v${trial.legSetupVersion}` : 'an unsaved leg setup';
 
   const playback = course ? (

@@ -92,13 +92,21 @@ export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): 
   const footGeometry = new THREE.SphereGeometry(0.035 * h + 0.01, 12, 8);
   const ringGeometry = new THREE.TorusGeometry(0.05 * h + 0.012, 0.006, 6, 20);
   const ringMaterial = new THREE.MeshBasicMaterial({ color: colors.moss });
-  const legs = rig.legs.map(() => {
-    const line = new THREE.Line(new THREE.BufferGeometry(), legMaterial);
+  const legs = rig.legs.map((leg) => {
+    // Hip, every joint after it, the foot: the buffer is sized once and drawn up to what this frame fills.
+    const positions = new Float32Array(3 * (leg.chain.joints.length + 2));
+    const geometry = new THREE.BufferGeometry();
+    const attribute = new THREE.BufferAttribute(positions, 3);
+    attribute.setUsage(THREE.DynamicDrawUsage);
+    geometry.setAttribute('position', attribute);
+    const line = new THREE.Line(geometry, legMaterial);
+    // The points move every frame; bounds from the first frame would cull the line once the walk leaves them.
+    line.frustumCulled = false;
     const foot = new THREE.Mesh(footGeometry, stanceMaterial);
     const target = new THREE.Mesh(ringGeometry, ringMaterial);
     target.rotation.x = Math.PI / 2;
     scene.add(line, foot, target);
-    return { line, foot, target };
+    return { line, attribute, positions, foot, target };
   });
   const rot = new THREE.Quaternion();
   const euler = new THREE.Euler();
@@ -115,14 +123,25 @@ export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): 
       body.quaternion.copy(rot);
       rig.legs.forEach((leg, i) => {
         const parts = legs[i];
+        const pts = parts.positions;
         v.set(leg.hip[0], leg.hip[1], leg.hip[2]).applyQuaternion(rot).add(body.position);
-        const pts = [v.clone()];
+        pts[0] = v.x;
+        pts[1] = v.y;
+        pts[2] = v.z;
+        let n = 1;
         const joints = p.joints?.[i];
-        if (joints) for (let k = 3; k + 2 < joints.length; k += 3) pts.push(new THREE.Vector3(joints[k], joints[k + 1], joints[k + 2]));
-        const foot = new THREE.Vector3(p.feet[3 * i], p.feet[3 * i + 1], p.feet[3 * i + 2]);
-        pts.push(foot);
-        parts.line.geometry.setFromPoints(pts);
-        parts.foot.position.copy(foot);
+        if (joints) for (let k = 3; k + 2 < joints.length && n + 1 < pts.length / 3; k += 3, n++) {
+          pts[3 * n] = joints[k];
+          pts[3 * n + 1] = joints[k + 1];
+          pts[3 * n + 2] = joints[k + 2];
+        }
+        pts[3 * n] = p.feet[3 * i];
+        pts[3 * n + 1] = p.feet[3 * i + 1];
+        pts[3 * n + 2] = p.feet[3 * i + 2];
+        n++;
+        parts.attribute.needsUpdate = true;
+        parts.line.geometry.setDrawRange(0, n);
+        parts.foot.position.set(p.feet[3 * i], p.feet[3 * i + 1], p.feet[3 * i + 2]);
         parts.foot.material = p.contact[i] ? stanceMaterial : swingMaterial;
         parts.target.position.set(p.targets[3 * i], p.targets[3 * i + 1] + 0.003, p.targets[3 * i + 2]);
       });

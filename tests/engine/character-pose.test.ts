@@ -79,7 +79,7 @@ describe('the character mesh posed from a trial replay', () => {
       demo.rig.legs.forEach((_, i) => {
         const end = demo.ends[i];
         // boneMatrices[end] = world · inverse bind; times the bind matrix gives the joint's world transform.
-        m.fromArray(skeleton.boneMatrices, 16 * end).multiply(new THREE.Matrix4().copy(skeleton.boneInverses[end]).invert());
+        m.fromArray(skeleton.boneMatrices!, 16 * end).multiply(new THREE.Matrix4().copy(skeleton.boneInverses[end]).invert());
         p.setFromMatrixPosition(m);
         const o = 3 * (k * series.legs + i);
         const d = Math.hypot(p.x - series.foot[o], p.y - series.foot[o + 1], p.z - series.foot[o + 2]);
