@@ -6,6 +6,7 @@ import { quat, vec3 } from 'gl-matrix';
 import * as sample from '../course/sample';
 import * as ikWorkspace from '../ik/workspace';
 import * as bodyFilter from './body-filter';
+import { COMFORT_MAX } from './reach';
 import type { Trial } from './trial-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
@@ -22,15 +23,21 @@ const hipWorld = new Float64Array(3);
 const hipRot = new Float64Array(4);
 const legRot = new Float64Array(4);
 const pitchRot = new Float64Array(4);
+const footX = new Float64Array(64);
+const footH = new Float64Array(64);
+const footZ = new Float64Array(64);
 
 /** Filled by computeBodyTargets: height (m), pitch (nose up) and roll (left up), rad. */
 export const bodyTargets = new Float64Array(3);
 
 /**
- * Targets from the last planted height of every foot: the height follows
- * their mean (blended with the ground under the body by followHeight), pitch
- * and roll follow the least-squares slope of those heights along and across
- * the walk, and the body crouches on slopes by slopeCrouch.
+ * Targets from the footholds: planted feet where they stand and swinging feet
+ * where they will land, so the body rises before a step-up and lowers before
+ * a step-down. The height follows their mean (blended with the ground under
+ * the body by followHeight); pitch and roll follow the least-squares slope of
+ * those heights along and across the walk; the body crouches on slopes by
+ * slopeCrouch. The height is then capped so that every stance leg stays
+ * inside its comfortable reach (reach.ts): no leg is driven straight.
  */
 export function computeBodyTargets(t: Trial): void {
   const L = t.legs;
@@ -39,9 +46,18 @@ export function computeBodyTargets(t: Trial): void {
   let mx = 0;
   let mz = 0;
   for (let i = 0; i < L; i++) {
-    mh += t.support[i];
-    mx += t.plant[3 * i];
-    mz += t.plant[3 * i + 2];
+    const o = 3 * i;
+    const sw = t.swings[i];
+    const planted = t.stance[i] === 1;
+    const x = planted ? t.plant[o] : sw.x1;
+    const h = planted ? t.support[i] : sw.y1;
+    const z = planted ? t.plant[o + 2] : sw.z1;
+    footX[i] = x;
+    footH[i] = h;
+    footZ[i] = z;
+    mh += h;
+    mx += x;
+    mz += z;
   }
   mh /= L;
   mx /= L;
@@ -51,9 +67,9 @@ export function computeBodyTargets(t: Trial): void {
   let sxh = 0;
   let szh = 0;
   for (let i = 0; i < L; i++) {
-    const dx = t.plant[3 * i] - mx;
-    const dz = t.plant[3 * i + 2] - mz;
-    const dh = t.support[i] - mh;
+    const dx = footX[i] - mx;
+    const dz = footZ[i] - mz;
+    const dh = footH[i] - mh;
     sxx += dx * dx;
     szz += dz * dz;
     sxh += dx * dh;
@@ -68,17 +84,48 @@ export function computeBodyTargets(t: Trial): void {
   const bz = t.bodyPos[2];
   const under = heightAt(t.course, 0, bz);
   const ground = under + (mh - under) * b.followHeight;
-  const crouch = b.slopeCrouch * t.rig.hipHeight * Math.sqrt(pitchRaw * pitchRaw + rollRaw * rollRaw);
-  bodyTargets[0] = ground + t.rig.hipHeight + b.heightOffset - crouch;
+  const crouch = b.slopeCrouch * t.walkHeight * Math.sqrt(pitchRaw * pitchRaw + rollRaw * rollRaw);
+  const wanted = ground + t.walkHeight + b.heightOffset - crouch;
+  t.heightCap = stanceHeightCap(t, TARGET_CAP);
+  const comfortable = stanceHeightCap(t, COMFORT_MAX);
+  bodyTargets[0] = wanted < comfortable ? wanted : comfortable;
   bodyTargets[1] = pitchRaw * b.followPitch;
   bodyTargets[2] = rollRaw * b.followRoll;
 }
 
-/** One filter step of the body height, pitch and roll toward bodyTargets. */
+/** The filter may lag behind a falling cap; past this share of reach the body is held down outright. */
+const TARGET_CAP = 0.96;
+
+/** Highest body height at which every stance leg's hip is within `share` of its reach from its planted foot. */
+function stanceHeightCap(t: Trial, share: number): number {
+  let cap = Infinity;
+  for (let i = 0; i < t.legs; i++) {
+    if (!t.stance[i]) continue;
+    const leg = t.rig.legs[i];
+    hipLocal[0] = leg.hip[0];
+    hipLocal[1] = leg.hip[1];
+    hipLocal[2] = leg.hip[2];
+    transformQuat(hipWorld as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
+    const o = 3 * i;
+    const dx = t.bodyPos[0] + hipWorld[0] - t.plant[o];
+    const dz = t.bodyPos[2] + hipWorld[2] - t.plant[o + 2];
+    const r = share * leg.chain.reach;
+    const h2 = r * r - dx * dx - dz * dz;
+    const top = t.plant[o + 1] + (h2 > 0 ? Math.sqrt(h2) : 0) - hipWorld[1];
+    if (top < cap) cap = top;
+  }
+  return cap;
+}
+
+/** One filter step of the body height, pitch and roll toward bodyTargets; the height never passes the stance cap. */
 export function followBodyTargets(t: Trial): void {
   stepCritical(t.height, bodyTargets[0], t.filter);
   stepCritical(t.pitch, bodyTargets[1], t.filter);
   stepCritical(t.roll, bodyTargets[2], t.filter);
+  if (t.height.value > t.heightCap) {
+    t.height.value = t.heightCap;
+    if (t.height.velocity > 0) t.height.velocity = 0;
+  }
   t.bodyPos[1] = t.height.value;
 }
 

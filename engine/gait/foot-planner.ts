@@ -1,24 +1,38 @@
 /**
- * Foot planner: where each foot lands and how it gets there. A touchdown
- * target lies ahead of the leg's neutral spot by half the stance travel, on
- * the ground, with the ground normal as the foot's orientation; a planted
- * foot stays locked; a swinging foot follows its planned path (swing-path.ts).
+ * Foot planner: where each foot lands and how it gets there. At liftoff the
+ * touchdown spot is chosen from candidates around the nominal spot (ahead of
+ * the leg's neutral spot by half the stance travel) by the foothold cost
+ * (foothold.ts), rejecting what the leg cannot reach from the hip as it will
+ * be; the swing starts from where the foot really is, so after a stumble the
+ * next step is planned from the truth. A planted foot stays locked; a
+ * swinging foot follows its planned path (swing-path.ts).
  */
+import { quat, vec3 } from 'gl-matrix';
 import * as sample from '../course/sample';
+import { terrainCost } from './foothold';
+import { CANDIDATE_PATTERN, CANDIDATE_COUNT } from './foothold';
+import { CANDIDATE_MAX, REACH_COST_START } from './reach';
 import * as swingPath from './swing-path';
 import type { Trial } from './trial-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { heightAt, normalAt } = sample;
 const { minimumJerk, planSwing, swingPoint } = swingPath;
+const { transformQuat } = vec3;
+
+/** Winter (1992): minimum toe clearance in swing about 1.29 cm; no swing plans less. */
+export const MIN_TOE_CLEARANCE = 0.0129;
 
 const landing = new Float64Array(3);
+const terrain = new Float64Array(1);
+const hipLocal = new Float64Array(3);
+const hipOffset = new Float64Array(3);
 
 export function bodyZAt(t: Trial, time: number): number {
   return t.startZ + t.gait.speed * time;
 }
 
-/** Where leg i touches down at `time`: ahead of its neutral spot by half the stance travel. */
+/** The nominal touchdown spot of leg i at `time`: ahead of its neutral spot by half the stance travel. */
 export function touchdownPoint(t: Trial, i: number, time: number, out: Float64Array, o: number): void {
   const leg = t.rig.legs[i];
   const x = leg.neutralFoot[0];
@@ -36,20 +50,101 @@ export function plantAt(t: Trial, i: number, x: number, y: number, zz: number): 
   t.support[i] = y;
 }
 
-/** Plan leg i's swing from its planted spot to the touchdown at `landTime`. */
-export function startSwing(t: Trial, i: number, landTime: number): void {
+/** Height leg i's support will have once it has landed: planted legs where they stand, swinging ones where they land. */
+function nextSupportHeight(t: Trial, j: number): number {
+  return t.stance[j] ? t.support[j] : t.swings[j].y1;
+}
+
+/**
+ * Choose leg i's touchdown spot for a landing at `landTime` into out (x, y, z):
+ * the cheapest reachable candidate around the nominal spot; when none is
+ * reachable, the one that over-reaches least.
+ */
+export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float64Array): void {
   touchdownPoint(t, i, landTime, landing, 0);
+  const w = t.setup.footholds;
+  const leg = t.rig.legs[i];
+  const reach = leg.chain.reach;
+  const radius = w.searchRadius * t.gait.stride;
+  // The hip at touchdown and at the following liftoff, the body at the height these footholds will give it.
+  hipLocal[0] = leg.hip[0];
+  hipLocal[1] = leg.hip[1];
+  hipLocal[2] = leg.hip[2];
+  transformQuat(hipOffset as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
+  let others = 0;
+  for (let j = 0; j < t.legs; j++) if (j !== i) others += nextSupportHeight(t, j);
+  const lift = t.walkHeight + t.setup.body.heightOffset + hipOffset[1];
+  const hx = t.bodyPos[0] + hipOffset[0];
+  const hzDown = bodyZAt(t, landTime) + hipOffset[2];
+  const hzUp = hzDown + t.gait.speed * t.gait.dutyFactor * t.gait.cycleTime;
+  const limit = CANDIDATE_MAX * reach;
+  const soleHalf = t.soleHalf[i];
+
+  let best = Infinity;
+  let bestOver = Infinity;
+  let bx = landing[0];
+  let by = landing[1];
+  let bz = landing[2];
+  let found = false;
+  for (let k = 0; k < CANDIDATE_COUNT; k++) {
+    const cx = landing[0] + CANDIDATE_PATTERN[2 * k] * radius;
+    const cz = landing[2] + CANDIDATE_PATTERN[2 * k + 1] * radius;
+    const cost = terrainCost(t.course, cx, cz, soleHalf, w, terrain);
+    const cy = terrain[0];
+    const hy = (others + cy) / t.legs + lift;
+    const dx = cx - hx;
+    const dy = cy - hy;
+    const dDown = Math.sqrt(dx * dx + dy * dy + (cz - hzDown) * (cz - hzDown));
+    const dUp = Math.sqrt(dx * dx + dy * dy + (cz - hzUp) * (cz - hzUp));
+    const d = dDown > dUp ? dDown : dUp;
+    if (d > limit) {
+      if (!found && d < bestOver) {
+        bestOver = d;
+        bx = cx;
+        by = cy;
+        bz = cz;
+      }
+      continue;
+    }
+    const dn = Math.sqrt((cx - landing[0]) * (cx - landing[0]) + (cz - landing[2]) * (cz - landing[2]));
+    const over = d / reach - REACH_COST_START;
+    let total = cost + (radius > 0 ? (w.distanceWeight * dn) / radius : 0);
+    if (over > 0) total += w.reachWeight * (over / (CANDIDATE_MAX - REACH_COST_START)) ** 2;
+    if (total < best) {
+      best = total;
+      found = true;
+      bx = cx;
+      by = cy;
+      bz = cz;
+    }
+  }
+  out[0] = bx;
+  out[1] = by;
+  out[2] = bz;
+}
+
+/** Plan leg i's swing from where its foot is to the foothold chosen for the touchdown at `landTime`. */
+export function startSwing(t: Trial, i: number, landTime: number): void {
+  chooseFoothold(t, i, landTime, landing);
+  // After a stumble (the foot is not where it was planted) the swing starts from where the foot really is.
+  const foot = t.solvers[i].foot;
   const p = t.plant;
+  const o = 3 * i;
+  const off = Math.sqrt((foot[0] - p[o]) ** 2 + (foot[1] - p[o + 1]) ** 2 + (foot[2] - p[o + 2]) ** 2);
+  const fromTruth = t.started && off > t.options.thresholds.reachMissResidual;
+  const fromX = fromTruth ? foot[0] : p[o];
+  const fromZ = fromTruth ? foot[2] : p[o + 2];
+  const fromY = fromTruth ? Math.max(foot[1], heightAt(t.course, fromX, fromZ)) : p[o + 1];
   planSwing(
     t.course,
     t.swings[i],
-    p[3 * i],
-    p[3 * i + 1],
-    p[3 * i + 2],
+    fromX,
+    fromY,
+    fromZ,
     landing[0],
     landing[1],
     landing[2],
-    t.gait.stepHeight,
+    Math.max(t.gait.stepHeight, MIN_TOE_CLEARANCE),
   );
   for (let k = 0; k < 3; k++) t.liftNormal[3 * i + k] = t.plantNormal[3 * i + k];
   normalAt(t.course, landing[0], landing[2], t.landNormal, 3 * i);

@@ -13,6 +13,12 @@ import { DEFAULT_FROUDE, speedForFroude } from './stride';
 
 export const LEG_SETUP_VERSION = 1;
 
+/**
+ * Default joint speed limit, °/s: under the 720 °/s snap threshold, above the
+ * few hundred °/s a knee reaches in walking (from memory, Winter's gait data).
+ */
+export const DEFAULT_MAX_JOINT_SPEED = 600;
+
 export const SolverSettingsSchema = z.object({
   method: z.enum(SOLVER_METHODS as unknown as [SolverMethod, ...SolverMethod[]]),
   maxIterations: z.number().int().min(1).max(1000),
@@ -39,6 +45,11 @@ export const SolverSettingsSchema = z.object({
   warmStart: z.enum(['previous', 'extrapolate']),
   /** Align the sole with the ground normal (needs an ankle: on by default only for legs with 6 or more DOFs). */
   footOrientation: z.boolean(),
+  /**
+   * Largest joint speed a frame's solve may ask for, °/s: a solve that would
+   * flip a leg from one bend to another in one frame is spread over several.
+   */
+  maxJointSpeed: z.number().positive().max(100000).default(DEFAULT_MAX_JOINT_SPEED).describe('°/s'),
 });
 
 export const GaitSettingsSchema = z.object({
@@ -69,6 +80,26 @@ export const BodySettingsSchema = z.object({
   slopeCrouch: z.number().min(0).max(2),
 });
 
+/** The foothold search (foothold.ts): radius as a share of the stride, and the weights of its cost. */
+export const FootholdSettingsSchema = z.object({
+  searchRadius: z.number().min(0).max(1).describe('candidate search radius as a share of the stride'),
+  distanceWeight: z.number().min(0).max(100).describe('cost of a candidate at the search radius from the nominal spot'),
+  slopeWeight: z.number().min(0).max(100).describe('cost per radian of ground slope'),
+  roughnessWeight: z.number().min(0).max(1000).describe('cost per metre of mean height spread under the sole'),
+  edgeWeight: z.number().min(0).max(1000).describe('cost per metre of height jump under the sole'),
+  reachWeight: z.number().min(0).max(100).describe('cost of a candidate at the rejection limit of reach'),
+});
+
+/** Foothold defaults: our own choice (common practice, no source): one stair nosing under the sole's rim outweighs the whole search radius. */
+export const DEFAULT_FOOTHOLDS: FootholdSettings = {
+  searchRadius: 0.18,
+  distanceWeight: 1,
+  slopeWeight: 2,
+  roughnessWeight: 20,
+  edgeWeight: 40,
+  reachWeight: 4,
+};
+
 export const JointLimitOverrideSchema = z
   .object({
     joint: z.string().min(1),
@@ -93,6 +124,7 @@ export const LegSetupSchema = z
     solver: SolverSettingsSchema,
     gait: GaitSettingsSchema,
     body: BodySettingsSchema,
+    footholds: FootholdSettingsSchema.default(() => ({ ...DEFAULT_FOOTHOLDS })),
     legs: z.array(LegOverrideSchema).max(16).default([]),
   })
   .superRefine((s, ctx) => {
@@ -104,6 +136,7 @@ export const LegSetupSchema = z
 export type SolverSettings = z.infer<typeof SolverSettingsSchema>;
 export type GaitSettings = z.infer<typeof GaitSettingsSchema>;
 export type BodySettings = z.infer<typeof BodySettingsSchema>;
+export type FootholdSettings = z.infer<typeof FootholdSettingsSchema>;
 export type LegOverride = z.infer<typeof LegOverrideSchema>;
 export type LegSetup = z.infer<typeof LegSetupSchema>;
 export type LegSetupInput = z.input<typeof LegSetupSchema>;
@@ -160,6 +193,7 @@ export function defaultSolverSettings(footOrientation: boolean): SolverSettings 
     resolveSaturated: o.resolveSaturated,
     warmStart: 'extrapolate',
     footOrientation,
+    maxJointSpeed: DEFAULT_MAX_JOINT_SPEED,
   };
 }
 
@@ -180,6 +214,7 @@ export function defaultLegSetup(rig: Rig): LegSetup {
       stepHeight: DEFAULT_STEP_HEIGHT_RATIO * rig.hipHeight,
     },
     body: { ...DEFAULT_BODY },
+    footholds: { ...DEFAULT_FOOTHOLDS },
     legs: [],
   };
 }

@@ -34,6 +34,17 @@ export interface Trial {
   readonly totalFrames: number;
   frame: number;
   readonly startZ: number;
+  /** False while createTrial places the feet (before the first solve). */
+  started: boolean;
+  /** Neutral body height above the footholds (walk-height.ts), m. */
+  readonly walkHeight: number;
+  /** Highest body height that keeps every stance leg inside its reach this frame (body-pose.ts), m. */
+  heightCap: number;
+  /** Per leg: half the sole's length, for the foothold footprint, m. */
+  readonly soleHalf: Float64Array;
+  /** Per leg: the joint speed limit as a largest change per frame, rad; and the scratch pose it is applied in. */
+  readonly maxJointStep: Float64Array;
+  readonly limitedPose: Float64Array[];
 
   // Per leg state (index = leg).
   /** Gait phase this frame: 0 at touchdown, dutyFactor at liftoff. */

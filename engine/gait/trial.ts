@@ -17,6 +17,7 @@
 import type { Heightfield } from '../course/heightfield';
 import { courseLength } from '../course/heightfield';
 import { parseOrThrow } from '../course/parse';
+import * as ikKinematics from '../ik/kinematics';
 import * as ikSolve from '../ik/solve';
 import * as ikWorkspace from '../ik/workspace';
 import type { LegChain } from '../rig/types';
@@ -27,7 +28,9 @@ import { bodyTargets, computeBodyTargets, followBodyTargets, placeHips, updateBo
 import { bodyZAt, plantAt, startSwing, touchdownPoint, updateTargets } from './foot-planner';
 import { resolveGait } from './gait-params';
 import { checkLegSetupForRig, legSolverSettings, parseLegSetup, solverOptionsOf, type LegSetup } from './leg-setup';
+import { pullInsideReach, TARGET_MAX } from './reach';
 import { checkRig, type Rig } from './rig';
+import { neutralWalkHeight } from './walk-height';
 import { createSeries } from './series';
 import * as swingPath from './swing-path';
 import * as timing from './timing';
@@ -52,12 +55,22 @@ export * from './trial-options';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { solve } = ikSolve;
-const { createWorkspace, DOF_BALL, DOF_SLIDE } = ikWorkspace;
+const { createWorkspace, setPose, DOF_BALL, DOF_SLIDE } = ikWorkspace;
+const { forwardKinematics } = ikKinematics;
+
+function distance3(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  const dx = a[0] - b[0];
+  const dy = a[1] - b[1];
+  const dz = a[2] - b[2];
+  return Math.sqrt(dx * dx + dy * dy + dz * dz);
+}
 const { createDampedState, createCriticalFilter } = bodyFilter;
 const { createSwingPlan, descentStart } = swingPath;
 const { legPhase, writeLegPhases } = timing;
 
 const landing = new Float64Array(3);
+const aim = new Float64Array(3);
+const aimNormal = new Float64Array(3);
 
 function chainWithOverrides(chain: LegChain, setup: LegSetup, legName: string): LegChain {
   const o = setup.legs.find((l) => l.leg === legName);
@@ -115,6 +128,12 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     gait,
     legs: L,
     solvers,
+    started: false,
+    walkHeight: neutralWalkHeight(rig, gait),
+    heightCap: Infinity,
+    soleHalf: Float64Array.from(rig.legs, (l) => soleHalfLength(l.chain)),
+    maxJointStep: Float64Array.from(legSolvers, (s) => (s.maxJointSpeed / DEG) * options.timeStep),
+    limitedPose: solvers.map((s) => new Float64Array(s.nDof)),
     orient: Uint8Array.from(legSolvers, (s) => (s.footOrientation ? 1 : 0)),
     totalFrames,
     frame: 0,
@@ -192,8 +211,32 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     t.olderPose[i].set(r.pose);
   }
   observe(t, 0, false);
+  t.started = true;
   return t;
 }
+
+/** Half the sole's length: from the toe when the chain has one, else from the reach (common practice, no source). */
+function soleHalfLength(chain: LegChain): number {
+  const toe = chain.toe?.offset;
+  const fromToe = toe ? 0.7 * Math.hypot(toe[0] - chain.sole[0], toe[1] - chain.sole[1], toe[2] - chain.sole[2]) : 0.06 * chain.reach;
+  return Math.min(0.1, Math.max(0.03, fromToe));
+}
+
+/**
+ * How much of the ground-normal target a swinging sole follows, by swing progress:
+ * flat at liftoff and touchdown, free in mid-swing, where a foot held flat
+ * would drive the ankle into its limit and the hip into a twist.
+ */
+function swingOrientationShare(tau: number): number {
+  if (tau < 0.5) {
+    const u = 1 - tau / SWING_RELEASE;
+    return u <= 0 ? 0 : u * u * (3 - 2 * u);
+  }
+  const u = (tau - SWING_CATCH) / (1 - SWING_CATCH - 0.05);
+  return u <= 0 ? 0 : u >= 1 ? 1 : u * u * (3 - 2 * u);
+}
+const SWING_RELEASE = 0.25;
+const SWING_CATCH = 0.55;
 
 /** Advance one frame; returns false once the trial is over. */
 export function stepTrial(t: Trial): boolean {
@@ -218,6 +261,8 @@ export function stepTrial(t: Trial): boolean {
     } else {
       if (t.touchdownWindows[i].open) t.touchdownSummary.fold(t.touchdownWindows[i]);
       startSwing(t, i, time + (1 - phase) * T);
+      // A new foothold moves the body's target as much as a touchdown does: the body looks ahead.
+      supportChanged = true;
     }
   }
 
@@ -268,7 +313,25 @@ export function stepTrial(t: Trial): boolean {
       }
       older.set(prev);
     }
-    const r = solve(ws, t.targetOf[i], t.orient[i] ? t.targetNormalOf[i] : null);
+    // Never chase a point out of reach: aim at the nearest point of the reach sphere (the metrics still see the real target).
+    const o = 3 * i;
+    aim[0] = t.target[o];
+    aim[1] = t.target[o + 1];
+    aim[2] = t.target[o + 2];
+    pullInsideReach(ws.rootPos[0], ws.rootPos[1], ws.rootPos[2], TARGET_MAX * t.rig.legs[i].chain.reach, aim, 0);
+    let normal: Float64Array | null = null;
+    if (t.orient[i]) {
+      if (t.stance[i]) normal = t.targetNormalOf[i];
+      else {
+        const share = swingOrientationShare((t.phase[i] - beta) / (1 - beta));
+        if (share > 1e-3) {
+          const up = ws.footUp;
+          for (let k = 0; k < 3; k++) aimNormal[k] = up[k] + (t.targetNormal[o + k] - up[k]) * share;
+          normal = aimNormal;
+        }
+      }
+    }
+    const r = solve(ws, aim, normal);
     t.iterations[i] = r.iterations;
     t.error[i] = r.positionError;
     t.solves++;
@@ -276,13 +339,29 @@ export function stepTrial(t: Trial): boolean {
     t.solverError[0] += r.positionError;
     if (r.positionError > t.solverError[1]) t.solverError[1] = r.positionError;
     if (!r.converged) t.unconverged++;
+    // Joint speed limit: a pose change faster than the limit is spread over the next frames.
+    const limit = t.maxJointStep[i];
+    const limited = t.limitedPose[i];
+    let over = false;
+    for (let d = 0; d < ws.nDof; d++) {
+      const change = r.pose[d] - prev[d];
+      if (ws.dKind[d] !== DOF_SLIDE && (change > limit || change < -limit)) {
+        limited[d] = prev[d] + (change > 0 ? limit : -limit);
+        over = true;
+      } else limited[d] = r.pose[d];
+    }
+    if (over) {
+      setPose(ws, limited);
+      forwardKinematics(ws);
+      t.error[i] = distance3(ws.foot, aim);
+    }
     let fastest = 0;
     for (let d = 0; d < ws.nDof; d++) {
       if (ws.dKind[d] === DOF_SLIDE) continue;
-      const change = Math.abs(r.pose[d] - prev[d]);
+      const change = Math.abs(ws.pose[d] - prev[d]);
       if (change > fastest) fastest = change;
     }
-    prev.set(r.pose);
+    prev.set(ws.pose);
     t.jointSpeed[i] = (fastest / dt) * DEG;
   }
   observe(t, time, true);

@@ -20,7 +20,7 @@ describe('leg setup schema', () => {
   });
   it('converts to a JSON Schema (zod 4 toJSONSchema), as the profile export needs', () => {
     const schema = z.toJSONSchema(LegSetupSchema, { io: 'input' }) as { properties: Record<string, unknown> };
-    expect(Object.keys(schema.properties)).toEqual(['version', 'solver', 'gait', 'body', 'legs']);
+    expect(Object.keys(schema.properties)).toEqual(['version', 'solver', 'gait', 'body', 'footholds', 'legs']);
   });
   it('takes its solver defaults from the IK engine', () => {
     const s = defaultLegSetup(presetRig('quadruped'));

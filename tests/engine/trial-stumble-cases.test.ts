@@ -60,12 +60,20 @@ describe('snap', () => {
   const snapsWith = (lambda: number) => {
     const s = defaultLegSetup(stilts);
     s.solver.lambda = lambda;
+    // The joint speed limit off: these checks are about the solver's own pops.
+    s.solver.maxJointSpeed = 100000;
     s.gait.stride = 0.6;
     s.gait.timing = { mode: 'speed', speed: 0.8 };
     return runTrial(stilts, s, rubble, { duration: 20 }).metrics.stumbles.snap.count;
   };
-  it('λ = 0 at full extension on rubble snaps more than a tuned λ (Buss 2004: damping bounds the steps near a singularity)', () => {
-    expect(snapsWith(0)).toBeGreaterThan(snapsWith(0.03));
+  // Straight stance legs are where an undamped solver pops (Buss 2004); the body keeps every stance leg
+  // inside its comfortable reach, so neither setting snaps, and more damping never means more snaps
+  // (reach band: common practice, no source).
+  it('stilts on rubble: no snaps with λ = 0 or a tuned λ, because no stance leg is driven straight', () => {
+    const undamped = snapsWith(0);
+    const damped = snapsWith(0.03);
+    expect(undamped).toBe(0);
+    expect(damped).toBeLessThanOrEqual(undamped);
   });
 
   // The wave gait swings one leg at a time, in a sixth of the cycle: speed sets how fast the joints must move.
@@ -75,6 +83,7 @@ describe('snap', () => {
     s.gait.pattern = 'hexapod-wave';
     s.gait.dutyFactor = PRESET_GAITS['hexapod-wave'].dutyFactor;
     s.gait.timing = { mode: 'speed', speed };
+    s.solver.maxJointSpeed = 100000;
     const r = runTrial(rig, s, flatCourse(30), { duration: 15, recordRate: 60 });
     let fastest = 0;
     for (let k = 10; k < r.series.length; k++) for (let i = 0; i < 6; i++) fastest = Math.max(fastest, r.series.jointSpeed[k * 6 + i]);
@@ -100,8 +109,18 @@ describe('scuff', () => {
     s.solver.lambda = 0.1;
     s.solver.warmStart = 'previous';
   };
-  it('a biped lifting its feet 0 cm on a course with a 10 cm curb', () => {
-    expect(stumbles('biped', curb, trailing(0))('scuff')).toBeGreaterThan(0);
+  it('a biped asked to lift its feet 0 cm still clears a 10 cm curb: the swing keeps Winter (1992)\'s 1.29 cm minimum toe clearance', () => {
+    expect(stumbles('biped', curb, trailing(0))('scuff')).toBe(0);
+  });
+  it('a solver that trails its path badly (one heavily damped iteration a frame) scuffs the curb', () => {
+    expect(
+      stumbles('biped', curb, (s) => {
+        s.gait.stepHeight = 0;
+        s.solver.maxIterations = 1;
+        s.solver.lambda = 0.4;
+        s.solver.warmStart = 'previous';
+      })('scuff'),
+    ).toBeGreaterThan(0);
   });
   it('near miss: the same solver with the default step height', () => {
     expect(stumbles('biped', curb, trailing(null))('scuff')).toBe(0);
