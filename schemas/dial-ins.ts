@@ -77,7 +77,9 @@ export type DialInRequest = z.input<typeof dialInRequestSchema>;
 export const dialInScoresSchema = z.object({
   /** Mean footing score over the suite's courses. */
   footingScore: z.number(),
-  perCourse: z.array(z.object({ courseId: z.number().int(), courseName: z.string(), footingScore: z.number() })),
+  /** Mean footing penalty P over the courses (score = 100·exp(−P)): what the search minimises. */
+  penalty: z.number().optional(),
+  perCourse: z.array(z.object({ courseId: z.number().int(), courseName: z.string(), footingScore: z.number(), penalty: z.number().optional() })),
 });
 export type DialInScores = z.infer<typeof dialInScoresSchema>;
 
@@ -97,6 +99,10 @@ export const dialInResultSchema = z.object({
   after: dialInScoresSchema.optional(),
   bestValues: z.record(z.string(), z.number()).optional(),
   bestSetup: LegSetupSchema.optional(),
+  /** The best candidate's mean penalty is below the start's (false: the start setup was already the best found). */
+  beatsStart: z.boolean().optional(),
+  /** Why the search ended: budget spent, no improvement for a while, or every simplex converged. */
+  stopReason: z.enum(['budget', 'stalled', 'converged']).optional(),
   /** Set once accepted: the leg setup version it saved. */
   acceptedLegSetupId: z.number().int().nullable().optional(),
 });

@@ -1,24 +1,22 @@
 /**
- * The dial-in job: Nelder–Mead searches over the chosen settings (server/workers/dial-in-search.ts), two
- * side by side on the pool from different seeded starts when the budget allows, each with half the
- * candidates. Progress and the best-so-far plot are reported as candidates finish; the final result
- * (before/after per course, the best setup) depends only on the inputs and the seed.
+ * The dial-in job: the batched search of server/workers/dial-in-search.ts, every candidate a worker task
+ * (one trial per course of the suite), so the pool's threads or the queue's workers share one dial-in.
+ * Progress and the best-so-far plot are reported as candidates finish; the final result (start and best
+ * per course, the best setup) depends only on the inputs and the seed.
  */
 import { z } from 'zod';
 import type { Clock } from '../clock';
 import type { Db } from '../db';
 import { encodeCourse } from '../../engine/course/encoding';
+import type { CandidateOutcome } from '../../engine/dialin/objective';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
-import { mulberry32 } from '../../engine/math/random';
 import { loadCourse, type LoadedCourse } from '../services/courses';
 import { loadWalkingCharacter } from '../services/leg-setups';
 import { consumeAllowance } from '../services/billing-limits';
 import { dialInParamSchema, type DialInResult, type DialInScores } from '../../schemas/dial-ins';
 import { TRIAL_SECONDS } from '../../schemas/trials';
-import type { SearchResult } from '../workers/dial-in-search';
-import { withValues } from '../workers/dial-in-search';
-import type { CandidateMessage } from '../workers/dial-in-worker';
-import type { JobHandler } from './job-runner';
+import { runSearch, SearchStopped, withValues, type CandidateTask, type DialInContext, type EvaluatedCandidate } from '../workers/dial-in-search';
+import { JobCommit, type JobHandler } from './job-runner';
 import { CancelledError } from './in-process-runner';
 
 export const dialInJobInputSchema = z.object({
@@ -35,8 +33,6 @@ export const dialInJobInputSchema = z.object({
 });
 export type DialInJobInput = z.input<typeof dialInJobInputSchema>;
 
-/** Below this budget one search gets it all. */
-const SPLIT_FROM = 10;
 /** Most points the running best-so-far plot carries. */
 const PLOT_POINTS = 400;
 
@@ -49,13 +45,13 @@ function thin<T>(points: T[]): T[] {
   return out;
 }
 
-/** How the budget is split: one search from the base setup, and (from SPLIT_FROM on) a second from a seeded start. */
-export function planSearches(candidates: number, seed: number, dimensions: number): { budgets: number[]; starts: (number[] | null)[] } {
-  const searches = candidates >= SPLIT_FROM ? 2 : 1;
-  const rng = mulberry32(seed);
-  const budgets = Array.from({ length: searches }, (_, i) => Math.floor(candidates / searches) + (i < candidates % searches ? 1 : 0));
-  const starts = budgets.map((_, i) => (i === 0 ? null : Array.from({ length: dimensions }, () => rng.next())));
-  return { budgets, starts };
+/** The best-so-far plot: each candidate's mean score, and the mean score of the best by penalty up to it. */
+function plotOf(candidates: EvaluatedCandidate[]): DialInResult['history'] {
+  let best: CandidateOutcome | null = null;
+  return candidates.map((c, k) => {
+    if (!best || c.outcome.objective < best.objective) best = c.outcome;
+    return { candidate: k + 1, score: c.outcome.footingScore, best: best.footingScore };
+  });
 }
 
 export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
@@ -64,70 +60,56 @@ export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
     const character = await loadWalkingCharacter(db, ctx.teamId, input.characterId);
     const courses: LoadedCourse[] = [];
     for (const id of input.courseIds) courses.push(await loadCourse(db, ctx.teamId, id));
-    const encodings = courses.map((c) => encodeCourse(c.heightfield));
-    const { budgets, starts } = planSearches(input.candidates, input.seed, input.params.length);
-    const tried = budgets.map(() => 0);
-    const history: DialInResult['history'] = [];
-    let bestSoFar: number | null = null;
+    const context: DialInContext = { rig: character.rig, base: input.base, params: input.params, courses: courses.map((c) => encodeCourse(c.heightfield)), options: { duration: input.duration } };
+    // While running, the plot follows candidates as they arrive (any order); the final one is in candidate order.
+    const arrived: EvaluatedCandidate[] = [];
     const partial = (): DialInResult => ({
       baseLegSetupId: input.baseLegSetupId,
       characterId: input.characterId,
       suiteId: input.suiteId,
       params: input.params,
-      history: thin(history),
-      bestSoFar,
-      candidatesTried: tried.reduce((a, b) => a + b, 0),
+      history: thin(plotOf(arrived)),
+      bestSoFar: arrived.length ? plotOf(arrived)[arrived.length - 1].best : null,
+      candidatesTried: arrived.length,
     });
-    const results = await Promise.all(
-      budgets.map((budget, i) =>
-        ctx.runTask<SearchResult>(
-          'dialIn',
-          { rig: character.rig, base: input.base, params: input.params, courses: encodings, budget, seed: input.seed + i, start: starts[i], options: { duration: input.duration } },
-          (m) => {
-            const c = m as CandidateMessage;
-            tried[i] = c.tried;
-            bestSoFar = bestSoFar === null ? c.best : Math.max(bestSoFar, c.best);
-            history.push({ candidate: history.length + 1, score: c.score, best: bestSoFar });
-            ctx.report((98 * tried.reduce((a, b) => a + b, 0)) / input.candidates, partial());
-          },
-        ),
-      ),
-    );
-    if (ctx.signal.aborted) throw new CancelledError();
-    // The winner by score, ties to the earlier search, so the answer never depends on thread timing
-    // (only the order of points in the running plot does). Search 0 starts at the base setup, so its
-    // first candidate is "before" and the winner is never worse than it.
-    let best = results[0].best;
-    for (const r of results) if (r.best.score > best.score) best = r.best;
-    const scores = (s: { score: number; perCourse: number[] }): DialInScores => ({
-      footingScore: s.score,
-      perCourse: courses.map((c, k) => ({ courseId: c.id, courseName: c.name, footingScore: s.perCourse[k] })),
-    });
-    const total = results.reduce((s, r) => s + r.tried, 0);
-    // The plot of record: the searches' candidates interleaved in a fixed order, best so far along it.
-    const plot: DialInResult['history'] = [];
-    let running = -Infinity;
-    for (let k = 0; k < Math.max(...results.map((r) => r.scores.length)); k++) {
-      for (const r of results) {
-        if (k >= r.scores.length) continue;
-        running = Math.max(running, r.scores[k]);
-        plot.push({ candidate: plot.length + 1, score: r.scores[k], best: running });
-      }
+    let run;
+    try {
+      run = await runSearch(
+        { base: input.base, params: input.params, budget: input.candidates, seed: input.seed },
+        (values) => ctx.runTask<CandidateOutcome>('candidate', { context, values } satisfies CandidateTask),
+        (c) => {
+          arrived.push(c);
+          ctx.report((98 * arrived.length) / input.candidates, partial());
+        },
+        () => ctx.signal.aborted,
+      );
+    } catch (err) {
+      if (err instanceof SearchStopped || ctx.signal.aborted) throw new CancelledError();
+      throw err;
     }
-    await db.transaction(async (trx) => {
-      await consumeAllowance(trx, ctx.teamId, 'dialInCandidates', total, clock.now());
+    const scores = (c: EvaluatedCandidate): DialInScores => ({
+      footingScore: c.outcome.footingScore,
+      penalty: c.outcome.objective,
+      perCourse: courses.map((course, k) => ({ courseId: course.id, courseName: course.name, footingScore: c.outcome.perCourse[k].footingScore, penalty: c.outcome.perCourse[k].penalty })),
     });
+    const plot = plotOf(run.candidates);
     const result: DialInResult = {
       ...partial(),
       history: thin(plot),
-      candidatesTried: total,
-      bestSoFar: best.score,
-      before: scores(results[0].first),
-      after: scores(best),
-      bestValues: best.values,
-      bestSetup: withValues(input.base, best.values),
+      candidatesTried: run.candidates.length,
+      bestSoFar: run.best.outcome.footingScore,
+      before: scores(run.start),
+      after: scores(run.best),
+      bestValues: run.best.values,
+      bestSetup: withValues(input.base, run.best.values),
+      beatsStart: run.best.outcome.objective < run.start.outcome.objective,
+      stopReason: run.stopReason,
       acceptedLegSetupId: null,
     };
-    return result;
+    // Written by the runner in the transaction that marks the job done, so the allowance is counted once.
+    return new JobCommit(async (trx) => {
+      await consumeAllowance(trx, ctx.teamId, 'dialInCandidates', run.candidates.length, clock.now());
+      return result;
+    });
   };
 }

@@ -3,11 +3,13 @@
  * at once (the rest wait queued, oldest first) and at most `maxRunning` overall. Progress is kept monotone
  * and written when its whole-number value grows; cancelling aborts the task's worker.
  */
+import { setMaxListeners } from 'node:events';
 import type { Clock } from '../clock';
 import type { Db } from '../db';
 import { HttpError } from '../errors';
 import type { Job, JobKind } from '../../schemas/jobs';
-import type { EnqueueRequest, JobContext, JobHandler, JobRunner } from './job-runner';
+import type { QueueStatus } from '../../schemas/queue';
+import { JobCommit, type EnqueueRequest, type JobContext, type JobHandler, type JobRunner } from './job-runner';
 import { SHUTDOWN_REASON, failOrphanedJobs, findJobRow, jobFromRow, type JobRow } from './job-rows';
 import type { TaskPool } from './worker-pool';
 
@@ -33,6 +35,21 @@ export class CancelledError extends Error {
     super('cancelled');
     this.name = 'CancelledError';
   }
+}
+
+/**
+ * Marks the job done and stores its result in one transaction, only while it is still running: a result
+ * delivered twice (or after a cancel) is written once. A JobCommit's rows are written in that transaction.
+ * Returns whether this call stored it.
+ */
+export async function commitJob(db: Db, jobId: number, answer: unknown, t: number): Promise<boolean> {
+  return db.transaction(async (trx) => {
+    const claimed = await trx('jobs').where({ id: jobId, status: 'running' }).update({ status: 'done', progress: 100, finished_at: t, updated_at: t });
+    if (claimed !== 1) return false;
+    const result = answer instanceof JobCommit ? await answer.write(trx) : answer;
+    await trx('jobs').where({ id: jobId }).update({ result: JSON.stringify(result ?? null) });
+    return true;
+  });
 }
 
 export function createInProcessRunner(o: InProcessRunnerOptions): JobRunner & { idle(): Promise<void> } {
@@ -75,6 +92,8 @@ export function createInProcessRunner(o: InProcessRunnerOptions): JobRunner & { 
     let partial: unknown;
     let writing: Promise<unknown> = Promise.resolve();
     const signal = controller.signal;
+    // Every task of a job (a dial-in's batch can hold dozens) listens to the job's one signal.
+    setMaxListeners(0, signal);
     const ctx: JobContext = {
       jobId: row.id,
       teamId: row.team_id,
@@ -94,15 +113,14 @@ export function createInProcessRunner(o: InProcessRunnerOptions): JobRunner & { 
       },
       runTask(name, payload, onMessage) {
         if (signal.aborted) return Promise.reject(new CancelledError());
-        return pool.run(name, payload, onMessage ?? (() => undefined), signal);
+        return pool.run(name, payload, onMessage ?? (() => undefined), signal, { jobId: row.id, teamId: row.team_id });
       },
     };
     try {
-      const result = await handlers[row.kind](ctx);
+      const answer = await handlers[row.kind](ctx);
       await writing;
       if (signal.aborted) throw new CancelledError();
-      const t = now();
-      await db('jobs').where({ id: row.id, status: 'running' }).update({ status: 'done', progress: 100, result: JSON.stringify(result ?? null), finished_at: t, updated_at: t });
+      await commitJob(db, row.id, answer, now());
     } catch (err) {
       await writing;
       const t = now();
@@ -155,6 +173,13 @@ export function createInProcessRunner(o: InProcessRunnerOptions): JobRunner & { 
 
     async status(teamId: number, jobId: number): Promise<Job> {
       return jobFromRow(await findJobRow(db, teamId, jobId));
+    },
+
+    async queueStatus(): Promise<QueueStatus> {
+      const counts = (await pool.counts?.()) ?? { runner: 'embedded' as const, workers: [], waiting: 0, running: 0 };
+      const byStatus = await db('jobs').whereIn('status', ['queued', 'running']).groupBy('status').select<{ status: string; n: number }[]>('status', db.raw('count(*) as n'));
+      const of = (s: string) => Number(byStatus.find((r) => r.status === s)?.n ?? 0);
+      return { ...counts, jobsQueued: of('queued'), jobsRunning: of('running') };
     },
 
     async start() {

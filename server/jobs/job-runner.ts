@@ -1,9 +1,12 @@
 /**
- * The one interface routes use to run background work. The in-process runner (in-process-runner.ts) keeps
- * jobs in SQLite and runs them on a piscina worker pool; a shared queue across machines (e.g. BullMQ on
- * Redis) can implement the same interface later without touching the routes.
+ * The one interface routes use to run background work. Jobs live in SQLite and their handlers run in the
+ * server process (in-process-runner.ts); the engine work of a job goes out as tasks to a task pool: piscina
+ * threads in this process (worker-pool.ts), or BullMQ over Redis to worker processes on any machine
+ * (bullmq-pool.ts). Either way only the server writes the database.
  */
+import type { Knex } from 'knex';
 import type { Job, JobKind } from '../../schemas/jobs';
+import type { QueueStatus } from '../../schemas/queue';
 
 export interface EnqueueRequest {
   teamId: number;
@@ -24,6 +27,8 @@ export interface JobRunner {
   start(): Promise<void>;
   /** Stops taking work, cancels what runs and shuts the pool down. */
   close(): Promise<void>;
+  /** Where tasks run: workers connected, tasks waiting and running. */
+  queueStatus(): Promise<QueueStatus>;
 }
 
 /** Passed to a kind's handler while its job runs. */
@@ -39,7 +44,16 @@ export interface JobContext {
   runTask<T>(name: WorkerTaskName, payload: unknown, onMessage?: (message: unknown) => void): Promise<T>;
 }
 
-export type WorkerTaskName = 'trial' | 'dialIn';
+export type WorkerTaskName = 'trial' | 'candidate';
 
-/** What a job kind does: the handler reads the database, runs worker tasks and stores what they give. */
+/**
+ * A handler's answer that still has rows to write: the runner calls `write` inside the one transaction that
+ * marks the job done, and only if the job was still running (so a result delivered twice is stored once).
+ * `write` returns the job's result.
+ */
+export class JobCommit {
+  constructor(readonly write: (trx: Knex.Transaction) => Promise<unknown>) {}
+}
+
+/** What a job kind does: the handler reads the database and runs worker tasks; what they give is stored by the runner. */
 export type JobHandler = (ctx: JobContext) => Promise<unknown>;

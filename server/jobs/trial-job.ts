@@ -1,6 +1,6 @@
 /**
  * The trial job: one character with one leg setup over one or more courses. Each course is a worker task
- * (they run side by side on the pool); the trials are stored together once all have finished.
+ * (they run side by side on the pool or the queue's workers); the trials are stored together once all have finished.
  */
 import { z } from 'zod';
 import type { Clock } from '../clock';
@@ -11,7 +11,7 @@ import { loadCourse, type LoadedCourse } from '../services/courses';
 import { loadWalkingCharacter } from '../services/leg-setups';
 import { TRIAL_SECONDS, type TrialJobResult } from '../../schemas/trials';
 import type { TrialTaskResult } from '../workers/trial-worker';
-import type { JobHandler } from './job-runner';
+import { JobCommit, type JobHandler } from './job-runner';
 import { CancelledError } from './in-process-runner';
 
 /** What a trial job stores as its input (resolved by the route, so the job runs exactly what was asked). */
@@ -44,9 +44,10 @@ export function trialJobHandler(db: Db, clock: Clock): JobHandler {
       ),
     );
     if (ctx.signal.aborted) throw new CancelledError();
-    const now = clock.now();
-    const trialIds = await db.transaction(async (trx) => {
-      const ids: number[] = [];
+    // The trials are written in the runner's transaction that marks the job done, once however often it is told.
+    return new JobCommit(async (trx) => {
+      const now = clock.now();
+      const trialIds: number[] = [];
       for (const [i, r] of results.entries()) {
         const [id] = await trx('trials').insert({
           team_id: ctx.teamId,
@@ -64,11 +65,10 @@ export function trialJobHandler(db: Db, clock: Clock): JobHandler {
           created_by: ctx.userId,
           created_at: now,
         });
-        ids.push(id);
+        trialIds.push(id);
       }
-      return ids;
+      const result: TrialJobResult = { trialIds, footingScore: results.reduce((s, r) => s + r.metrics.footingScore, 0) / results.length };
+      return result;
     });
-    const result: TrialJobResult = { trialIds, footingScore: results.reduce((s, r) => s + r.metrics.footingScore, 0) / results.length };
-    return result;
   };
 }

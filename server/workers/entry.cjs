@@ -3,6 +3,6 @@
 // CommonJS hook first, then loads the TypeScript workers. Each export is a task name.
 require('tsx/cjs');
 const { runTrialTask } = require('./trial-worker.ts');
-const { runDialInTask } = require('./dial-in-worker.ts');
+const { runCandidateTask } = require('./candidate-worker.ts');
 
-module.exports = { trial: runTrialTask, dialIn: runDialInTask };
+module.exports = { trial: runTrialTask, candidate: runCandidateTask };

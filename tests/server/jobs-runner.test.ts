@@ -88,16 +88,16 @@ describe('the in-process runner', () => {
   it('cancels a running job by ending its worker task, and a queued one before it starts', async () => {
     const pool = createPiscinaPool(1);
     const started = gate();
-    // A dial-in search with a large budget keeps the one worker busy until it is aborted.
+    // A 600 s trial keeps the one worker busy until it is aborted.
     const runner = runnerWith(
       {
         trial: async () => null,
         dialIn: async (ctx) => {
           const course = encodeCourse(flatCourse(40));
           const rig = presetRig('quadruped');
-          const base = defaultLegSetup(rig);
+          const setup = defaultLegSetup(rig);
           started.open();
-          return ctx.runTask('dialIn', { rig, base, params: [{ key: 'gait.stepHeight', min: 0.02, max: 0.2 }], courses: [course], budget: 100_000, seed: 1, start: null, options: { duration: 30 } }, () => ctx.report(1));
+          return ctx.runTask('trial', { rig, setup, course, options: { duration: 600 } }, () => ctx.report(1));
         },
       },
       pool,
