@@ -2,10 +2,10 @@
  * The API for build scripts and the app alike: `Authorization: Bearer …` (read-only) or a signed-in session.
  * Files carry a strong ETag (the sha256 of the exact bytes), so If-None-Match answers 304.
  */
-import { Router, type RequestHandler } from 'express';
-import multer from 'multer';
+import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { HttpError, parseWith } from '../errors';
+import { parseWith } from '../errors';
+import { uploadParser } from '../middleware/uploads';
 import { viewerOf } from '../middleware/auth';
 import { checkFieldsSchema, versionParamSchema, type ApiCharacterList, type CheckResult } from '../../schemas/profiles';
 import { characterRows } from '../services/gltf-import-store';
@@ -14,21 +14,8 @@ import { findVersion, profilesOfCharacter } from '../services/profiles';
 import { checkProfile } from '../services/profile-check';
 import { parseId } from './profiles';
 
+/** The character to check may come as a .gltf with its parts, like an upload. */
 const MAX_FILES = 32;
-
-function optionalUpload(cap: number): RequestHandler {
-  const parse = multer({ storage: multer.memoryStorage(), limits: { fileSize: cap, files: MAX_FILES, fields: 8 } }).array('file', MAX_FILES);
-  return (req, res, next) => {
-    if (!req.is('multipart/form-data')) return next();
-    parse(req, res, (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-        return next(new HttpError(413, 'too_large', `The file is larger than the ${(cap / 1048576).toFixed(0)} MB limit.`, { file: 'The file is too large.' }));
-      }
-      next(new HttpError(400, 'bad_upload', `The upload could not be read (${(err as Error).message}). Send the character in the form field "file".`, { file: 'Send the file in the field "file".' }));
-    });
-  };
-}
 
 /** RFC 9110 §13.1.2: a list of entity tags or "*", compared weakly (a W/ prefix is ignored). */
 function matchesNoneMatch(header: string | undefined, etag: string): boolean {
@@ -96,7 +83,7 @@ export function apiV1Router(deps: AppDeps): Router {
     res.send(row.document);
   });
 
-  router.post('/profiles/:id/check', optionalUpload(uploadCapBytes()), async (req, res) => {
+  router.post('/profiles/:id/check', uploadParser({ maxBytes: uploadCapBytes(), maxFiles: MAX_FILES, maxFields: 8, maxFieldBytes: 256, optional: true }), async (req, res) => {
     const { team } = viewerOf(req);
     const id = parseId(req.params.id, 'That leg profile');
     const fields = parseWith(checkFieldsSchema, req.body);

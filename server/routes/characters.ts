@@ -1,6 +1,5 @@
 import fs from 'node:fs';
-import { Router, type RequestHandler } from 'express';
-import multer from 'multer';
+import { Router, type ErrorRequestHandler } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { HttpError, notFound, parseWith } from '../errors';
@@ -17,33 +16,21 @@ import {
 import { legMappingProblems } from '../../engine/rig/skeleton-leg-check';
 import { characterFilePath, uploadCapBytes } from '../services/character-files';
 import { characterFromRow, characterRows, findCharacterRow, storeCharacterUpload, type StoredSkeleton } from '../services/gltf-import-store';
-import { refuse } from '../services/gltf-import-refusals';
+import { uploadParser } from '../middleware/uploads';
 
 /** A .gltf may come with its .bin and images; more parts than this is not a character. */
 const MAX_FILES = 32;
 
 const idSchema = z.coerce.number().int().positive();
 
-function uploadMiddleware(cap: number): RequestHandler {
-  const parse = multer({ storage: multer.memoryStorage(), limits: { fileSize: cap, files: MAX_FILES, fields: 4 } }).array('file', MAX_FILES);
-  const mb = (cap / (1024 * 1024)).toFixed(0);
-  return (req, res, next) => {
-    parse(req, res, (err: unknown) => {
-      if (!err) {
-        const files = (req.files as Express.Multer.File[] | undefined) ?? [];
-        const total = files.reduce((s, f) => s + f.size, 0);
-        return next(total > cap ? refuse('too_large', `The upload is ${(total / 1048576).toFixed(1)} MB together; the limit is ${mb} MB.`) : undefined);
-      }
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(refuse('too_large', `The file is larger than the ${mb} MB limit. Reduce textures or export without them.`));
-        if (err.code === 'LIMIT_FILE_COUNT') return next(refuse('too_many_files', `Send at most ${MAX_FILES} files: the .gltf with its .bin and images.`));
-        if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(refuse('no_file', 'Send the files in the form field "file".'));
-        return next(new HttpError(400, 'bad_upload', `The upload could not be read (${err.message}).`));
-      }
-      next(new HttpError(400, 'bad_upload', 'The upload is not a complete multipart form. Try again.'));
-    });
-  };
-}
+/**
+ * A path segment that is not valid percent-encoding (`/api/characters/%ZZ`) fails in the router's decoding with a
+ * URIError marked 400; answer it as a 400 of our own shape instead of letting it reach the 500 handler.
+ */
+const badPathSegment: ErrorRequestHandler = (err, _req, _res, next) => {
+  if (err instanceof URIError) return next(new HttpError(400, 'bad_path', 'The address has a part that is not valid percent-encoding (RFC 3986 §2.1). Check the link.'));
+  next(err);
+};
 
 /** Characters: upload, list, read, the stored file, leg mapping. */
 export function charactersRouter(deps: AppDeps): Router {
@@ -64,7 +51,7 @@ export function charactersRouter(deps: AppDeps): Router {
     res.json(body);
   });
 
-  router.post('/', uploadMiddleware(uploadCapBytes()), async (req, res) => {
+  router.post('/', uploadParser({ maxBytes: uploadCapBytes(), maxFiles: MAX_FILES, maxFields: 4, maxFieldBytes: 1024 }), async (req, res) => {
     const { team, user } = viewerOf(req);
     const fields = parseWith(characterUploadFieldsSchema, req.body);
     const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({ originalname: f.originalname, buffer: f.buffer }));
@@ -119,5 +106,6 @@ export function charactersRouter(deps: AppDeps): Router {
     res.json({ character: characterFromRow(updated!) });
   });
 
+  router.use(badPathSegment);
   return router;
 }

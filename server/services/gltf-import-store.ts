@@ -1,12 +1,13 @@
 /**
- * Keeping an imported character: the row (in one transaction) and its file (temporary name, renamed
- * after the commit). The seed stores its demo characters through here too, exactly like an upload.
+ * Keeping an imported character: its file (durable at its content address first, character-files.ts) and then
+ * its row (in one transaction). The seed stores its demo characters through here too, exactly like an upload.
  */
 import type { Db } from '../db';
 import type { Character, DetectedLeg, ImportReport, LegMapping } from '../../schemas/characters';
 import type { SkeletonJoint } from '../../engine/rig/types';
 import { importGltf, type UploadedFile } from './gltf-import';
-import { discardIncoming, settleIncoming, sha256Hex, writeIncoming } from './character-files';
+import { placeCharacterFile, removeCharacterFile, sha256Hex } from './character-files';
+import { faultPoint } from './gltf-import-faults';
 
 export interface StoreDeps {
   db: Db;
@@ -92,8 +93,27 @@ export interface StoredUpload {
 }
 
 /**
+ * Uploads of the same bytes take turns from placing the file to committing (or failing to commit) the row, so a
+ * failed upload never removes a file another one is about to commit. One server process owns the data folder.
+ */
+const storing = new Map<string, Promise<unknown>>();
+
+async function oneAtATime<T>(sha256: string, work: () => Promise<T>): Promise<T> {
+  const before = storing.get(sha256) ?? Promise.resolve();
+  const mine = before.catch(() => undefined).then(work);
+  const settled = mine.catch(() => undefined);
+  storing.set(sha256, settled);
+  try {
+    return await mine;
+  } finally {
+    if (storing.get(sha256) === settled) storing.delete(sha256);
+  }
+}
+
+/**
  * Imports the files and keeps the character for the team. The same file uploaded again by the team is
- * recognised by its sha256 and answered with the character already there; nothing new is written.
+ * recognised by its sha256 and answered with the character already there (and its file put back if it was lost).
+ * The file is durable at its content address before the row commits, so a crash never leaves a row without its file.
  */
 export async function storeCharacterUpload(
   deps: StoreDeps,
@@ -105,9 +125,6 @@ export async function storeCharacterUpload(
     const row = await deps.db('characters').where({ team_id: input.teamId, sha256 }).first('id', 'report_json');
     return row ? { id: row.id, existing: true, report: JSON.parse(row.report_json) as ImportReport } : null;
   };
-  const existing = await findExisting();
-  if (existing) return existing;
-
   const skeleton: StoredSkeleton = {
     joints: imported.skeleton.joints,
     positions: Array.from(imported.positions),
@@ -115,46 +132,46 @@ export async function storeCharacterUpload(
   };
   const legs = imported.detection.legs;
   const now = deps.now();
-  const temp = await writeIncoming(deps.dataDir, imported.glb);
-  let id: number;
-  try {
-    id = await deps.db.transaction(async (trx) => {
-      const [newId] = await trx('characters').insert({
-        team_id: input.teamId,
-        name: input.name?.trim() || defaultName(imported.fileName),
-        file_name: imported.fileName.slice(0, 255),
-        format: imported.format,
-        sha256,
-        byte_size: imported.glb.byteLength,
-        joint_count: imported.skeleton.joints.length,
-        leg_count: legs.length,
-        skeleton_json: JSON.stringify(skeleton),
-        detected_legs_json: JSON.stringify(legs),
-        legs_json: JSON.stringify(legs.map(mappingOf)),
-        legs_edited: false,
-        report_json: JSON.stringify(imported.report),
-        uploaded_by: input.userId,
-        created_at: now,
-        updated_at: now,
+
+  return oneAtATime(sha256, async () => {
+    await placeCharacterFile(deps.dataDir, sha256, imported.glb);
+    const existing = await findExisting();
+    if (existing) return existing;
+    let id: number;
+    try {
+      id = await deps.db.transaction(async (trx) => {
+        const [newId] = await trx('characters').insert({
+          team_id: input.teamId,
+          name: input.name?.trim() || defaultName(imported.fileName),
+          file_name: imported.fileName.slice(0, 255),
+          format: imported.format,
+          sha256,
+          byte_size: imported.glb.byteLength,
+          joint_count: imported.skeleton.joints.length,
+          leg_count: legs.length,
+          skeleton_json: JSON.stringify(skeleton),
+          detected_legs_json: JSON.stringify(legs),
+          legs_json: JSON.stringify(legs.map(mappingOf)),
+          legs_edited: false,
+          report_json: JSON.stringify(imported.report),
+          uploaded_by: input.userId,
+          created_at: now,
+          updated_at: now,
+        });
+        await faultPoint('before-commit');
+        return newId as number;
       });
-      return newId as number;
-    });
-  } catch (err) {
-    await discardIncoming(temp);
-    // Two uploads of the same file racing: the other one won, and its character is the answer.
-    if (isUniqueViolation(err)) {
-      const raced = await findExisting();
-      if (raced) return raced;
+    } catch (err) {
+      // Two uploads of the same file racing: the other one won, and its character is the answer.
+      if (isUniqueViolation(err)) {
+        const raced = await findExisting();
+        if (raced) return raced;
+      }
+      // Refused (a plan limit, say): take the file back out unless some character, of any team, uses it.
+      if (!(await deps.db('characters').where({ sha256 }).first('id'))) await removeCharacterFile(deps.dataDir, sha256);
+      throw err;
     }
-    throw err;
-  }
-  try {
-    await settleIncoming(deps.dataDir, temp, sha256);
-  } catch (err) {
-    // Without its file the row is useless: take it back out so the upload can simply be retried.
-    await deps.db('characters').where({ id }).delete();
-    await discardIncoming(temp);
-    throw err;
-  }
-  return { id, existing: false, report: imported.report };
+    await faultPoint('after-commit');
+    return { id, existing: false, report: imported.report };
+  });
 }

@@ -87,9 +87,39 @@ export function mainSkinIndex(json: GltfJson): number {
   return best;
 }
 
+/**
+ * The skeleton must stand in the scene that shows the character (glTF 2.0 §3.5.1: the scene property names the
+ * scene to render; §3.7.3.1: a skin's joints form one hierarchy under its skeleton root). A joint outside it
+ * has no place in the world, so its leg could not be placed on the ground. Files without scenes are read as they are.
+ */
+function checkJointsInScene(json: GltfJson, skinIndex: number): void {
+  const scenes = (json.scenes ?? []) as { nodes?: number[] }[];
+  if (!scenes.length) return;
+  const sceneIndex = typeof json.scene === 'number' ? json.scene : 0;
+  const nodes = json.nodes ?? [];
+  const inScene = new Uint8Array(nodes.length);
+  const stack = [...(scenes[sceneIndex]?.nodes ?? [])];
+  while (stack.length) {
+    const n = stack.pop()!;
+    if (inScene[n]) continue;
+    inScene[n] = 1;
+    for (const c of (nodes[n]?.children as number[] | undefined) ?? []) stack.push(c);
+  }
+  const joints = json.skins![skinIndex].joints as number[];
+  const outside = joints.filter((j) => !inScene[j]);
+  if (outside.length) {
+    throw refuse(
+      'bad_hierarchy',
+      `${outside.length} of the skin's ${joints.length} joints (first ${nodeLabel(json, outside[0])}) are not in scene ${sceneIndex}, the scene that shows the character. Export the armature inside the character's scene.`,
+    );
+  }
+}
+
 export function checkStructure(json: GltfJson, supportedExtensions: ReadonlySet<string>): { skin: number } {
   checkExtensions(json, supportedExtensions);
   checkHierarchy(json);
   checkTransforms(json);
-  return { skin: mainSkinIndex(json) };
+  const skin = mainSkinIndex(json);
+  checkJointsInScene(json, skin);
+  return { skin };
 }
