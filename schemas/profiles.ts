@@ -22,9 +22,13 @@ export const profileVersionSummarySchema = z.object({
   notes: z.string(),
   author: z.object({ id: z.number().int(), name: z.string() }),
   publishedAt: z.number().int(),
+  /** Of the whole suite (its courses pooled), not of one course. */
   footingScore: z.number(),
   characterSha256: z.string(),
   suiteName: z.string(),
+  suiteCourseCount: z.number().int(),
+  /** The saved leg setup version published; null when an unsaved setup was. */
+  legSetupVersion: z.number().int().nullable(),
   /** sha256 of the file: its ETag. */
   sha256: z.string(),
 });
@@ -84,8 +88,13 @@ export const checkResultSchema = z.object({
       before: z.number().nullable(),
       after: z.number().nullable(),
       delta: z.number().nullable(),
+      /** Null when unchanged: the difference is inside `tolerance` (or unknown). */
       improved: z.boolean().nullable(),
+      tolerance: z.number(),
     }),
   ),
+  tolerances: z.object({ score: z.number(), stumbles: z.number() }),
+  /** The tolerances in one sentence, for logs. */
+  toleranceNote: z.string(),
 });
 export type CheckResult = z.infer<typeof checkResultSchema>;

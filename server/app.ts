@@ -12,6 +12,7 @@ import { enforceRouteTable } from './permissions';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { authRouter } from './routes/auth';
 import { meRouter } from './routes/me';
+import { cliRouter } from './routes/cli';
 import { permissionsRouter, teamRouter } from './routes/team';
 import { invitesRouter } from './routes/invites';
 import { appConfigRouter } from './routes/app-config';
@@ -65,6 +66,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/auth', authRouter(deps));
   api.use('/app-config', appConfigRouter(deps));
   api.use('/me', meRouter(deps));
+  api.use('/cli', cliRouter());
   api.use('/permissions', permissionsRouter());
   api.use('/team', teamRouter(deps));
   api.use('/invites', invitesRouter(deps));

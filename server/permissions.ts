@@ -43,6 +43,7 @@ export const ROUTE_TABLE: RouteRule[] = [
   { method: 'POST', path: '/auth/reset-request', action: 'auth.reset-request', label: 'Ask for a password reset', access: 'public' },
   { method: 'POST', path: '/auth/reset', action: 'auth.reset', label: 'Set a new password', access: 'public' },
   { method: 'GET', path: '/app-config', action: 'app-config', label: 'Read the app settings', access: 'public' },
+  { method: 'GET', path: '/cli/treadle.mjs', action: 'cli.download', label: 'Download the treadle command', access: 'public' },
   { method: 'GET', path: '/me', action: 'me.read', label: 'See your own account', access: 'member' },
   { method: 'POST', path: '/me/team', action: 'me.switch-team', label: 'Switch studio', access: 'member' },
   { method: 'GET', path: '/permissions', action: 'permissions.read', label: 'See who may do what', access: 'member' },

@@ -4,6 +4,7 @@ import type { ProfileSummary } from '../../schemas/profiles';
 import { colors, fonts, radius, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
 import { formatDay } from '../ui/format';
+import { scoreOf } from './scoreOf';
 
 /** Each character's leg profile: the latest version, its footing score and who published it. */
 export function ProfileList({ profiles }: { profiles: ProfileSummary[] }) {
@@ -21,22 +22,23 @@ export function ProfileList({ profiles }: { profiles: ProfileSummary[] }) {
           >
             <View style={styles.top}>
               <Text style={styles.name}>{p.character.name}</Text>
-              <Text style={styles.version}>{p.latest ? `v${p.latest.version}` : '—'}</Text>
+              <Text style={styles.version}>{p.latest ? `profile v${p.latest.version}` : '—'}</Text>
             </View>
             {p.latest ? (
               <>
                 <View style={styles.figures}>
                   <View>
                     <Text style={styles.figure}>{p.latest.footingScore.toFixed(1)}</Text>
-                    <Text style={styles.figureLabel}>footing score</Text>
+                    <Text style={styles.figureLabel}>suite footing score</Text>
                   </View>
                   <View>
                     <Text style={styles.figure}>{p.versionCount}</Text>
                     <Text style={styles.figureLabel}>{p.versionCount === 1 ? 'version' : 'versions'}</Text>
                   </View>
                 </View>
+                <Text style={styles.of}>On {scoreOf(p.latest)}</Text>
                 <Text style={styles.meta}>
-                  {p.latest.author.name} · {formatDay(p.latest.publishedAt)} · {p.latest.suiteName}
+                  {p.latest.author.name} · {formatDay(p.latest.publishedAt)}
                 </Text>
               </>
             ) : (
@@ -62,4 +64,5 @@ const styles = StyleSheet.create({
   figure: { fontFamily: fonts.monoMedium, fontSize: 22, color: colors.ink },
   figureLabel: { ...type.small, color: colors.graphite },
   meta: { ...type.small, color: colors.graphite },
+  of: { ...type.small, fontFamily: fonts.bodyMedium, color: colors.ink },
 });

@@ -3,6 +3,7 @@ import type { ProfileVersionSummary } from '../../schemas/profiles';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
 import { profileDownloadUrl } from '../../hooks/useProfiles';
 import { formatMoment } from '../ui/format';
+import { scoreOf } from './scoreOf';
 
 /** A real link on the web, so the browser downloads the file the server names (Content-Disposition: attachment). */
 function DownloadLink({ href, label }: { href: string; label: string }) {
@@ -26,9 +27,10 @@ export function VersionList({ profileId, characterName, versions }: { profileId:
               {v.footingScore.toFixed(1)} <Text style={styles.unit}>footing score</Text>
             </Text>
           </View>
+          <Text style={styles.of}>on {scoreOf(v)}</Text>
           {v.notes ? <Text style={styles.notes}>{v.notes}</Text> : null}
           <Text style={styles.meta}>
-            {v.author.name} · {formatMoment(v.publishedAt)} · {v.suiteName} · file {v.characterSha256.slice(0, 10)}…
+            {v.author.name} · {formatMoment(v.publishedAt)} · file {v.characterSha256.slice(0, 10)}…
           </Text>
           <DownloadLink href={profileDownloadUrl(profileId, v.version)} label={`Download ${characterName} version ${v.version} as JSON`} />
         </View>
@@ -45,6 +47,7 @@ const styles = StyleSheet.create({
   score: { fontFamily: fonts.monoMedium, fontSize: 16, color: colors.ink, textAlign: 'right' },
   unit: { fontFamily: fonts.body, fontSize: 13, color: colors.graphite },
   notes: { ...type.body, color: colors.ink },
+  of: { ...type.small, fontFamily: fonts.bodyMedium, color: colors.ink },
   meta: { ...type.small, color: colors.graphite },
   download: {
     alignSelf: 'flex-start',

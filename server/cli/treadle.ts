@@ -1,5 +1,6 @@
 /**
- * `npm run treadle -- <command>`: the small command a game's build calls.
+ * `treadle <command>`: the small command a game's build calls. In a game's repository it is the one-file
+ * download `node treadle.mjs …` (server/cli/bundle.ts); inside Treadle's own, `npm run treadle -- …`.
  *
  *   treadle check --profile 3 [--version latest] [--file build/wicket.glb] [--score-tolerance 0.5] [--stumble-tolerance 0.5] [--json]
  *   treadle pull  --profile 3 [--version latest] [--out wicket.leg-profile.json]
@@ -58,9 +59,10 @@ export function summary(r: CheckResult): string {
   const lines = [`Leg profile ${r.profileId} v${r.version}, ${r.checked === 'uploaded' ? 'uploaded file' : 'stored character'} ${r.characterSha256.slice(0, 12)}…`];
   const width = Math.max(...r.deltas.map((d) => d.label.length));
   for (const d of r.deltas) {
-    const mark = d.improved === false ? '✗' : d.improved === true ? '✓' : ' ';
-    lines.push(`  ${mark} ${d.label.padEnd(width)}  ${fmt(d.before, d.unit).padStart(10)} → ${fmt(d.after, d.unit).padEnd(10)} ${signed(d.delta)}`);
+    const verdict = d.delta === null ? '' : d.improved === false ? '✗ worse' : d.improved === true ? '✓ better' : '= unchanged';
+    lines.push(`  ${d.label.padEnd(width)}  ${fmt(d.before, d.unit).padStart(10)} → ${fmt(d.after, d.unit).padEnd(10)} ${signed(d.delta).padEnd(8)} ${verdict}`.trimEnd());
   }
+  lines.push(r.toleranceNote);
   lines.push(r.pass ? 'PASS: no stumble regression.' : `FAIL: ${r.regressions.length} regression${r.regressions.length > 1 ? 's' : ''}:`);
   for (const reg of r.regressions) lines.push(`  - ${reg}`);
   return lines.join('\n');
@@ -118,6 +120,10 @@ async function pull(args: string[]): Promise<number> {
 
 export async function main(argv: string[]): Promise<number> {
   const [command, ...rest] = argv;
+  if (command === '--help' || command === 'help' || command === '-h') {
+    console.log(USAGE);
+    return 0;
+  }
   try {
     if (command === 'check') return await check(rest);
     if (command === 'pull') return await pull(rest);
@@ -132,6 +138,7 @@ export async function main(argv: string[]): Promise<number> {
   }
 }
 
-if (require.main === module) {
+// Run directly with tsx; the bundled file has its own entry (and no `require` in an ES module).
+if (typeof module !== 'undefined' && require.main === module) {
   main(process.argv.slice(2)).then((code) => process.exit(code));
 }

@@ -6,7 +6,7 @@
 import type { Db } from '../db';
 import { HttpError } from '../errors';
 import type { CheckResult } from '../../schemas/profiles';
-import { checkAgainstPublished } from '../../engine/profile/check';
+import { checkAgainstPublished, describeTolerances } from '../../engine/profile/check';
 import { LegProfileBindError, legMappingsFor } from '../../engine/profile/rig-mapping';
 import { sha256Hex } from './character-files';
 import { importGltf, type UploadedFile } from './gltf-import';
@@ -61,5 +61,7 @@ export async function checkProfile(db: Db, input: CheckInput): Promise<CheckResu
     characterSha256: character.sha256,
     regressions: verdict.regressions,
     deltas: verdict.deltas,
+    tolerances: verdict.tolerances,
+    toleranceNote: describeTolerances(verdict.tolerances),
   };
 }

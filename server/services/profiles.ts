@@ -4,7 +4,7 @@ import type { Db } from '../db';
 import { HttpError, notFound } from '../errors';
 import type { ProfileDetail, ProfileSummary, ProfileVersionSummary } from '../../schemas/profiles';
 import { LEG_PROFILE_SCHEMA_ID, type LegProfile } from '../../engine/profile/schema';
-import { exportLegProfile, parseLegProfile } from '../../engine/profile/export';
+import { exportLegProfile, parseLegProfile, roundProfileNumbers } from '../../engine/profile/export';
 import { profileRigOf } from '../../engine/profile/rig-mapping';
 import { diffLegProfiles, type ProfileDiff } from '../../engine/profile/diff';
 import { consumeAllowance } from './billing-limits';
@@ -26,6 +26,7 @@ export interface VersionRow {
   notes: string;
   author_id: number;
   author_name: string;
+  leg_setup_version: number | null;
   created_at: number;
 }
 
@@ -54,7 +55,8 @@ export async function publishProfile(db: Db, input: PublishInput): Promise<{ pro
   // Neither a saved version nor a setup given: the character's newest saved version, else the engine's defaults.
   const legSetupId = input.legSetupId ?? (input.legSetup === undefined ? await newestLegSetupId(db, input.teamId, row.id) : undefined);
   const fromSaved = legSetupId !== undefined ? await loadLegSetupVersion(db, input.teamId, legSetupId, row.id) : undefined;
-  const setup = setupFor(rig, fromSaved ?? input.legSetup);
+  // Rounded as the file will carry it, so the published metrics are those of the exact setup a game reads.
+  const setup = roundProfileNumbers(setupFor(rig, fromSaved ?? input.legSetup));
   const suite = await loadSuite(db, input.teamId, input.suiteId);
   const run = runCharacterSuite(character, setup, suite);
 
@@ -100,7 +102,11 @@ export async function publishProfile(db: Db, input: PublishInput): Promise<{ pro
 }
 
 function versionRows(db: Db, teamId: number) {
-  return db('profile_versions as v').join('users as u', 'u.id', 'v.author_id').where('v.team_id', teamId).select<VersionRow[]>('v.*', 'u.name as author_name');
+  return db('profile_versions as v')
+    .join('users as u', 'u.id', 'v.author_id')
+    .leftJoin('leg_setups as ls', 'ls.id', 'v.leg_setup_id')
+    .where('v.team_id', teamId)
+    .select<VersionRow[]>('v.*', 'u.name as author_name', 'ls.version as leg_setup_version');
 }
 
 export function versionSummary(r: VersionRow): ProfileVersionSummary {
@@ -113,6 +119,8 @@ export function versionSummary(r: VersionRow): ProfileVersionSummary {
     footingScore: r.footing_score,
     characterSha256: r.character_sha256,
     suiteName: doc.suite.name,
+    suiteCourseCount: doc.suite.courses.length,
+    legSetupVersion: r.leg_setup_version ?? null,
     sha256: r.sha256,
   };
 }
