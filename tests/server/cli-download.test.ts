@@ -26,7 +26,7 @@ beforeAll(async () => {
   const secret = (await s.agents.programmer.post('/api/tokens').send({ name: 'game CI' })).body.secret;
   // A folder outside the repository: nothing to resolve imports from but Node itself.
   dir = fs.mkdtempSync(path.join(os.tmpdir(), 'game-repo-'));
-  env = { PATH: process.env.PATH, TREADLE_URL: t.url, TREADLE_TOKEN: secret } as NodeJS.ProcessEnv;
+  env = { NODE_ENV: 'test', PATH: process.env.PATH, TREADLE_URL: t.url, TREADLE_TOKEN: secret };
 });
 afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
@@ -76,7 +76,7 @@ describe('the downloadable treadle command', () => {
 
   it('exits 2 with the usage when the token is missing', async () => {
     const saved = env;
-    env = { PATH: process.env.PATH, TREADLE_URL: t.url } as NodeJS.ProcessEnv;
+    env = { NODE_ENV: 'test', PATH: process.env.PATH, TREADLE_URL: t.url };
     const out = await node('check', '--profile', '1');
     env = saved;
     expect(out.code).toBe(2);
