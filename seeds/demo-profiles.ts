@@ -34,6 +34,7 @@ export async function seedDemoProfiles(db: Db, teamId: number, fallbackAuthorId:
     const latest = await db('profile_versions as v').join('profiles as p', 'p.id', 'v.profile_id').where('p.character_id', c.id).orderBy('v.version', 'desc').first('v.document');
     const setup = setupFor(rigOf(characterOfRow(row)), JSON.parse(latest.document).legSetup);
     const damped = { ...setup, solver: { ...setup.solver, lambda: Math.round((setup.solver.lambda * 1.5 + 0.01) * 1000) / 1000 } };
-    await publishProfile(db, { ...first, legSetup: damped, notes: 'More damping: steadier knee near full extension on the dock steps.', now: at + 30 * 60_000 });
+    // The note says what was changed and why; the score beside it on the profile page says how it went.
+    await publishProfile(db, { ...first, legSetup: damped, notes: 'More DLS damping (λ × 1.5 + 0.01), tried for a steadier knee near full extension on the dock steps.', now: at + 30 * 60_000 });
   }
 }

@@ -18,11 +18,14 @@ export const DEMO_USERS: readonly { email: string; name: string; role: Role }[] 
 
 /** Creates the demo studio, its members and its content; running it again changes nothing. */
 export async function seedDemoStudio(db: Db, { now, dataDir }: { now: number; dataDir: string }): Promise<{ teamId: number }> {
-  const { teamId, ownerId } = await seedMembers(db, now);
-  await seedDemoCharacters(db, teamId, ownerId, dataDir, now);
-  await seedDemoCourses(db, teamId, ownerId, now);
-  await seedDemoTrials(db, teamId, ownerId, now);
-  await seedDemoProfiles(db, teamId, ownerId, now);
+  // The studio's story happened over the last two weeks: every seeded time is before `now` (each step below
+  // spaces its rows by minutes at most, well inside the day between steps).
+  const daysAgo = (d: number) => now - d * 86_400_000;
+  const { teamId, ownerId } = await seedMembers(db, daysAgo(14));
+  await seedDemoCharacters(db, teamId, ownerId, dataDir, daysAgo(10));
+  await seedDemoCourses(db, teamId, ownerId, daysAgo(9));
+  await seedDemoTrials(db, teamId, ownerId, daysAgo(6));
+  await seedDemoProfiles(db, teamId, ownerId, daysAgo(2));
   return { teamId };
 }
 

@@ -6,6 +6,8 @@ import { loadCourse } from '../server/services/courses';
 import { loadWalkingCharacter, saveLegSetup } from '../server/services/leg-setups';
 import { TRIAL_SECONDS } from '../schemas/trials';
 import { DEMO_SUITE } from './demo-courses';
+import { STUMBLE_KINDS } from '../engine/metrics/stumble-thresholds';
+import type { TrialMetrics } from '../engine/metrics/trial-metrics';
 
 /**
  * A first leg setup version for each demo character (the engine's defaults), a second for Burrow with the body
@@ -42,17 +44,20 @@ export async function seedDemoTrials(db: Db, teamId: number, userId: number, now
     const at = now + 60_000 * tick++;
     const defaults = defaultLegSetup(character.rig);
     let setup: LegSetup = defaults;
-    let legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Engine defaults', source: 'seed', now: at });
+    let legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Engine defaults.', source: 'seed', now: at });
+    // A second version is made the day after the first, once its author has looked at the defaults walking.
+    const nextDay = at + 86_400_000;
     if (c.name === 'Burrow') {
       setup = { ...defaults, body: { ...defaults.body, heightOffset: -0.18 } };
-      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Body 18 cm lower: the legs stood almost straight and missed their reach.', source: 'seed', now: at + 1000 });
+      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Body 18 cm lower, tried because the legs stood almost straight at rest and could miss their reach.', source: 'seed', now: nextDay });
     }
     if (c.name === 'Wicket') {
       setup = wicketByHand(defaults, character.rig.legs.map((l) => ({ leg: l.name, knee: l.chain.joints[1].name, ankle: l.chain.joints[2].name })));
-      const note = 'Body 10 cm lower, ankles free to ±69°: the detected ankle range was too tight for feet that plant at the toe, so every step snapped.';
-      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note, source: 'seed', now: at + 1000 });
+      const note = 'Body 10 cm lower, ankles free to ±69°, tried because the detected ankle range looked tight for feet that plant at the toe.';
+      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note, source: 'seed', now: nextDay });
     }
-    for (const courseId of courseIds.slice(0, SEEDED_COURSES)) {
+    const measured: { course: string; metrics: TrialMetrics }[] = [];
+    for (const [k, courseId] of courseIds.slice(0, SEEDED_COURSES).entries()) {
       const course = await loadCourse(db, teamId, courseId);
       const result = runTrial(character.rig, setup, course.heightfield, { duration: TRIAL_SECONDS });
       await db('trials').insert({
@@ -69,8 +74,24 @@ export async function seedDemoTrials(db: Db, teamId: number, userId: number, now
         series: JSON.stringify(encodeSeries(result.series)),
         footing_score: result.metrics.footingScore,
         created_by: userId,
-        created_at: at + 2000,
+        created_at: nextDay + 60_000 * (k + 1),
       });
+      measured.push({ course: course.name, metrics: result.metrics });
     }
+    // The note ends with what the seeded trials measured, so it never claims more than the numbers show.
+    const saved = await db('leg_setups').where({ id: legSetupId }).first('note');
+    await db('leg_setups').where({ id: legSetupId }).update({ note: `${saved.note} ${measuredNote(measured)}`.trim() });
   }
+}
+
+/** "Measured: Loading dock steps 0.0 (mostly snap, 31.2 per 100 steps), Scrap rubble 99.6." */
+export function measuredNote(trials: readonly { course: string; metrics: TrialMetrics }[]): string {
+  if (trials.length === 0) return '';
+  const parts = trials.map(({ course, metrics }) => {
+    const worst = STUMBLE_KINDS.reduce((a, b) => (metrics.stumbles[b].per100Steps > metrics.stumbles[a].per100Steps ? b : a));
+    const rate = metrics.stumbles[worst].per100Steps;
+    const why = metrics.footingScore < 50 && rate > 0 ? ` (mostly ${worst}, ${rate.toFixed(1)} per 100 steps)` : '';
+    return `${course} ${metrics.footingScore.toFixed(1)}${why}`;
+  });
+  return `Measured footing score: ${parts.join(', ')}.`;
 }

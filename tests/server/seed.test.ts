@@ -21,4 +21,24 @@ describe('the demo seed', () => {
     for (const u of DEMO_USERS) expect(await verifyCredentials(db, u.email, DEMO_PASSWORD)).not.toBeNull();
     await cleanup();
   });
+
+  it('dates everything before now, and each note’s measured scores are the stored trials’ own', async () => {
+    const { db, cleanup } = await freshDatabase();
+    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-seed-'));
+    const now = Date.UTC(2026, 11, 1, 9, 0, 0);
+    await seedDemoStudio(db, { now, dataDir });
+    for (const table of ['teams', 'users', 'memberships', 'characters', 'courses', 'suites', 'leg_setups', 'trials', 'profiles', 'profile_versions']) {
+      const row = await db(table).max<{ latest: number }[]>({ latest: 'created_at' }).first();
+      expect([table, Number(row?.latest)]).toEqual([table, expect.any(Number)]);
+      expect(Number(row?.latest)).toBeLessThan(now);
+    }
+    const trials = await db('trials').select('leg_setup_id', 'course_name', 'footing_score');
+    expect(trials.length).toBeGreaterThan(0);
+    for (const t of trials) {
+      const setup = await db('leg_setups').where({ id: t.leg_setup_id }).first('note');
+      // The note quotes the score to one decimal, as every screen shows it.
+      expect(setup.note).toContain(`${t.course_name} ${Number(t.footing_score).toFixed(1)}`);
+    }
+    await cleanup();
+  });
 });
