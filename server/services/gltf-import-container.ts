@@ -243,6 +243,8 @@ function checkShape(json: GltfJson, name: string): void {
   (json.skins ?? []).forEach((skin, i) => {
     const joints = skin.joints;
     if (!Array.isArray(joints) || !joints.every((j) => isIndex(j) && j < nodeCount)) throw refuse('bad_structure', `${name}: skin ${i} lists a joint that is not a node of the file.`);
+    // skin.schema.json: joints has uniqueItems; a reader that drops the repeat would shift every later joint's matrix.
+    if (new Set(joints).size !== joints.length) throw refuse('bad_hierarchy', `${name}: skin ${i} lists the same joint twice. Each joint appears once in a skin (glTF 2.0, skin.joints).`);
     for (const key of ['inverseBindMatrices', 'skeleton'] as const) {
       const ref = (skin as Record<string, unknown>)[key];
       const limit = key === 'skeleton' ? nodeCount : (json.accessors as unknown[] | undefined)?.length ?? 0;
