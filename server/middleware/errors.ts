@@ -14,6 +14,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     error = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
   } else if (err && typeof err === 'object' && 'type' in err && err.type === 'entity.too.large') {
     error = new HttpError(413, 'too_large', 'The request body is too large.');
+  } else if (err instanceof URIError) {
+    // A path such as /api/characters/%ZZ: its percent-encoding cannot be decoded (RFC 3986 §2.1).
+    error = new HttpError(400, 'bad_path', 'The address has a part that is not valid percent-encoding. Check the link.');
   } else {
     req.log?.error({ err }, 'unhandled error');
     error = new HttpError(500, 'internal', 'Something went wrong on our side. Nothing was changed; try again.');

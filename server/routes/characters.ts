@@ -1,5 +1,5 @@
 import fs from 'node:fs';
-import { Router, type ErrorRequestHandler } from 'express';
+import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { HttpError, notFound, parseWith } from '../errors';
@@ -22,15 +22,6 @@ import { uploadParser } from '../middleware/uploads';
 const MAX_FILES = 32;
 
 const idSchema = z.coerce.number().int().positive();
-
-/**
- * A path segment that is not valid percent-encoding (`/api/characters/%ZZ`) fails in the router's decoding with a
- * URIError marked 400; answer it as a 400 of our own shape instead of letting it reach the 500 handler.
- */
-const badPathSegment: ErrorRequestHandler = (err, _req, _res, next) => {
-  if (err instanceof URIError) return next(new HttpError(400, 'bad_path', 'The address has a part that is not valid percent-encoding (RFC 3986 §2.1). Check the link.'));
-  next(err);
-};
 
 /** Characters: upload, list, read, the stored file, leg mapping. */
 export function charactersRouter(deps: AppDeps): Router {
@@ -106,6 +97,5 @@ export function charactersRouter(deps: AppDeps): Router {
     res.json({ character: characterFromRow(updated!) });
   });
 
-  router.use(badPathSegment);
   return router;
 }
