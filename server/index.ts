@@ -7,6 +7,7 @@ import { packageVersion, readConfig, type ServerConfig } from './config';
 import type { Mailer } from './services/mail';
 import { startLocalPayments, type LocalPayments } from './fakes/payments/connect';
 import { createJobRunner } from './jobs';
+import { removeIncomingFiles } from './services/character-files';
 
 export interface RunningServer {
   server: Server;
@@ -29,6 +30,7 @@ export interface ServerParts {
 export async function startServer(config: ServerConfig, parts: ServerParts): Promise<RunningServer> {
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
+  await removeIncomingFiles(config.dataDir); // temporary files of uploads a crash interrupted
   const payments = parts.payments ?? (await startLocalPayments());
   // Before serving: jobs a crash left running are marked failed, queued ones start again.
   const jobs = createJobRunner({ db, clock: systemClock });
