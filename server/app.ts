@@ -22,6 +22,7 @@ import { legSetupsRouter } from './routes/leg-setups';
 import { trialsRouter } from './routes/trials';
 import { jobsRouter } from './routes/jobs';
 import { dialInsRouter } from './routes/dial-ins';
+import { dialInAllowanceRouter } from './routes/dial-in-allowance';
 import { coursesRouter } from './routes/courses';
 import { suitesRouter } from './routes/suites';
 import { billingRouter, billingWebhookRouter } from './routes/billing';
@@ -74,6 +75,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(legSetupsRouter(deps));
   api.use('/trials', trialsRouter(deps));
   api.use('/jobs', jobsRouter(deps));
+  api.use('/dial-ins/allowance', dialInAllowanceRouter(deps));
   api.use('/dial-ins', dialInsRouter(deps));
   api.use('/courses', coursesRouter(deps));
   api.use('/suites', suitesRouter(deps));

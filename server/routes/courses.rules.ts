@@ -7,6 +7,7 @@ export const courseRules: RouteRule[] = [
   { method: 'GET', path: '/courses', action: 'courses.read', label: 'See courses and suites', access: 'member' },
   { method: 'GET', path: '/courses/:id', action: 'courses.read', label: 'See courses and suites', access: 'member' },
   { method: 'POST', path: '/courses', action: 'courses.edit', label: 'Make and edit courses', access: EDITORS },
+  { method: 'POST', path: '/courses/starter', action: 'courses.edit', label: 'Make and edit courses', access: EDITORS },
   { method: 'PUT', path: '/courses/:id', action: 'courses.edit', label: 'Make and edit courses', access: EDITORS },
   { method: 'DELETE', path: '/courses/:id', action: 'courses.edit', label: 'Make and edit courses', access: EDITORS },
 ];

@@ -14,6 +14,8 @@ import {
   listCourses,
   updateCourse,
 } from '../services/courses';
+import { addStarterCourses } from '../services/starter-courses';
+import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 
 const idSchema = z.coerce.number().int().positive();
 
@@ -23,7 +25,7 @@ function courseId(raw: unknown): number {
   return id.data;
 }
 
-/** Courses: list, read (with the encoding), create from a recipe or an encoding, save with a version check, delete. */
+/** Courses: list, read (with the encoding), create from a recipe or an encoding, add the starter set, save with a version check, delete. */
 export function coursesRouter(deps: AppDeps): Router {
   const router = Router();
 
@@ -50,6 +52,13 @@ export function coursesRouter(deps: AppDeps): Router {
       now: deps.clock.now(),
     });
     res.status(201).json(await courseDetail(deps.db, team.id, id));
+  });
+
+  // One tap for a new studio: the starter courses and suite it is missing (nothing of its own is touched).
+  router.post('/starter', async (req, res) => {
+    const { team, user } = viewerOf(req);
+    const body: StarterCoursesResponse = await addStarterCourses(deps.db, team.id, user.id, deps.clock.now());
+    res.status(body.added.length || body.suiteAdded ? 201 : 200).json(body);
   });
 
   router.put('/:id', async (req, res) => {
