@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me, SignInInput, SignUpInput } from '../schemas/auth';
+import type { Me, SignInInput, SignUpAnswer, SignUpInput } from '../schemas/auth';
 import { api, ApiError } from './api';
 
 export const meQueryKey = ['me'] as const;
@@ -28,11 +28,19 @@ export function useSignIn() {
   });
 }
 
+/** Asks for a studio: the answer is the same for every address, and the link to finish arrives by mail. */
 export function useSignUp() {
+  return useMutation<SignUpAnswer, ApiError, SignUpInput>({
+    mutationFn: (input) => api<SignUpAnswer>('/auth/sign-up', { method: 'POST', body: input }),
+  });
+}
+
+/** The mailed link's second step: makes the account and studio and signs in. */
+export function useConfirmSignUp(token: string) {
   const client = useQueryClient();
-  return useMutation<unknown, ApiError, SignUpInput>({
-    mutationFn: (input) => api('/auth/sign-up', { method: 'POST', body: input }),
-    onSuccess: () => client.invalidateQueries({ queryKey: meQueryKey }),
+  return useMutation<unknown, ApiError, void>({
+    mutationFn: () => api('/auth/sign-up/confirm', { method: 'POST', body: { token } }),
+    onSuccess: () => client.resetQueries({ queryKey: meQueryKey }),
   });
 }
 

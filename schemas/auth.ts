@@ -14,10 +14,19 @@ export const emailSchema = z
   .max(254, 'That e-mail address is too long.')
   .pipe(z.email({ error: 'That does not look like an e-mail address.' }));
 
+/**
+ * bcrypt reads only the first 72 bytes of a password (Provos & Mazières 1999, "A Future-Adaptable Password Scheme";
+ * bcryptjs truncates the same way), so a longer one is refused rather than silently cut: 72 bytes is 72 plain
+ * letters, fewer with accents or emoji.
+ */
+export const PASSWORD_MAX_BYTES = 72;
+const utf8Bytes = (s: string) => new TextEncoder().encode(s).length;
+
 export const newPasswordSchema = z
   .string({ error: 'Choose a password.' })
   .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
   .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`)
+  .refine((p) => utf8Bytes(p) <= PASSWORD_MAX_BYTES, `Use at most ${PASSWORD_MAX_BYTES} bytes: that is 72 plain letters, fewer with accents or emoji. Longer passwords would be cut short without telling you.`)
   .refine((p) => !COMMON_PASSWORDS.has(p.toLowerCase()), 'That password is one of the most common ones; choose another.');
 
 export const signInSchema = z.object({
@@ -55,6 +64,12 @@ export const meSchema = z.object({
 export type Me = z.infer<typeof meSchema>;
 
 export const switchTeamSchema = z.object({ teamId: z.number({ error: 'Pick a studio.' }).int() });
+
+export const signUpConfirmSchema = z.object({ token: z.string().min(1, 'This sign-up link is incomplete.').max(200, 'This sign-up link is not one of ours.') });
+
+/** What sign-up answers, the same for every address. */
+export const signUpAnswerSchema = z.object({ ok: z.literal(true), message: z.string() });
+export type SignUpAnswer = z.infer<typeof signUpAnswerSchema>;
 
 export const resetRequestSchema = z.object({ email: emailSchema });
 export type ResetRequestInput = z.infer<typeof resetRequestSchema>;

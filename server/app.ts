@@ -8,6 +8,8 @@ import { sessionMiddleware } from './middleware/session';
 import { loadViewer } from './middleware/auth';
 import { loadApiToken } from './middleware/api-token';
 import { rejectCrossSiteWrites } from './middleware/csrf';
+import { allowOnlyKnownHosts } from './middleware/allowed-hosts';
+import { noStoreApi, securityHeaders } from './middleware/security-headers';
 import { enforceRouteTable } from './permissions';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { authRouter } from './routes/auth';
@@ -34,7 +36,9 @@ import { apiV1Router } from './routes/api-v1';
 export function createApp(deps: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
-  if (deps.secureCookies) app.set('trust proxy', 1);
+  // Forwarded headers are believed only from the configured proxy; otherwise anyone could pick their own address.
+  app.set('trust proxy', deps.trustProxy && deps.trustProxy.length ? deps.trustProxy : false);
+  app.use(allowOnlyKnownHosts(deps.allowedHosts ?? [], deps.publicUrl));
 
   app.use(
     helmet({
@@ -51,15 +55,18 @@ export function createApp(deps: AppDeps): Express {
           upgradeInsecureRequests: null,
         },
       },
+      strictTransportSecurity: false,
     }),
   );
+  app.use(securityHeaders);
   if (deps.logRequests) app.use(pinoHttp({ autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
 
   const api = express.Router();
+  api.use(noStoreApi);
   api.use('/billing/webhook', billingWebhookRouter(deps));
   api.use(express.json({ limit: '2mb' }));
   api.use(sessionMiddleware(deps));
-  api.use(rejectCrossSiteWrites);
+  api.use(rejectCrossSiteWrites(deps.publicUrl));
   api.use(loadViewer(deps.db));
   api.use(loadApiToken(deps.db, deps.clock));
   api.use(enforceRouteTable);

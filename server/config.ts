@@ -1,4 +1,5 @@
 import crypto from 'node:crypto';
+import os from 'node:os';
 import path from 'node:path';
 import { developmentDatabaseFile } from '../knexfile';
 
@@ -19,6 +20,48 @@ export interface ServerConfig {
   smtp?: { host: string; port: number; secure: boolean; auth?: { user: string; pass: string } };
   /** Port of the local mail catcher's web inbox. */
   inboxPort: number;
+  /**
+   * Host names (and IP addresses) requests may name in their Host header; anything else is answered 421, so a page on
+   * a rebinding domain cannot talk to this instance. Localhost forms are always allowed.
+   */
+  allowedHosts?: string[];
+  /**
+   * The reverse proxy whose X-Forwarded-For and X-Forwarded-Proto are believed (express's "trust proxy": addresses,
+   * subnets, or loopback/linklocal/uniquelocal). False: the connecting address is the client, whatever headers say.
+   */
+  trustProxy?: string[] | false;
+  /** The local payment fake's own SQLite file. */
+  paymentsFile?: string;
+}
+
+/** Host names that always reach a local instance. */
+export const LOCALHOST_FORMS = ['localhost', '127.0.0.1', '[::1]', '::1'];
+
+/** localhost forms, PUBLIC_URL's host, HOST's address (unless it listens on every interface) and ALLOWED_HOSTS. */
+export function allowedHostsOf(env: { host: string; publicUrl?: string; extra?: string }): string[] {
+  const hosts = new Set(LOCALHOST_FORMS);
+  if (env.publicUrl) hosts.add(new URL(env.publicUrl).hostname.toLowerCase());
+  if (env.host === '0.0.0.0' || env.host === '::') {
+    // Listening on every interface (a phone on the same network): this machine's own addresses reach it.
+    for (const list of Object.values(os.networkInterfaces())) for (const a of list ?? []) hosts.add(a.family === 'IPv6' ? `[${a.address}]` : a.address);
+  } else if (env.host) hosts.add(env.host.toLowerCase());
+  for (const h of (env.extra ?? '').split(',')) if (h.trim()) hosts.add(h.trim().toLowerCase());
+  return [...hosts];
+}
+
+/**
+ * TRUST_PROXY: a comma-separated list of the proxy's addresses or subnets, or loopback/linklocal/uniquelocal.
+ * A hop count or "true" would believe whoever connects, which is what the setting exists to avoid, so it is refused.
+ */
+export function parseTrustProxy(raw: string | undefined): string[] | false {
+  if (!raw?.trim()) return false;
+  const parts = raw.split(',').map((p) => p.trim()).filter(Boolean);
+  for (const p of parts) {
+    if (/^\d+$/.test(p) || p === 'true' || p === '*') {
+      throw new Error(`TRUST_PROXY names the proxy's address (e.g. 127.0.0.1, 10.0.0.0/8 or loopback), not "${p}": a hop count or "true" would trust anyone who connects.`);
+    }
+  }
+  return parts;
 }
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -43,6 +86,9 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
         }
       : undefined,
     inboxPort: Number(env.INBOX_PORT ?? port + 1),
+    allowedHosts: allowedHostsOf({ host: env.HOST ?? '127.0.0.1', publicUrl: env.PUBLIC_URL, extra: env.ALLOWED_HOSTS }),
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
+    paymentsFile: env.PAYMENTS_DB ?? path.join(projectRoot, 'data', 'payments.sqlite'),
   };
 }
 

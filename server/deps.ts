@@ -21,6 +21,10 @@ export interface AppDeps {
   webDir?: string;
   /** Cookies get the Secure flag (set when served over HTTPS behind a proxy). */
   secureCookies?: boolean;
+  /** Host names the Host header may carry besides the localhost forms (see allowedHostsOf in config.ts). */
+  allowedHosts?: string[];
+  /** The reverse proxy believed for X-Forwarded-For/-Proto (TRUST_PROXY); none by default. */
+  trustProxy?: string[] | false;
   /** Logs each request (off in tests). */
   logRequests?: boolean;
   version: string;

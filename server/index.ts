@@ -42,6 +42,8 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
     sessionSecret: config.sessionSecret,
     webDir: config.webDir,
     secureCookies: config.secureCookies,
+    allowedHosts: config.allowedHosts,
+    trustProxy: config.trustProxy,
     logRequests: parts.logRequests ?? false,
     version: packageVersion(),
     dataDir: config.dataDir,

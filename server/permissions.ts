@@ -37,6 +37,7 @@ export interface RouteRule {
 export const ROUTE_TABLE: RouteRule[] = [
   { method: 'GET', path: '/health', action: 'health', label: 'Check the server is up', access: 'public' },
   { method: 'POST', path: '/auth/sign-up', action: 'auth.sign-up', label: 'Set up a studio', access: 'public' },
+  { method: 'POST', path: '/auth/sign-up/confirm', action: 'auth.sign-up', label: 'Set up a studio', access: 'public' },
   { method: 'POST', path: '/auth/sign-in', action: 'auth.sign-in', label: 'Sign in', access: 'public' },
   { method: 'POST', path: '/auth/sign-out', action: 'auth.sign-out', label: 'Sign out', access: 'public' },
   { method: 'POST', path: '/auth/sign-out-everywhere', action: 'auth.sign-out-everywhere', label: 'Sign out everywhere', access: 'member' },

@@ -1,7 +1,8 @@
-import { Link, useRouter } from 'expo-router';
+import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { PASSWORD_MIN, signUpSchema } from '../../schemas/auth';
 import { useSignUp } from '../../hooks/useSession';
+import { useAppConfig } from '../../hooks/useAccountLinks';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { colors, fonts, space, type } from '../../constants/theme';
 import { Button } from '../ui/Button';
@@ -9,14 +10,36 @@ import { TextField } from '../ui/TextField';
 import { Notice } from '../ui/Notice';
 
 export function SignUpForm() {
-  const router = useRouter();
   const signUp = useSignUp();
+  const config = useAppConfig();
   const form = useSchemaForm(signUpSchema, { name: '', email: '', password: '', teamName: '' });
 
   function submit() {
     const input = form.validate();
     if (!input) return;
-    signUp.mutate(input, { onSuccess: () => router.replace('/'), onError: form.showServerError });
+    signUp.mutate(input, { onError: form.showServerError });
+  }
+
+  if (signUp.data) {
+    const inbox = config.data?.localInboxUrl;
+    return (
+      <View style={styles.stack}>
+        <Text role="heading" aria-level={1} style={styles.title}>
+          Check your inbox
+        </Text>
+        <Notice tone="info" message={signUp.data.message} />
+        {inbox ? (
+          <Text style={styles.lede}>
+            This Treadle keeps its mail on this machine:{' '}
+            <Link href={inbox} target="_blank" style={styles.link}>
+              open the local inbox
+            </Link>
+            .
+          </Text>
+        ) : null}
+        <Button label="Use another address" tone="quiet" onPress={() => signUp.reset()} />
+      </View>
+    );
   }
 
   return (

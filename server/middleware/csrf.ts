@@ -10,25 +10,35 @@ const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
  * site makes with our cookie therefore shows itself. Clients that are not browsers cannot ride anyone's cookie,
  * and bearer-token calls carry no cookie at all, so neither needs the check.
  */
-export const rejectCrossSiteWrites: RequestHandler = (req, _res, next) => {
-  if (SAFE_METHODS.has(req.method)) return next();
-  if (req.path === '/billing/webhook') return next();
-  const site = req.get('sec-fetch-site');
-  if (site && site !== 'same-origin' && site !== 'none') return next(crossSite());
-  const origin = req.get('origin');
-  if (origin && origin !== 'null') {
-    let host: string;
+export function rejectCrossSiteWrites(publicUrl: () => string): RequestHandler {
+  return (req, _res, next) => {
+    if (SAFE_METHODS.has(req.method)) return next();
+    if (req.path === '/billing/webhook') return next();
+    const site = req.get('sec-fetch-site');
+    if (site && site !== 'same-origin' && site !== 'none') return next(crossSite());
+    const origin = req.get('origin');
+    if (origin === undefined) return next();
+    // An origin is scheme, host and port (RFC 6454 §4): http://host is another origin than https://host.
+    let sent: string;
     try {
-      host = new URL(origin).host;
+      sent = origin === 'null' ? 'null' : new URL(origin).origin;
     } catch {
       return next(crossSite());
     }
-    if (host !== req.get('host')) return next(crossSite());
-  } else if (origin === 'null') {
-    return next(crossSite());
+    const own = `${req.protocol}://${req.get('host')}`.toLowerCase();
+    if (sent === own || sent === publicOrigin(publicUrl)) return next();
+    next(crossSite());
+  };
+}
+
+/** Behind a TLS proxy that is not trusted for X-Forwarded-Proto, the request looks like http; PUBLIC_URL says what people use. */
+function publicOrigin(publicUrl: () => string): string | null {
+  try {
+    return new URL(publicUrl()).origin;
+  } catch {
+    return null;
   }
-  next();
-};
+}
 
 function crossSite() {
   return new HttpError(403, 'cross_site', 'This change was sent from another site, so Treadle refused it. Make it from Treadle itself.');

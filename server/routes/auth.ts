@@ -1,12 +1,13 @@
 import { Router, type Request } from 'express';
-import { resetPasswordSchema, resetRequestSchema, signInSchema, signUpSchema } from '../../schemas/auth';
+import { resetPasswordSchema, resetRequestSchema, signInSchema, signUpConfirmSchema, signUpSchema, type SignUpAnswer } from '../../schemas/auth';
 import type { AppDeps } from '../deps';
 import type { Db } from '../db';
 import { HttpError, parseWith } from '../errors';
-import { createUserWithTeam, defaultTeamOf, verifyCredentials } from '../services/accounts';
+import { defaultTeamOf, verifyCredentials } from '../services/accounts';
+import { confirmSignUp, requestSignUp, signUpAnswer } from '../services/sign-up';
 import { requestReset, resetPassword } from '../services/password-reset';
 import { SESSION_COOKIE } from '../middleware/session';
-import { resetLimit, signInLimit } from '../middleware/rate-limits';
+import { resetLimit, signInLimits, signUpLimit } from '../middleware/rate-limits';
 import { viewerOf } from '../middleware/auth';
 
 const WRONG_CREDENTIALS = 'Wrong e-mail or password.';
@@ -32,14 +33,22 @@ function endSession(req: Request): Promise<void> {
 export function authRouter(deps: AppDeps): Router {
   const router = Router();
 
-  router.post('/sign-up', async (req, res) => {
+  // The same answer for every address; the link (or the "you already have an account" notice) goes by mail.
+  router.post('/sign-up', signUpLimit(), async (req, res) => {
     const input = parseWith(signUpSchema, req.body);
-    const { userId, teamId } = await createUserWithTeam(deps.db, input, deps.clock.now());
+    await requestSignUp(deps, input);
+    const answer: SignUpAnswer = { ok: true, message: signUpAnswer(input.email) };
+    res.status(202).json(answer);
+  });
+
+  router.post('/sign-up/confirm', async (req, res) => {
+    const { token } = parseWith(signUpConfirmSchema, req.body);
+    const { userId, teamId } = await confirmSignUp(deps, token);
     await startSession(deps.db, req, userId, teamId);
     res.status(201).json({ ok: true });
   });
 
-  router.post('/sign-in', signInLimit(), async (req, res) => {
+  router.post('/sign-in', ...signInLimits(), async (req, res) => {
     const input = parseWith(signInSchema, req.body);
     const user = await verifyCredentials(deps.db, input.email, input.password);
     if (!user) throw new HttpError(401, 'wrong_credentials', WRONG_CREDENTIALS);

@@ -1,7 +1,6 @@
 import bcrypt from 'bcryptjs';
 import type { Db } from '../db';
 import type { Role } from '../../schemas/roles';
-import type { SignUpInput } from '../../schemas/auth';
 import { HttpError } from '../errors';
 
 /** bcrypt work factor; 10 is the floor OWASP's password storage cheat sheet names for bcrypt. */
@@ -30,19 +29,23 @@ export async function verifyCredentials(db: Db, email: string, password: string)
   return user && ok ? user : null;
 }
 
-export async function createUserWithTeam(db: Db, input: SignUpInput, now: number): Promise<{ userId: number; teamId: number }> {
-  const passwordHash = await hashPassword(input.password);
+/** Makes the account, its studio and the owner's membership (call it with a transaction of the caller's). */
+export async function createUserWithTeam(
+  db: Db,
+  input: { email: string; name: string; teamName: string; passwordHash: string },
+  now: number,
+): Promise<{ userId: number; teamId: number }> {
   return db.transaction(async (trx) => {
     const existing = await trx('users').where({ email: input.email }).first();
     if (existing) {
-      throw new HttpError(409, 'email_taken', 'An account with this e-mail already exists. Sign in instead.', {
-        email: 'An account with this e-mail already exists. Sign in instead.',
+      throw new HttpError(409, 'email_taken', 'This address already has a Treadle account. Sign in instead.', {
+        email: 'This address already has a Treadle account. Sign in instead.',
       });
     }
     const [userId] = await trx('users').insert({
       email: input.email,
       name: input.name,
-      password_hash: passwordHash,
+      password_hash: input.passwordHash,
       created_at: now,
     });
     const [teamId] = await trx('teams').insert({ name: input.teamName, created_at: now });

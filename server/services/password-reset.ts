@@ -6,27 +6,33 @@ import { hashToken, newLinkToken } from './tokens';
 /** A reset link works for an hour (OWASP Forgot Password Cheat Sheet: short-lived, single-use tokens). */
 export const RESET_TTL_MS = 60 * 60 * 1000;
 
-/** Sends a reset link when the address has an account; says nothing either way, so no one learns who has one. */
+/**
+ * Sends a reset link when the address has an account; says nothing either way, so no one learns who has one.
+ * Both paths make a token and look the address up, and the mail goes out without the answer waiting for it,
+ * so a known address is not told apart by how long the answer takes.
+ */
 export async function requestReset(deps: AppDeps, email: string): Promise<void> {
   const now = deps.clock.now();
+  const { token, hash } = newLinkToken();
   const user = await deps.db('users').where({ email }).first('id', 'name');
   if (!user) return;
-  const { token, hash } = newLinkToken();
   await deps.db('password_resets').insert({ user_id: user.id, token_hash: hash, created_at: now, expires_at: now + RESET_TTL_MS });
   const link = `${deps.publicUrl()}/reset-password/${token}`;
-  await deps.mailer.send({
-    to: email,
-    subject: 'Reset your Treadle password',
-    text: [
-      `Hello ${user.name},`,
-      '',
-      'Someone (we hope you) asked to reset the password of your Treadle account.',
-      `Choose a new password here: ${link}`,
-      '',
-      'The link works once and expires in one hour. Setting a new password signs you out everywhere.',
-      'If you did not ask for this, ignore this mail: your password stays as it is.',
-    ].join('\n'),
-  });
+  deps.mailer
+    .send({
+      to: email,
+      subject: 'Reset your Treadle password',
+      text: [
+        `Hello ${user.name},`,
+        '',
+        'Someone (we hope you) asked to reset the password of your Treadle account.',
+        `Choose a new password here: ${link}`,
+        '',
+        'The link works once and expires in one hour. Setting a new password signs you out everywhere.',
+        'If you did not ask for this, ignore this mail: your password stays as it is.',
+      ].join('\n'),
+    })
+    .catch((err: unknown) => console.error(`Reset mail to ${email} failed:`, err instanceof Error ? err.message : err));
 }
 
 /** Sets the new password, spends the token, and ends every session of that user, all in one transaction. */

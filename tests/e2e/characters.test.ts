@@ -49,6 +49,7 @@ describe('characters in the browser', () => {
     await page.getByLabel('E-mail').fill('nell@lantern.test');
     await page.getByLabel('Password').fill('a walk over scrap rubble');
     await page.getByRole('button', { name: 'Create studio' }).click();
+    await studio.finishSignUp(page, 'nell@lantern.test');
     await page.getByText('Lantern Yard', { exact: true }).first().waitFor();
 
     await page.goto(`${studio.server.url}/characters`);

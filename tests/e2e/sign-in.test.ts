@@ -37,6 +37,10 @@ describe('signing up, out and in', () => {
     await screenshot(page, 'sign-up-errors-phone');
     await page.getByLabel('Password').fill('a walk over scrap rubble');
     await page.getByRole('button', { name: 'Create studio' }).click();
+    // The answer is the same for every address; the way on is the link in the mail.
+    await page.getByRole('heading', { name: 'Check your inbox' }).waitFor();
+    await screenshot(page, 'sign-up-check-inbox-phone');
+    await studio.finishSignUp(page, 'nell@sprocket.test', 'sign-up-confirm-phone');
 
     await page.getByText('Sprocket Yard', { exact: true }).waitFor();
     await page.getByRole('heading', { name: 'Home' }).waitFor();
@@ -54,6 +58,23 @@ describe('signing up, out and in', () => {
     await signIn(page, 'designer@brassmoth.test', 'treadle-demo');
     await page.getByText('Brassmoth Interactive', { exact: true }).waitFor();
     await page.getByText('Dario Moth · Designer').waitFor();
+    await page.context().close();
+  });
+
+  it('says the same for an address that already has an account, and mails that address a notice (wide)', async () => {
+    const page = await newPage(WIDE);
+    await page.goto(`${studio.server.url}/sign-up`);
+    await page.getByLabel('Your name').fill('Dario Moth');
+    await page.getByLabel('Studio name').fill('Second Yard');
+    await page.getByLabel('E-mail').fill('designer@brassmoth.test');
+    await page.getByLabel('Password').fill('a walk over scrap rubble');
+    await page.getByRole('button', { name: 'Create studio' }).click();
+    await page.getByRole('heading', { name: 'Check your inbox' }).waitFor();
+    await page.getByText('We sent a mail to designer@brassmoth.test.', { exact: false }).waitFor();
+    expect(await page.getByText(/already/i).count()).toBe(0);
+    await screenshot(page, 'sign-up-check-inbox-wide');
+    const notice = await studio.server.mail.waitFor((m) => m.to === 'designer@brassmoth.test' && /already has an account/.test(m.text));
+    expect(notice.text).not.toMatch(/sign-up-confirm/);
     await page.context().close();
   });
 

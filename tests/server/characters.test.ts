@@ -5,6 +5,7 @@ import { characterDetailSchema, characterListSchema, characterUploadResultSchema
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { anonymised, file, wicket } from '../fixtures/gltf/build-fixtures';
 import { footprint, signedIn, upload, type Agent } from './characters-helpers';
+import { signUpThroughMail } from '../support/studio';
 
 // Generous ceiling for loading the glTF libraries on a busy machine; no test asserts time.
 jest.setTimeout(60_000);
@@ -16,11 +17,7 @@ beforeAll(async () => {
   t = await testApp();
   await seedDemoStudio(t.db, { now: t.clock.now(), dataDir: t.dataDir });
   for (const who of ['owner', 'designer', 'programmer', 'artlead'] as const) as[who] = await signedIn(t.app, `${who}@brassmoth.test`);
-  as.outsider = request.agent(t.app);
-  const signUp = await as.outsider
-    .post('/api/auth/sign-up')
-    .send({ name: 'Oona Rivet', email: 'oona@rivet.test', password: 'a long enough phrase', teamName: 'Rivet Works' });
-  expect(signUp.status).toBe(201);
+  as.outsider = await signUpThroughMail(t.app, t.mail, { name: 'Oona Rivet', email: 'oona@rivet.test', password: 'a long enough phrase', teamName: 'Rivet Works' });
 });
 afterAll(() => t.cleanup());
 

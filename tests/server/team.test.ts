@@ -187,7 +187,7 @@ describe('hardening', () => {
     let last: request.Response | undefined;
     for (let i = 0; i < 11; i++) last = await request(t.app).post('/api/auth/sign-in').send({ email: studio.members.designer.email, password: 'guess number ' + i });
     expect(last!.status).toBe(429);
-    expect(last!.body.error.message).toMatch(/Too many sign-in attempts/);
+    expect(last!.body.error.message).toMatch(/Too many failed sign-ins/);
   });
 
   it('rate-limits reset requests', async () => {

@@ -1,5 +1,5 @@
 import type { Browser, BrowserContextOptions, Page } from 'playwright-core';
-import { launchBrowser } from './browser';
+import { launchBrowser, screenshot } from './browser';
 import { startTestServer } from './test-server';
 
 type TestServer = Awaited<ReturnType<typeof startTestServer>>;
@@ -39,6 +39,17 @@ export function e2eStudio() {
         throw err;
       });
       return page;
+    },
+    /** After "Create studio": the page says to check the inbox; opens the mailed link and takes its one step. */
+    async finishSignUp(page: Page, email: string, shot?: string): Promise<void> {
+      await page.getByRole('heading', { name: 'Check your inbox' }).waitFor();
+      await page.getByText(`We sent a mail to ${email}.`, { exact: false }).waitFor();
+      const mail = await studio.server.mail.waitFor((m) => m.to === email && /sign-up-confirm\//.test(m.text));
+      const link = /(https?:\/\/\S+\/sign-up-confirm\/[A-Za-z0-9_-]+)/.exec(mail.text)![1];
+      await page.goto(link);
+      await page.getByRole('heading', { name: 'Your studio is nearly ready' }).waitFor();
+      if (shot) await screenshot(page, shot);
+      await page.getByRole('button', { name: 'Open my studio' }).click();
     },
     /** Signs a demo member in and waits for the studio shell. */
     async signIn(page: Page, email: string, password = 'treadle-demo'): Promise<void> {

@@ -35,3 +35,22 @@ export async function signedIn(app: Express, email: string, password = STUDIO_PA
   if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }
+
+/**
+ * Sets up a studio the way a person does: sign-up, the link in the mail, the confirm step. Answers the signed-in
+ * agent. `mail` is the test's mail catcher; use an address no other mail in the test went to.
+ */
+export async function signUpThroughMail(
+  app: Express,
+  mail: { waitFor(m: (x: { to: string; text: string }) => boolean): Promise<{ text: string }> },
+  input: { name: string; email: string; password: string; teamName: string },
+) {
+  const agent = request.agent(app);
+  const res = await agent.post('/api/auth/sign-up').send(input);
+  if (res.status !== 202) throw new Error(`sign-up of ${input.email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const letter = await mail.waitFor((m) => m.to === input.email && /sign-up-confirm\//.test(m.text));
+  const token = /sign-up-confirm\/([A-Za-z0-9_-]+)/.exec(letter.text)![1];
+  const confirmed = await agent.post('/api/auth/sign-up/confirm').send({ token });
+  if (confirmed.status !== 201) throw new Error(`confirming ${input.email} failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`);
+  return agent;
+}

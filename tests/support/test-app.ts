@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
+import type { AppDeps } from '../../server/deps';
 import type { Clock } from '../../server/clock';
 import type { Db } from '../../server/db';
 import { freshDatabase } from './test-db';
@@ -34,8 +35,8 @@ export interface TestApp {
   cleanup(): Promise<void>;
 }
 
-/** The real Express app over a fresh SQLite file and an empty data folder of its own. */
-export async function testApp(): Promise<TestApp> {
+/** The real Express app over a fresh SQLite file and an empty data folder of its own; `overrides` replace its parts. */
+export async function testApp(overrides: Partial<AppDeps> = {}): Promise<TestApp> {
   const database = await freshDatabase();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-files-'));
   const clock = manualClock();
@@ -54,6 +55,7 @@ export async function testApp(): Promise<TestApp> {
     publicUrl: () => TEST_PUBLIC_URL,
     payments: payments.deps,
     jobs,
+    ...overrides,
   });
   const listener = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
