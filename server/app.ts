@@ -11,6 +11,7 @@ import { rejectCrossSiteWrites } from './middleware/csrf';
 import { allowOnlyKnownHosts } from './middleware/allowed-hosts';
 import { noStoreApi, securityHeaders } from './middleware/security-headers';
 import { enforceRouteTable } from './permissions';
+import { enforcePlanReadOnly } from './middleware/plan-read-only';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { authRouter } from './routes/auth';
 import { meRouter } from './routes/me';
@@ -70,6 +71,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(loadViewer(deps.db));
   api.use(loadApiToken(deps.db, deps.clock));
   api.use(enforceRouteTable);
+  api.use(enforcePlanReadOnly(deps.db));
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
   api.use('/app-config', appConfigRouter(deps));

@@ -12,7 +12,7 @@ import type { CandidateOutcome } from '../../engine/dialin/objective';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
 import { loadCourse, type LoadedCourse } from '../services/courses';
 import { loadWalkingCharacter } from '../services/leg-setups';
-import { consumeAllowance } from '../services/billing-limits';
+import { settleReservation } from '../services/billing-limits';
 import { dialInParamSchema, type DialInResult, type DialInScores } from '../../schemas/dial-ins';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { runSearch, SearchStopped, withValues, type CandidateTask, type DialInContext, type EvaluatedCandidate } from '../workers/dial-in-search';
@@ -108,7 +108,7 @@ export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
     };
     // Written by the runner in the transaction that marks the job done, so the allowance is counted once.
     return new JobCommit(async (trx) => {
-      await consumeAllowance(trx, ctx.teamId, 'dialInCandidates', run.candidates.length, clock.now());
+      await settleReservation(trx, ctx.jobId, run.candidates.length, clock.now());
       return result;
     });
   };

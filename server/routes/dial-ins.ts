@@ -7,7 +7,7 @@ import { dialInAcceptSchema, dialInRequestSchema, dialInResultSchema } from '../
 import type { JobAccepted } from '../../schemas/jobs';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { loadSuiteCourses } from '../services/courses';
-import { assertWithinLimit } from '../services/billing-limits';
+import { attachReservation, releaseReservation, reserveAllowance } from '../services/billing-limits';
 import { assertFitsRig, findLegSetup, loadWalkingCharacter, resolveLegSetup, saveLegSetup } from '../services/leg-setups';
 import { findJobRow } from '../jobs/job-rows';
 import type { DialInJobInput } from '../jobs/dial-in-job';
@@ -26,8 +26,9 @@ export function dialInsRouter(deps: AppDeps): Router {
     const resolved = await resolveLegSetup(deps.db, team.id, character, { legSetupId: ask.legSetupId });
     const courses = await loadSuiteCourses(deps.db, team.id, ask.suiteId);
     if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
-    // Refused before any work when the month's allowance would not cover it; the use is recorded when the job finishes.
-    await assertWithinLimit(deps.db, team.id, 'dialInCandidates', { adding: ask.candidates, now: deps.clock.now() });
+    // The candidates are held against the month's allowance now (refused when they would not fit); what the job does not run is given back when it ends.
+    const jobs = jobRunnerOf(deps);
+    const held = await reserveAllowance(deps.db, team.id, 'dialInCandidates', ask.candidates, deps.clock.now());
     const input: DialInJobInput = {
       characterId: character.id,
       suiteId: ask.suiteId,
@@ -39,7 +40,8 @@ export function dialInsRouter(deps: AppDeps): Router {
       seed: ask.seed,
       duration: TRIAL_SECONDS,
     };
-    const body: JobAccepted = { job: await jobRunnerOf(deps).enqueue({ teamId: team.id, userId: user.id, kind: 'dial-in', input }) };
+    const body: JobAccepted = { job: await jobs.enqueue({ teamId: team.id, userId: user.id, kind: 'dial-in', input }).catch(releaseReservation(deps.db, held)) };
+    await attachReservation(deps.db, held, body.job.id);
     res.status(202).json(body);
   });
 

@@ -48,22 +48,51 @@ export async function usedOf(db: Db, teamId: number, kind: LimitKind, now = Date
     return Number(row?.n ?? 0);
   }
   const row = await db('plan_usage').where({ team_id: teamId, kind, month: usageMonth(now) }).first('used');
-  return Number(row?.used ?? 0);
+  return Number(row?.used ?? 0) + (await heldOf(db, teamId, kind, now));
 }
 
-export async function checkLimit(db: Db, teamId: number, kind: LimitKind, options: { adding?: number; now?: number } = {}): Promise<LimitCheck> {
+/** A reservation not yet tied to its job is counted this long (the job is made right after it, or never). */
+const UNATTACHED_HOLD_MS = 60 * 60 * 1000;
+
+/** Allowance held for jobs still queued or running this month (finished ones have turned theirs into use). */
+async function heldOf(db: Db, teamId: number, kind: LimitKind, now: number): Promise<number> {
+  const row = await db('allowance_reservations as r')
+    .leftJoin('jobs as j', 'j.id', 'r.job_id')
+    .where({ 'r.team_id': teamId, 'r.kind': kind, 'r.month': usageMonth(now) })
+    .whereNull('r.settled_at')
+    .where((q) => q.whereIn('j.status', ['queued', 'running']).orWhere((u) => u.whereNull('r.job_id').where('r.created_at', '>', now - UNATTACHED_HOLD_MS)))
+    .sum<{ n: number | null }[]>({ n: 'r.amount' })
+    .first();
+  return Number(row?.n ?? 0);
+}
+
+export async function checkLimit(
+  db: Db,
+  teamId: number,
+  kind: LimitKind,
+  options: { adding?: number; now?: number; alsoHeld?: number } = {},
+): Promise<LimitCheck> {
   const adding = options.adding ?? 1;
   const plan = await currentPlanOf(db, teamId);
   const limit = planById(plan).limits[kind];
-  const used = await usedOf(db, teamId, kind, options.now);
+  const used = (await usedOf(db, teamId, kind, options.now)) + (options.alsoHeld ?? 0);
   const allowed = used + adding <= limit;
   return { kind, plan, used, limit, allowed, upgradeTo: allowed ? null : (upgradeFor(plan, kind, used + adding)?.id ?? null) };
 }
 
-/** Throws 403 plan_limit, saying what the plan allows and which plan to move to, when `adding` more would not fit. */
-export async function assertWithinLimit(db: Db, teamId: number, kind: LimitKind, options: { adding?: number; now?: number } = {}): Promise<void> {
+/**
+ * Throws 403 plan_limit, saying what the plan allows and which plan to move to, when `adding` more would not fit.
+ * For a limit to hold, call it inside the transaction that makes the new item (SQLite runs one write
+ * transaction at a time, so two requests cannot both see room for one).
+ */
+export async function assertWithinLimit(
+  db: Db,
+  teamId: number,
+  kind: LimitKind,
+  options: { adding?: number; now?: number; alsoHeld?: number; heldAs?: string } = {},
+): Promise<void> {
   const check = await checkLimit(db, teamId, kind, options);
-  if (!check.allowed) throw planLimitError(check, options.adding ?? 1);
+  if (!check.allowed) throw planLimitError(check, options.adding ?? 1, options.heldAs);
 }
 
 /**
@@ -72,11 +101,83 @@ export async function assertWithinLimit(db: Db, teamId: number, kind: LimitKind,
  */
 export async function consumeAllowance(trx: Db, teamId: number, kind: MonthlyKind, amount: number, now = Date.now()): Promise<void> {
   await assertWithinLimit(trx, teamId, kind, { adding: amount, now });
-  const month = usageMonth(now);
+  await recordUse(trx, teamId, kind, usageMonth(now), amount);
+}
+
+async function recordUse(trx: Db, teamId: number, kind: MonthlyKind, month: string, amount: number): Promise<void> {
   await trx('plan_usage')
     .insert({ team_id: teamId, kind, month, used: amount })
     .onConflict(['team_id', 'kind', 'month'])
     .merge({ used: trx.raw('plan_usage.used + ?', [amount]) });
+}
+
+/**
+ * Holds `amount` of a monthly allowance for a job about to be accepted, refused with plan_limit when it would not
+ * fit beside what is used and held already. The check and the hold are one transaction, so jobs started together
+ * cannot each pass on the same room. Tie the hold to its job with attachReservation.
+ */
+export async function reserveAllowance(db: Db, teamId: number, kind: MonthlyKind, amount: number, now: number): Promise<number> {
+  return db.transaction(async (trx) => {
+    await assertWithinLimit(trx, teamId, kind, { adding: amount, now });
+    const [id] = await trx('allowance_reservations').insert({ team_id: teamId, kind, month: usageMonth(now), amount, created_at: now });
+    return id as number;
+  });
+}
+
+/**
+ * The hold now belongs to this job: it counts while the job is queued or running, and not after it failed or was
+ * cancelled. A job quick enough to have finished already is settled here instead of in its own commit.
+ */
+export async function attachReservation(db: Db, reservationId: number, jobId: number): Promise<void> {
+  await db.transaction(async (trx) => {
+    await trx('allowance_reservations').where({ id: reservationId }).update({ job_id: jobId });
+    const job = await trx('jobs').where({ id: jobId }).first('status', 'result', 'finished_at');
+    if (job?.status !== 'done') return;
+    const tried = Number((JSON.parse(job.result ?? 'null') as { candidatesTried?: number } | null)?.candidatesTried ?? 0);
+    await settleReservation(trx, jobId, tried, Number(job.finished_at));
+  });
+}
+
+/** For an accept that did not go through: gives the whole hold back and passes the error on. */
+export function releaseReservation(db: Db, reservationId: number) {
+  return async (err: unknown): Promise<never> => {
+    await db('allowance_reservations').where({ id: reservationId }).whereNull('settled_at').delete();
+    throw err;
+  };
+}
+
+/**
+ * A finished job's hold becomes recorded use of what it actually ran, in the month it was accepted in; the rest
+ * is refunded. Call it in the transaction that marks the job done.
+ */
+export async function settleReservation(trx: Db, jobId: number, used: number, now: number): Promise<void> {
+  const held = await trx('allowance_reservations').where({ job_id: jobId }).whereNull('settled_at').first();
+  if (!held) return;
+  const charged = Math.max(0, Math.min(used, Number(held.amount)));
+  await trx('allowance_reservations').where({ id: held.id }).update({ settled_at: now, used: charged });
+  await recordUse(trx, held.team_id, held.kind as MonthlyKind, held.month, charged);
+}
+
+/**
+ * Room for one more seat, checked inside the transaction that sends an invite (open invites hold a seat each,
+ * apart from one to the same address, which the new invite replaces) or accepts one (only members count then).
+ */
+export async function assertSeatFree(trx: Db, teamId: number, options: { now: number; inviting?: string }): Promise<void> {
+  const members = await usedOf(trx, teamId, 'seats');
+  let invites = 0;
+  if (options.inviting !== undefined) {
+    const row = await trx('invites')
+      .where({ team_id: teamId })
+      .whereNull('accepted_at')
+      .whereNull('revoked_at')
+      .where('expires_at', '>', options.now)
+      .whereNot({ email: options.inviting })
+      .count<{ n: number }[]>({ n: '*' })
+      .first();
+    invites = Number(row?.n ?? 0);
+  }
+  const heldAs = invites ? `${members} ${members === 1 ? 'member' : 'members'} and ${invites} open ${invites === 1 ? 'invite' : 'invites'}` : undefined;
+  await assertWithinLimit(trx, teamId, 'seats', { alsoHeld: invites, heldAs });
 }
 
 /** The ids of the team's items beyond its plan's limit (the newest ones): read-only until the team is back under it. */
@@ -127,11 +228,11 @@ export async function usageOf(db: Db, teamId: number, now: number): Promise<Usag
   );
 }
 
-function planLimitError(check: LimitCheck, adding: number): HttpError {
+function planLimitError(check: LimitCheck, adding: number, heldAs?: string): HttpError {
   const plan = planById(check.plan);
   const noun = LIMIT_NOUNS[check.kind].noun;
   const upgrade = check.upgradeTo ? planById(check.upgradeTo) : null;
-  const where = `The ${plan.name} plan allows ${check.limit} ${noun} and the team has used ${check.used}`;
+  const where = `The ${plan.name} plan allows ${check.limit} ${noun} and the team has used ${check.used}${heldAs ? ` (${heldAs})` : ''}`;
   const ask = adding === 1 ? '' : ` (this needs ${adding} more)`;
   const next = upgrade
     ? ` Upgrade to ${upgrade.name} (${upgrade.limits[check.kind]} ${noun}) under Team → Billing to go on.`

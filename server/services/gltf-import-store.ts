@@ -8,6 +8,7 @@ import type { SkeletonJoint } from '../../engine/rig/types';
 import { importGltf, type UploadedFile } from './gltf-import';
 import { placeCharacterFile, removeCharacterFile, sha256Hex } from './character-files';
 import { faultPoint } from './gltf-import-faults';
+import { assertWithinLimit } from './billing-limits';
 
 export interface StoreDeps {
   db: Db;
@@ -140,6 +141,7 @@ export async function storeCharacterUpload(
     let id: number;
     try {
       id = await deps.db.transaction(async (trx) => {
+        await assertWithinLimit(trx, input.teamId, 'characters');
         const [newId] = await trx('characters').insert({
           team_id: input.teamId,
           name: input.name?.trim() || defaultName(imported.fileName),

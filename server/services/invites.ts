@@ -7,6 +7,7 @@ import { HttpError, notFound, parseWith } from '../errors';
 import { audit } from './audit';
 import { hashToken, newLinkToken } from './tokens';
 import { hashPassword, verifyCredentials } from './accounts';
+import { assertSeatFree } from './billing-limits';
 
 /** An invite link works for a week (common practice, no source). */
 export const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
@@ -59,6 +60,7 @@ export async function createInvite(deps: AppDeps, teamId: number, actor: { id: n
   await deps.db.transaction(async (trx) => {
     const alreadyMember = await trx('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.team_id': teamId, 'u.email': input.email }).first();
     if (alreadyMember) throw new HttpError(409, 'already_member', `${input.email} is already in this studio.`, { email: `${input.email} is already in this studio.` });
+    await assertSeatFree(trx, teamId, { now, inviting: input.email });
     // A new invite to the same address replaces the old one, so only the latest link works.
     await trx('invites').where({ team_id: teamId, email: input.email }).whereNull('accepted_at').whereNull('revoked_at').update({ revoked_at: now });
     await trx('invites').insert({ team_id: teamId, email: input.email, role: input.role, token_hash: hash, invited_by: actor.id, created_at: now, expires_at: now + INVITE_TTL_MS });
@@ -134,6 +136,7 @@ export async function acceptInvite(db: Db, token: string, input: AcceptInviteInp
     let userId: number = existing?.id;
     if (!existing) [userId] = await trx('users').insert({ email: row.email, name, password_hash: passwordHash, created_at: now });
     const member = await trx('memberships').where({ team_id: row.team_id, user_id: userId }).first();
+    if (!member) await assertSeatFree(trx, row.team_id, { now });
     if (!member) await trx('memberships').insert({ team_id: row.team_id, user_id: userId, role: row.role, created_at: now });
     await audit(trx, { teamId: row.team_id, actorUserId: userId, action: 'member.joined', subject: row.email, detail: `as ${row.role}`, at: now });
     return { userId, teamId: row.team_id };
