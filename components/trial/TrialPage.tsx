@@ -1,10 +1,13 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useMemo, useRef, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { decodeCourse } from '../../engine/course/encoding';
 import { decodeSeries } from '../../engine/gait/series-encoding';
 import type { TrialDetail } from '../../schemas/trials';
 import { colors, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
+import { useCharacterMesh } from '../../hooks/useCharacterMesh';
+import { useWalkReplay } from '../viewer/useWalkReplay';
+import type { StageFocus } from '../viewer/WalkStage';
 import { Screen } from '../layout/Screen';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
@@ -29,8 +32,36 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
   }, [duration]);
   const setupLabel = trial.legSetupVersion ? `leg setup v${trial.legSetupVersion}` : 'an unsaved leg setup';
 
+  const replayState = useWalkReplay(detail.rig, detail.setup, course, series);
+  const mesh = useCharacterMesh(trial.characterId);
+  const [focus, setFocus] = useState<StageFocus | null>(null);
+  const focusSeq = useRef(0);
+  const replay = replayState.state === 'ready' ? replayState.replay : null;
+  const replayNote = replayState.state === 'failed' ? replayState.reason : replayState.state === 'running' ? 'Replaying the walk to pose the character…' : null;
+  const meshNote = mesh.isError ? `${mesh.error.message} The walk is drawn as a skeleton.` : null;
+  const caption = useMemo(
+    () => ({ lines: [characterName, trial.courseName, setupLabel.replace(/^l/, 'L'), `Footing score ${trial.footingScore.toFixed(1)} on this course`] }),
+    [characterName, trial.courseName, setupLabel, trial.footingScore],
+  );
+
   const playback = course ? (
-    <TrialPlayback series={series} course={course} rig={detail.rig} time={time} onTime={setTime} height={wide ? 380 : 260} />
+    <TrialPlayback
+      series={series}
+      course={course}
+      rig={detail.rig}
+      time={time}
+      onTime={setTime}
+      height={wide ? 420 : 300}
+      replay={replay}
+      replayNote={replayNote}
+      mesh={mesh.data ?? null}
+      meshNote={meshNote}
+      events={trial.metrics.events}
+      focus={focus}
+      wide={wide}
+      caption={caption}
+      clipName={`${characterName} on ${trial.courseName}`}
+    />
   ) : (
     <Notice tone="info" message="The course of this trial was deleted; its figures and plots remain." />
   );
@@ -42,7 +73,17 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
           {playback}
           <Card>
             <SectionHeading>Stumbles</SectionHeading>
-            <StumbleTimeline events={trial.metrics.events} duration={duration} time={time} onSeek={setTime} legNames={trial.legNames} />
+            <StumbleTimeline
+              events={trial.metrics.events}
+              duration={duration}
+              time={time}
+              onSeek={setTime}
+              onStumble={(e) => {
+                setTime(e.time);
+                setFocus({ walker: 'trial', leg: e.leg, time: e.time, seq: ++focusSeq.current });
+              }}
+              legNames={trial.legNames}
+            />
           </Card>
         </View>
         <View style={[styles.col, wide && styles.side]}>

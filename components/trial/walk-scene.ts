@@ -68,30 +68,48 @@ function courseMesh(hf: Heightfield): THREE.Mesh {
   return new THREE.Mesh(g, new THREE.MeshLambertMaterial({ vertexColors: true, side: THREE.DoubleSide }));
 }
 
-export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): WalkScene {
+/** Lights and the course: what every walk scene starts from. */
+export function createCourseScene(course: Heightfield): THREE.Scene {
   const scene = new THREE.Scene();
   scene.add(new THREE.HemisphereLight(colors.paper, colors.graphite, 2.2));
   const sun = new THREE.DirectionalLight('#ffffff', 1.4);
   sun.position.set(3, 6, 2);
   scene.add(sun);
   scene.add(courseMesh(course));
-  const h = Math.max(rig.hipHeight, 0.2);
-  const camera = new THREE.PerspectiveCamera(40, aspect, 0.01, 500);
+  return scene;
+}
 
+/** The stick figure of a rig: body box and leg lines (the "skeleton"), feet and target rings. */
+export interface StickFigure {
+  /** Body box, leg lines and feet: hidden when the character's own mesh is shown. */
+  skeleton: THREE.Group;
+  /** Target rings: always shown. */
+  targets: THREE.Group;
+  update(pose: WalkPose): void;
+  dispose(): void;
+}
+
+export function createStickFigure(rig: Rig, tint?: string): StickFigure {
+  const h = Math.max(rig.hipHeight, 0.2);
+  const skeleton = new THREE.Group();
+  skeleton.name = 'skeleton';
+  const targets = new THREE.Group();
+  targets.name = 'targets';
   let width = 0;
   let length = 0;
   for (const l of rig.legs) {
     width = Math.max(width, Math.abs(l.hip[0]) * 2);
     length = Math.max(length, Math.abs(l.hip[2]) * 2);
   }
-  const body = new THREE.Mesh(new THREE.BoxGeometry(Math.max(width, 0.1 * h), 0.25 * h, Math.max(length, 0.25 * h)), new THREE.MeshLambertMaterial({ color: colors.ember }));
-  scene.add(body);
+  const body = new THREE.Mesh(new THREE.BoxGeometry(Math.max(width, 0.1 * h), 0.25 * h, Math.max(length, 0.25 * h)), new THREE.MeshLambertMaterial({ color: tint ?? colors.ember }));
+  skeleton.add(body);
   const legMaterial = new THREE.LineBasicMaterial({ color: colors.ink });
   const stanceMaterial = new THREE.MeshLambertMaterial({ color: colors.ink });
   const swingMaterial = new THREE.MeshLambertMaterial({ color: colors.paper, emissive: new THREE.Color(colors.graphite) });
   const footGeometry = new THREE.SphereGeometry(0.035 * h + 0.01, 12, 8);
   const ringGeometry = new THREE.TorusGeometry(0.05 * h + 0.012, 0.006, 6, 20);
   const ringMaterial = new THREE.MeshBasicMaterial({ color: colors.moss });
+  const materials: THREE.Material[] = [body.material, legMaterial, stanceMaterial, swingMaterial, ringMaterial];
   const legs = rig.legs.map((leg) => {
     // Hip, every joint after it, the foot: the buffer is sized once and drawn up to what this frame fills.
     const positions = new Float32Array(3 * (leg.chain.joints.length + 2));
@@ -105,7 +123,8 @@ export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): 
     const foot = new THREE.Mesh(footGeometry, stanceMaterial);
     const target = new THREE.Mesh(ringGeometry, ringMaterial);
     target.rotation.x = Math.PI / 2;
-    scene.add(line, foot, target);
+    skeleton.add(line, foot);
+    targets.add(target);
     return { line, attribute, positions, foot, target };
   });
   const rot = new THREE.Quaternion();
@@ -113,8 +132,8 @@ export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): 
   const v = new THREE.Vector3();
 
   return {
-    scene,
-    camera,
+    skeleton,
+    targets,
     update(p) {
       // Pitch is nose up (a rotation about −X when +Z is forward), roll is left side up (about +Z).
       euler.set(-p.pitch, 0, p.roll, 'YXZ');
@@ -145,14 +164,32 @@ export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): 
         parts.foot.material = p.contact[i] ? stanceMaterial : swingMaterial;
         parts.target.position.set(p.targets[3 * i], p.targets[3 * i + 1] + 0.003, p.targets[3 * i + 2]);
       });
+    },
+    dispose() {
+      for (const g of [skeleton, targets]) g.traverse((o) => (o as THREE.Mesh).geometry?.dispose?.());
+      for (const m of materials) m.dispose();
+    },
+  };
+}
+
+/** One walker over a course with a follow camera: the live preview's scene. */
+export function createWalkScene(course: Heightfield, rig: Rig, aspect: number): WalkScene {
+  const scene = createCourseScene(course);
+  const camera = new THREE.PerspectiveCamera(40, aspect, 0.01, 500);
+  const figure = createStickFigure(rig);
+  scene.add(figure.skeleton, figure.targets);
+  const h = Math.max(rig.hipHeight, 0.2);
+  return {
+    scene,
+    camera,
+    update(p) {
+      figure.update(p);
       camera.position.set(p.body[0] + 3.2 * h + 0.6, p.body[1] + 1.4 * h + 0.2, p.body[2] - 1.6 * h - 0.3);
       camera.lookAt(p.body[0], p.body[1] - 0.5 * h, p.body[2] + 0.3 * h);
     },
     dispose() {
-      scene.traverse((o) => {
-        const m = o as THREE.Mesh;
-        m.geometry?.dispose?.();
-      });
+      figure.dispose();
+      scene.traverse((o) => (o as THREE.Mesh).geometry?.dispose?.());
     },
   };
 }

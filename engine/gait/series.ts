@@ -27,6 +27,11 @@ export interface TrialSeries {
   bodyRoll: Float32Array;
   /** One per sample: body position along the walk, m. */
   bodyZ: Float32Array;
+  /** Solved joint angles (engine/gait/joint-angles.ts): DOF values per sample over all legs, int16 steps; 0 and empty when not recorded. */
+  jointDofs: number;
+  jointAngles: Int16Array;
+  /** 7 per sample with the joint angles: body position and rotation quaternion. */
+  bodyFrame: Float32Array;
 }
 
 export function createSeries(legs: number, capacity: number, rate: number): TrialSeries {
@@ -44,6 +49,9 @@ export function createSeries(legs: number, capacity: number, rate: number): Tria
     bodyPitch: new Float32Array(capacity),
     bodyRoll: new Float32Array(capacity),
     bodyZ: new Float32Array(capacity),
+    jointDofs: 0,
+    jointAngles: new Int16Array(0),
+    bodyFrame: new Float32Array(0),
   };
 }
 
@@ -65,5 +73,8 @@ export function trimSeries(s: TrialSeries): TrialSeries {
     bodyPitch: s.bodyPitch.slice(0, n),
     bodyRoll: s.bodyRoll.slice(0, n),
     bodyZ: s.bodyZ.slice(0, n),
+    jointDofs: s.jointDofs,
+    jointAngles: s.jointAngles.slice(0, n * s.jointDofs),
+    bodyFrame: s.bodyFrame.slice(0, s.jointDofs ? n * 7 : 0),
   };
 }

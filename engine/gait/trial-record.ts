@@ -3,6 +3,7 @@ import * as sample from '../course/sample';
 import { footingScore } from '../metrics/footing-score';
 import { STUMBLE_KINDS, type StumbleKind } from '../metrics/stumble-thresholds';
 import type { TrialMetrics } from '../metrics/trial-metrics';
+import { recordJointAngles } from './joint-angles';
 import { trimSeries } from './series';
 import type { Trial, TrialResult } from './trial-state';
 
@@ -64,6 +65,7 @@ function record(t: Trial, time: number): void {
   s.bodyPitch[k] = t.pitch.value;
   s.bodyRoll[k] = t.roll.value;
   s.bodyZ[k] = t.bodyPos[2];
+  recordJointAngles(s, k, t.solvers, t.bodyPos, t.bodyRot);
   s.length = k + 1;
 }
 

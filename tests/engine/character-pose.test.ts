@@ -1,7 +1,8 @@
 /**
  * The character's own mesh posed from a trial: each demo character's .glb, loaded by three's GLTFLoader,
  * posed by components/viewer/character-pose.ts from a browser-side replay of the trial
- * (components/viewer/walk-replay.ts). Three.js is the outside reference: the world position of every leg's end
+ * (components/viewer/walk-replay.ts: forward kinematics of the joint angles the trial recorded, quantized, after
+ * a round trip through the stored encoding; and, for trials stored without them, the trial loop run again). Three.js is the outside reference: the world position of every leg's end
  * joint, composed by three's Object3D world matrices (glTF 2.0 §3.5.3: world = parent · local) and the
  * skinned mesh's bone matrices (boneMatrix = world · inverse bind, glTF 2.0 §3.7.3.3), must equal the foot
  * position the trial recorded within 1 mm. Feet are on a stairs course so knees, hips and ankles all bend.
@@ -19,7 +20,8 @@ import { mappingOf } from '../../server/services/gltf-import-store';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { DEMO_DESIGNS } from '../../seeds/characters';
 import { bindCharacter } from '../../components/viewer/character-pose';
-import { REPLAY_TOLERANCE, replayTrial } from '../../components/viewer/walk-replay';
+import { REPLAY_TOLERANCE, replayFromRecord, replayTrial } from '../../components/viewer/walk-replay';
+import { decodeSeries, encodeSeries } from '../../engine/gait/series-encoding';
 
 interface Demo {
   name: string;
@@ -45,13 +47,16 @@ async function loadScene(glb: Uint8Array): Promise<THREE.Group> {
 }
 
 describe('the character mesh posed from a trial replay', () => {
-  it.each(DEMO_DESIGNS.map((d) => d.name))('puts every end joint of %s on the recorded foot within 1 mm', async (name) => {
+  it.each(DEMO_DESIGNS.flatMap((d) => [[d.name, 'recorded joint angles'] as const, [d.name, 'the trial loop run again'] as const]))('puts every end joint of %s on the recorded foot within 1 mm (from %s)', async (name, source) => {
     const demo = demos.find((d) => d.name === name)!;
     const course = codeStairsCourse(5, 'up', { leadIn: 2.5, leadOut: 2.5, cellSize: 0.04 });
     const setup = defaultLegSetup(demo.rig);
     const result = runTrial(demo.rig, setup, course, { duration: TRIAL_SECONDS });
-    const series = result.series;
-    const replay = replayTrial(demo.rig, setup, course, series);
+    // What the browser gets: the series after its stored encoding.
+    const series = decodeSeries(JSON.parse(JSON.stringify(encodeSeries(result.series))));
+    expect(series.jointDofs).toBeGreaterThan(0);
+    const replay = source === 'recorded joint angles' ? replayFromRecord(demo.rig, series)! : replayTrial(demo.rig, setup, course, series);
+    expect(replay).not.toBeNull();
     expect(replay.length).toBe(series.length);
     expect(replay.footDeviation).toBeLessThan(REPLAY_TOLERANCE);
 
@@ -100,5 +105,19 @@ describe('the character mesh posed from a trial replay', () => {
     const bound = bindCharacter(new THREE.Group(), demo.rig, [0]);
     expect(bound.ok).toBe(false);
     if (!bound.ok) expect(bound.reason).toMatch(/no skinned mesh/);
+  });
+
+  it('reads series stored before joint angles were recorded, and replays them with the trial loop instead', () => {
+    const demo = demos[0];
+    const course = codeStairsCourse(5, 'up', { leadIn: 2.5, leadOut: 2.5, cellSize: 0.04 });
+    const setup = defaultLegSetup(demo.rig);
+    const encoded = encodeSeries(runTrial(demo.rig, setup, course, { duration: 3 }).series);
+    const { jointDofs: _dofs, ...older } = encoded;
+    const { jointAngles: _a, bodyFrame: _b, ...olderFields } = older.fields;
+    const series = decodeSeries({ ...older, fields: olderFields });
+    expect(series.jointDofs).toBe(0);
+    expect(replayFromRecord(demo.rig, series)).toBeNull();
+    // A field of the wrong size is refused by name.
+    expect(() => decodeSeries({ ...encoded, fields: { ...encoded.fields, jointAngles: 'AAAA' } })).toThrow(/jointAngles must hold/);
   });
 });
