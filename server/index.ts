@@ -6,7 +6,7 @@ import { openDatabase, migrateToLatest, type Db } from './db';
 import { packageVersion, readConfig, type ServerConfig } from './config';
 import type { Mailer } from './services/mail';
 import { startLocalPayments, type LocalPayments } from './fakes/payments/connect';
-import { createJobRunner } from './jobs';
+import { openJobRunner } from './jobs';
 import { removeIncomingFiles } from './services/character-files';
 
 export interface RunningServer {
@@ -33,7 +33,8 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
   await removeIncomingFiles(config.dataDir); // temporary files of uploads a crash interrupted
   const payments = parts.payments ?? (await startLocalPayments());
   // Before serving: jobs a crash left running are marked failed, queued ones start again.
-  const jobs = createJobRunner({ db, clock: systemClock });
+  // REDIS_URL: tasks go to `npm run worker` processes over BullMQ; otherwise to threads in this process.
+  const jobs = await openJobRunner({ db, clock: systemClock, redisUrl: process.env.REDIS_URL });
   await jobs.start();
   let listenUrl = '';
   const app = createApp({

@@ -2,6 +2,7 @@ import { readConfig } from './config';
 import { openDatabase, migrateToLatest } from './db';
 import { ensureWebBuild } from './web-build';
 import { startServer } from './index';
+import { assertRedisReachable, shownUrl } from './jobs/redis';
 import { smtpMailer } from './services/mail';
 import { startMailCatcher } from './fakes/mail-catcher';
 import { startLocalPayments } from './fakes/payments/connect';
@@ -10,6 +11,15 @@ import { databaseIsEmpty, seedDemoStudio, DEMO_PASSWORD, DEMO_USERS } from '../s
 /** `npm start`: migrate, seed an empty database with the demo studio, export the web app if stale, listen. */
 async function main() {
   const config = readConfig();
+  if (process.env.REDIS_URL) {
+    // With a queue configured but unreachable, say so in one line and stop before anything starts.
+    try {
+      await assertRedisReachable(process.env.REDIS_URL);
+    } catch (err) {
+      console.error((err as Error).message);
+      process.exit(1);
+    }
+  }
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   if (await databaseIsEmpty(db)) {
@@ -31,6 +41,7 @@ async function main() {
   const payments = await startLocalPayments({ port: Number(process.env.PAYMENTS_PORT ?? 0) });
   const running = await startServer(config, { mailer, localInboxUrl, payments, logRequests: process.env.LOG_REQUESTS === '1' });
   console.log(`\nTreadle is running at ${running.url}\n`);
+  if (process.env.REDIS_URL) console.log(`Trials and dial-ins are queued on Redis at ${shownUrl(process.env.REDIS_URL)}: start \`npm run worker\` on each machine that should run them.`);
   console.log(`Payments (local test stand-in, no real money moves): ${payments.fake.url}`);
   if (localInboxUrl) console.log(`Local inbox (mail Treadle sends, kept on this machine): ${localInboxUrl}`);
   console.log(`Demo sign-ins (demo only, password "${DEMO_PASSWORD}"):`);
