@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { Me } from '../schemas/auth';
 import type { CourseCreateInput, CourseDetail, CourseList, CourseUpdate, SuiteCreate, SuiteList, SuiteResponse, SuiteUpdate } from '../schemas/courses';
+import type { StarterCoursesResponse } from '../schemas/starter-courses';
 import { api, ApiError } from './api';
 
 export const coursesKey = ['courses'] as const;
@@ -69,3 +70,15 @@ export const useCreateSuite = () => useSuiteChange((body: SuiteCreate) => api<Su
 export const useUpdateSuite = () =>
   useSuiteChange(({ id, ...body }: SuiteUpdate & { id: number }) => api<SuiteResponse>(`/suites/${id}`, { method: 'PUT', body }));
 export const useDeleteSuite = () => useSuiteChange((id: number) => api(`/suites/${id}`, { method: 'DELETE' }));
+
+/** One tap: the starter courses and suite the studio is missing (server/services/starter-courses.ts). */
+export function useAddStarterCourses() {
+  const client = useQueryClient();
+  return useMutation<StarterCoursesResponse, ApiError, void>({
+    mutationFn: () => api<StarterCoursesResponse>('/courses/starter', { method: 'POST', body: {} }),
+    onSuccess: async () => {
+      await client.invalidateQueries({ queryKey: coursesKey });
+      await client.invalidateQueries({ queryKey: suitesKey });
+    },
+  });
+}

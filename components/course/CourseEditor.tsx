@@ -9,8 +9,10 @@ import { useIsWide } from '../../hooks/useLayout';
 import { colors, space, type } from '../../constants/theme';
 import { Screen } from '../layout/Screen';
 import { Button } from '../ui/Button';
+import { ChoiceChips } from '../ui/ChoiceChips';
 import { Notice } from '../ui/Notice';
 import { BrushBar, type BrushSettings } from './BrushBar';
+import { ChoiceRow } from './ChoiceRow';
 import { ConflictPanel } from './ConflictPanel';
 import { CourseDetails } from './CourseDetails';
 import { HeightMap } from './HeightMap';
@@ -48,6 +50,8 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   const frameRequest = useRef<number | null>(null);
   const [range, setRange] = useState(() => rangeOf(hf));
   const [brush, setBrush] = useState<BrushSettings>({ kind: 'raise', radius: 0.2, strength: 0.5 });
+  // Paint mode: off on a phone so a swipe over the map scrolls; on at a desk, where the mouse paints.
+  const [paint, setPaint] = useState(wide);
   const [baseVersion, setBaseVersion] = useState(detail.course.version);
   const [savedPosition, setSavedPosition] = useState(0);
   const [savedName, setSavedName] = useState(detail.course.name);
@@ -183,11 +187,17 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
       revision={revision}
       lo={range.lo}
       hi={range.hi}
-      brushRadius={mayEdit ? brush.radius : undefined}
-      onStroke={mayEdit ? onStroke : undefined}
-      label={`Height map of ${detail.course.name}${mayEdit ? '; drag to sculpt' : ''}`}
+      brushRadius={mayEdit && paint ? brush.radius : undefined}
+      onStroke={mayEdit && paint ? onStroke : undefined}
+      label={`Height map of ${detail.course.name}${mayEdit && paint ? '; drag to sculpt' : ''}`}
     />
   ) : null;
+  const paintChoices = [
+    { value: 'scroll', label: 'Scroll' },
+    { value: 'paint', label: 'Paint' },
+  ] as const;
+  const paintValue = paint ? 'paint' : 'scroll';
+  const paintSwitch = mayEdit ? <ChoiceChips label="A drag on the map" choices={paintChoices} value={paintValue} onChange={(v) => setPaint(v === 'paint')} /> : null;
   const profile = frame ? <SideProfile hf={hf} frame={frame} revision={revision} depth={profileDepth} /> : null;
   const details = (
     <CourseDetails
@@ -216,7 +226,8 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
           </View>
           <View style={styles.widePanel}>
             {toolbar}
-            {mayEdit ? <BrushBar value={brush} onChange={setBrush} /> : null}
+            {paintSwitch}
+            {mayEdit ? <BrushBar value={brush} onChange={setBrush} disabled={!paint} /> : null}
             {details}
           </View>
         </View>
@@ -224,9 +235,22 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
         <>
           {toolbar}
           {messages}
-          {mayEdit ? <BrushBar value={brush} onChange={setBrush} part="kind" /> : null}
-          {/* The map fits the width and scrolls along the walk inside its own window: drag the profile to move along. */}
-          <Text style={styles.hint}>The walk starts at the bottom of the map. Paint on the map; drag the profile beside it to move along.</Text>
+          {mayEdit ? (
+            // The brush stays in reach: this strip sticks to the top of the page while the map scrolls under it.
+            <View style={styles.tools} testID="sculpt-tools">
+              <ChoiceRow label="Drag to" choices={paintChoices} value={paintValue} onChange={(v) => setPaint(v === 'paint')} />
+              {paint ? <BrushBar value={brush} onChange={setBrush} compact /> : null}
+            </View>
+          ) : null}
+          {mayEdit ? (
+            <Text style={styles.hint}>
+              {paint
+                ? 'Painting: a drag on the map sculpts; drag the profile beside it to move along. The walk starts at the bottom.'
+                : 'Scrolling: swipes move the page and the map. Choose Paint to sculpt. The walk starts at the bottom.'}
+            </Text>
+          ) : (
+            <Text style={styles.hint}>The walk starts at the bottom of the map.</Text>
+          )}
           <View onLayout={(e) => setAreaWidth(Math.floor(e.nativeEvent.layout.width))}>
             {frame ? (
               <ScrollView
@@ -245,7 +269,6 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
             ) : null}
           </View>
           <RampLegend lo={range.lo} hi={range.hi} />
-          {mayEdit ? <BrushBar value={brush} onChange={setBrush} part="size" /> : null}
           {details}
         </>
       )}
@@ -262,6 +285,8 @@ const styles = StyleSheet.create({
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   status: { ...type.small, color: colors.graphite, flexBasis: '100%' },
   hint: { ...type.small, color: colors.graphite },
+  // position: sticky is a web value react-native-web passes through; the page's scroll view is its container.
+  tools: { position: 'sticky' as 'relative', top: 0, zIndex: 2, gap: 6, paddingVertical: space.sm, backgroundColor: colors.paper, borderBottomWidth: 1, borderColor: colors.rule },
   phoneArea: { flexDirection: 'row', gap: space.md, alignItems: 'flex-start' },
   viewport: { borderRadius: 8, borderWidth: 1, borderColor: colors.rule, backgroundColor: colors.card },
   wideRow: { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' },

@@ -6,8 +6,9 @@ import { sampleColours } from './ramp';
 
 /**
  * The course from above, drawn into a canvas at screen resolution (nearest sample per pixel, so steps stay
- * crisp), with the walking line, a metre tick along it and the brush outline. Painting uses pointer events;
- * touch-action: none keeps a finger drag on the map from scrolling the page.
+ * crisp), with the walking line, a metre tick along it and the brush outline. Painting uses pointer events.
+ * Only while painting (onStroke set) does touch-action: none keep a finger drag from scrolling; otherwise a
+ * swipe on the map scrolls as anywhere else on the page.
  */
 export function HeightMap({ hf, frame, revision, lo, hi, brushRadius, onStroke, label }: HeightMapProps) {
   const canvas = useRef<HTMLCanvasElement>(null);
@@ -108,7 +109,7 @@ export function HeightMap({ hf, frame, revision, lo, hi, brushRadius, onStroke, 
       role="img"
       aria-label={label}
       data-testid="sculpt-canvas"
-      style={{ width: frame.width, height: frame.height, display: 'block', touchAction: 'none', cursor: painting ? 'crosshair' : 'default', borderRadius: 8 }}
+      style={{ width: frame.width, height: frame.height, display: 'block', touchAction: painting ? 'none' : 'pan-x pan-y', cursor: painting ? 'crosshair' : 'default', borderRadius: 8 }}
       onPointerDown={(e) => {
         if (!onStroke || activePointer.current !== null) return;
         e.preventDefault();

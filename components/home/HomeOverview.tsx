@@ -11,6 +11,7 @@ import { EmptyState } from '../ui/EmptyState';
 import { formatMoment } from '../ui/format';
 import { footingTrends, type FootingTrend } from './footing-trend';
 import { ScoreSparkline } from './ScoreSparkline';
+import { NextSteps } from './NextSteps';
 
 function Change({ change }: { change: number | null }) {
   if (change === null) return <Text style={styles.changeFlat}>first trial</Text>;
@@ -68,11 +69,11 @@ export function HomeOverview() {
   const list = characters.data.characters;
   return (
     <Screen title="Home" lede={me.data ? `${me.data.team.name}: how every character's footing is doing (0–100, higher is steadier).` : undefined}>
+      <NextSteps characters={list} hasTrial={(trials.data?.trials.length ?? 0) > 0} />
       {list.length === 0 ? (
         <EmptyState
           heading="No characters walking yet"
           body="Each character you bring will show here with its latest footing score and how it has moved since the last trial."
-          points={['Upload a glTF character under Characters', 'Run it over a course', 'Watch the footing score trend here']}
         />
       ) : (
         <View style={styles.grid}>

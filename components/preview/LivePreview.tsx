@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { StyleSheet, Text, View } from 'react-native';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { decodeCourse } from '../../engine/course/encoding';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
@@ -18,7 +18,7 @@ import { createLiveWalk, type LiveWalk } from './live-walk';
  * setup over a chosen course; a change in the form restarts it at once. The stored trial stays the number
  * of record: these counts are a preview.
  */
-export function LivePreview({ rig, setup, problem }: { rig: Rig; setup: LegSetup | null; problem: string | null }) {
+export function LivePreview({ rig, setup, problem, compact = false }: { rig: Rig; setup: LegSetup | null; problem: string | null; compact?: boolean }) {
   const courses = useCourses();
   const [courseId, setCourseId] = useState<string | undefined>(undefined);
   useEffect(() => {
@@ -45,19 +45,40 @@ export function LivePreview({ rig, setup, problem }: { rig: Rig; setup: LegSetup
     return () => clearInterval(timer);
   }, []);
 
+  const list = courses.data?.courses ?? [];
+  const viewHeight = compact ? 150 : 260;
+  // Compact (the phone's sticky strip): one button steps through the courses instead of a row of chips.
+  const nextCourse = () => {
+    const i = list.findIndex((c) => String(c.id) === courseId);
+    if (list.length) setCourseId(String(list[(i + 1) % list.length].id));
+  };
+  const shownName = list.find((c) => String(c.id) === courseId)?.name;
   return (
-    <View style={styles.wrap} testID="live-preview">
-      <ChoiceChips label="Preview course" choices={(courses.data?.courses ?? []).map((c) => ({ value: String(c.id), label: c.name }))} value={courseId} onChange={setCourseId} />
-      {heightfield && walk ? (
-        <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={() => walkRef.current?.advance(performance.now()) ?? null} height={260} label="Live preview of the walk with the settings in the form" />
+    <View style={[styles.wrap, compact && styles.wrapCompact]} testID="live-preview">
+      {compact ? (
+        <View style={styles.compactHead}>
+          <Text style={styles.compactTitle} numberOfLines={1}>
+            Live preview{shownName ? ` · ${shownName}` : ''}
+          </Text>
+          {list.length > 1 ? (
+            <Pressable onPress={nextCourse} role="button" accessibilityLabel="Preview on the next course" style={styles.nextCourse}>
+              <Text style={styles.nextCourseText}>Next course ›</Text>
+            </Pressable>
+          ) : null}
+        </View>
       ) : (
-        <View style={styles.placeholder}>
+        <ChoiceChips label="Preview course" choices={list.map((c) => ({ value: String(c.id), label: c.name }))} value={courseId} onChange={setCourseId} />
+      )}
+      {heightfield && walk ? (
+        <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={() => walkRef.current?.advance(performance.now()) ?? null} height={viewHeight} label="Live preview of the walk with the settings in the form" />
+      ) : (
+        <View style={[styles.placeholder, { height: viewHeight }]}>
           <Text style={styles.note}>{courses.data && !courses.data.courses.length ? 'Make a course to preview the walk on.' : 'Loading the course…'}</Text>
         </View>
       )}
       {problem ? <Notice tone="info" message={`The preview keeps the last valid settings: ${problem}`} /> : null}
       {error ? <Notice message={error} /> : null}
-      <View style={styles.counts}>
+      <View style={[styles.counts, compact && styles.countsCompact]}>
         {STUMBLE_KINDS.map((k) => (
           <View key={k} style={styles.count}>
             <StumbleGlyph kind={k} />
@@ -67,13 +88,19 @@ export function LivePreview({ rig, setup, problem }: { rig: Rig; setup: LegSetup
           </View>
         ))}
       </View>
-      <Text style={styles.note}>Preview only: run a trial for figures of record.</Text>
+      {compact ? null : <Text style={styles.note}>Preview only: run a trial for figures of record.</Text>}
     </View>
   );
 }
 
 const styles = StyleSheet.create({
   wrap: { gap: space.sm },
+  wrapCompact: { gap: space.xs },
+  compactHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  compactTitle: { ...type.label, color: colors.ink, flexShrink: 1 },
+  nextCourse: { minHeight: 44, paddingHorizontal: space.sm, justifyContent: 'center' },
+  nextCourseText: { ...type.label, color: colors.ember },
+  countsCompact: { gap: space.sm },
   placeholder: { height: 260, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperDeep, borderRadius: 16 },
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   count: { flexDirection: 'row', alignItems: 'center', gap: space.xs },

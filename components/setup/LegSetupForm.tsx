@@ -6,18 +6,29 @@ import { useIsWide } from '../../hooks/useLayout';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { SectionHeading } from '../ui/SectionHeading';
 import { TextField } from '../ui/TextField';
-import { BODY_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, type Draft, type NumberField } from './setup-draft';
-import { LegLimitsEditor } from './LegLimitsEditor';
+import { Notice } from '../ui/Notice';
+import { BODY_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, isJacobianMethod, solverFieldsFor, type Draft, type NumberField } from './setup-draft';
+import { LegLimitsEditor, type LimitLeg } from './LegLimitsEditor';
+import { SOLVER_METHOD_NAMES, SOLVER_METHOD_NOTES, gaitName } from './names';
 
-const choices = (values: readonly string[]) => values.map((v) => ({ value: v, label: v }));
+const METHOD_CHOICES = SOLVER_METHODS.map((m) => ({ value: m, label: SOLVER_METHOD_NAMES[m] }));
+const GAIT_CHOICES = GAIT_PATTERNS.map((g) => ({ value: g, label: gaitName(g) }));
 const YES_NO = [
   { value: 'true', label: 'on' },
   { value: 'false', label: 'off' },
 ];
 
-/** Every engine setting of a leg setup as a field; messages come from the shared LegSetupSchema. */
-export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draft: Draft; errors: Record<string, string>; onChange(path: string, value: string): void; legs: { name: string; joints: string[] }[]; disabled?: boolean }) {
+/**
+ * Every engine setting of a leg setup as a field, those of the chosen solver method only; messages come from
+ * the shared LegSetupSchema. Angles are typed in degrees (the form converts to the setup's radians).
+ */
+export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draft: Draft; errors: Record<string, string>; onChange(path: string, value: string): void; legs: LimitLeg[]; disabled?: boolean }) {
   const wide = useIsWide();
+  const method = draft['solver.method'];
+  const shown = solverFieldsFor(method, draft['solver.footOrientation'] === 'true');
+  const jacobian = isJacobianMethod(method);
+  // A setting the chosen method does not read can still be out of range (from an older version): say which.
+  const hiddenProblems = SOLVER_FIELDS.filter((f) => !shown.includes(f) && errors[f.path]).map((f) => `${f.label}: ${errors[f.path]}`);
   const numbers = (fields: NumberField[]) => (
     <View style={[styles.fields, wide && styles.fieldsWide]}>
       {fields.map((f) => (
@@ -39,19 +50,27 @@ export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draf
   return (
     <View style={styles.wrap}>
       <SectionHeading>Solver</SectionHeading>
-      <ChoiceChips label="Method" choices={choices(SOLVER_METHODS)} value={draft['solver.method']} onChange={(v) => onChange('solver.method', v)} error={errors['solver.method']} disabled={disabled} />
-      {numbers(SOLVER_FIELDS)}
-      <ChoiceChips label="Adaptive damping from" choices={choices(['manipulability', 'error'])} value={draft['solver.adaptiveMode']} onChange={(v) => onChange('solver.adaptiveMode', v)} disabled={disabled} />
-      <ChoiceChips label="Warm start" choices={[{ value: 'previous', label: 'last pose' }, { value: 'extrapolate', label: 'carried on' }]} value={draft['solver.warmStart']} onChange={(v) => onChange('solver.warmStart', v)} disabled={disabled} />
-      <ChoiceChips label="Re-solve joints at their limits" choices={YES_NO} value={draft['solver.resolveSaturated']} onChange={(v) => onChange('solver.resolveSaturated', v)} disabled={disabled} />
+      <ChoiceChips label="Method" choices={METHOD_CHOICES} value={method} onChange={(v) => onChange('solver.method', v)} error={errors['solver.method']} disabled={disabled} />
+      {method in SOLVER_METHOD_NOTES ? <Text style={styles.note}>{SOLVER_METHOD_NOTES[method as keyof typeof SOLVER_METHOD_NOTES]}</Text> : null}
+      {method === 'adaptive' ? (
+        <ChoiceChips label="Adaptive damping from" choices={[{ value: 'manipulability', label: 'nearness to full stretch' }, { value: 'error', label: 'size of the error' }]} value={draft['solver.adaptiveMode']} onChange={(v) => onChange('solver.adaptiveMode', v)} disabled={disabled} />
+      ) : null}
       <ChoiceChips label="Turn the sole to the ground" choices={YES_NO} value={draft['solver.footOrientation']} onChange={(v) => onChange('solver.footOrientation', v)} disabled={disabled} />
-      <ChoiceChips label="Null-space bias" choices={[{ value: 'none', label: 'none' }, { value: 'rest', label: 'toward rest pose' }]} value={draft['solver.nullSpace.kind']} onChange={(v) => onChange('solver.nullSpace.kind', v)} disabled={disabled} />
-      {draft['solver.nullSpace.kind'] === 'rest' ? (
+      <View testID="solver-fields">{numbers(shown)}</View>
+      {hiddenProblems.length ? <Notice message={`Settings another method reads need attention: ${hiddenProblems.join('; ')}`} /> : null}
+      <ChoiceChips label="Warm start" choices={[{ value: 'previous', label: 'last pose' }, { value: 'extrapolate', label: 'carried on' }]} value={draft['solver.warmStart']} onChange={(v) => onChange('solver.warmStart', v)} disabled={disabled} />
+      {jacobian ? (
+        <>
+          <ChoiceChips label="Re-solve joints at their limits" choices={YES_NO} value={draft['solver.resolveSaturated']} onChange={(v) => onChange('solver.resolveSaturated', v)} disabled={disabled} />
+          <ChoiceChips label="Null-space bias" choices={[{ value: 'none', label: 'none' }, { value: 'rest', label: 'toward rest pose' }]} value={draft['solver.nullSpace.kind']} onChange={(v) => onChange('solver.nullSpace.kind', v)} disabled={disabled} />
+        </>
+      ) : null}
+      {jacobian && draft['solver.nullSpace.kind'] === 'rest' ? (
         <TextField label="Null-space gain (0–1)" value={draft['solver.nullSpace.gain']} onChangeText={(v) => onChange('solver.nullSpace.gain', v)} error={errors['solver.nullSpace.gain']} inputMode="decimal" editable={!disabled} />
       ) : null}
 
       <SectionHeading>Gait</SectionHeading>
-      <ChoiceChips label="Pattern" choices={choices(GAIT_PATTERNS)} value={draft['gait.pattern']} onChange={(v) => onChange('gait.pattern', v)} error={errors['gait.pattern']} disabled={disabled} />
+      <ChoiceChips label="Pattern" choices={GAIT_CHOICES} value={draft['gait.pattern']} onChange={(v) => onChange('gait.pattern', v)} error={errors['gait.pattern']} disabled={disabled} />
       <TextField
         label="Phase offsets (touchdown as a share of the cycle, one per leg)"
         hint={`blank = the pattern's; legs in order: ${legs.map((l) => l.name).join(', ')}`}
@@ -68,7 +87,7 @@ export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draf
       {numbers(BODY_FIELDS)}
 
       <SectionHeading>Limits per leg</SectionHeading>
-      <Text style={styles.note}>Joint limits that replace the mapped ones for one leg (radians; metres for sliders).</Text>
+      <Text style={styles.note}>Joint limits that replace the mapped ones for one leg (degrees; metres for sliders).</Text>
       <LegLimitsEditor value={draft.legs} onChange={(v) => onChange('legs', v)} legs={legs} errors={errors} disabled={disabled} />
     </View>
   );

@@ -14,12 +14,15 @@ import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { SectionHeading } from '../ui/SectionHeading';
 import { TextField } from '../ui/TextField';
+import { StarterCourses } from '../course/StarterCourses';
+import { useCourses, useSuites } from '../../hooks/useCourses';
 import { LegSetupForm } from './LegSetupForm';
+import type { LimitLeg } from './LegLimitsEditor';
 import { checkDraft, draftOf, type Draft } from './setup-draft';
 import { VersionList } from './VersionList';
 
 /** The leg setup of one character: the form, the live preview beside it, saved versions, and running a trial. */
-export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean }) {
+export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn, mayEditCourses = false }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean; mayEditCourses?: boolean }) {
   const wide = useIsWide();
   const start = list.versions[0]?.setup ?? list.defaults;
   const [draft, setDraft] = useState<Draft>(() => draftOf(start));
@@ -32,7 +35,11 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
   if (checked.setup) lastValid.current = checked.setup;
   const previewSetup = checked.setup ?? lastValid.current;
   const errors = { ...(checked.errors ?? {}), ...serverErrors };
-  const legs = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => j.name) }));
+  const legs: LimitLeg[] = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => ({ name: j.name, slider: j.kind === 'slider' })) }));
+  const courses = useCourses();
+  const suites = useSuites();
+  const noGround = courses.isSuccess && suites.isSuccess && courses.data.courses.length === 0 && suites.data.suites.length === 0;
+  const preview = (compact: boolean) => <LivePreview rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} compact={compact} />;
 
   const change = (path: string, value: string) => {
     setDraft((d) => ({ ...d, [path]: value }));
@@ -73,19 +80,29 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
       )}
     </Card>
   );
-  const side = (
-    <View style={styles.col}>
-      <Card>
-        <SectionHeading>Live preview</SectionHeading>
-        <LivePreview rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} />
-      </Card>
-      {mayRun ? (
-        <Card>
-          <SectionHeading>Trial of record</SectionHeading>
+  const trialCard = mayRun ? (
+    <Card>
+      <SectionHeading>Trial of record</SectionHeading>
+      {noGround ? (
+        // "Run trial" would sit there disabled; say why and offer the way out instead.
+        <StarterCourses mayEdit={mayEditCourses} reason="“Run trial” needs ground to walk over, and this studio has no course or suite yet." />
+      ) : (
+        <>
           <Text style={styles.note}>Runs the settings in the form (saved or not) on the server.</Text>
           <RunTrialPanel characterId={characterId} legSetup={checked.setup ?? undefined} />
+        </>
+      )}
+    </Card>
+  ) : null;
+  const side = (
+    <View style={styles.col}>
+      {wide ? (
+        <Card>
+          <SectionHeading>Live preview</SectionHeading>
+          {preview(false)}
         </Card>
       ) : null}
+      {trialCard}
       <Card>
         <SectionHeading>Versions</SectionHeading>
         <VersionList versions={list.versions} onPick={(v) => { setDraft(draftOf(v.setup)); setMessage({ tone: 'info', text: `Version ${v.version} is in the form.` }); }} />
@@ -99,10 +116,21 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
   );
   return (
     <Screen title={`${characterName}: leg setup`} lede="Every setting of the legs: the solver, the gait and the body. Changes show in the preview at once.">
-      <View style={[styles.split, wide && styles.splitWide]}>
-        <View style={[styles.col, wide && styles.formCol]}>{wide ? form : side}</View>
-        <View style={[styles.col, wide && styles.sideCol]}>{wide ? side : form}</View>
-      </View>
+      {wide ? (
+        <View style={[styles.split, styles.splitWide]}>
+          <View style={[styles.col, styles.formCol]}>{form}</View>
+          <View style={[styles.col, styles.sideCol]}>{side}</View>
+        </View>
+      ) : (
+        // Phone: a small preview sticks to the top of the page while the form scrolls under it.
+        <View style={styles.col}>
+          <View style={styles.sticky} testID="sticky-preview">
+            {preview(true)}
+          </View>
+          {form}
+          {side}
+        </View>
+      )}
     </Screen>
   );
 }
@@ -117,4 +145,6 @@ const styles = StyleSheet.create({
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   note: { ...type.small, color: colors.graphite },
   link: { ...type.label, color: colors.ember, paddingVertical: space.md },
+  // position: sticky is a web value react-native-web passes through; the page's scroll view is its container.
+  sticky: { position: 'sticky' as 'relative', top: 0, zIndex: 2, backgroundColor: colors.paper, paddingBottom: space.sm, borderBottomWidth: 1, borderColor: colors.rule },
 });

@@ -1,6 +1,7 @@
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { LegSetupVersion } from '../../schemas/leg-setups';
 import { colors, fonts, space, touchTarget, type } from '../../constants/theme';
+import { formatLocalMoment } from './local-dates';
 
 /** Saved versions, newest first; picking one loads it into the form. */
 export function VersionList({ versions, onPick }: { versions: LegSetupVersion[]; onPick(v: LegSetupVersion): void }) {
@@ -15,7 +16,7 @@ export function VersionList({ versions, onPick }: { versions: LegSetupVersion[];
               {v.note || (v.source === 'dial-in' ? 'From a dial-in' : 'Saved from the form')}
             </Text>
             <Text style={styles.meta}>
-              {v.createdBy.name} · {new Date(v.createdAt).toLocaleString()}
+              {v.createdBy.name} · {formatLocalMoment(v.createdAt)}
             </Text>
           </View>
         </Pressable>

@@ -3,6 +3,7 @@
  * that the one LegSetupSchema validates (so the form and the server give the same field messages).
  */
 import { LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
+import type { SolverMethod } from '../../engine/ik/types';
 import { fieldMessages } from '../../schemas/errors';
 
 export interface NumberField {
@@ -12,23 +13,40 @@ export interface NumberField {
   /** Blank means null (the engine's automatic choice). */
   nullable?: string;
   integer?: boolean;
+  /** An angle: typed in degrees, stored in radians (the leg setup's unit). */
+  degrees?: boolean;
+  /** Only these solver methods read it (every method when absent). */
+  methods?: readonly SolverMethod[];
+  /** Read only when the sole is turned to the ground. */
+  orientation?: boolean;
 }
 
+const JACOBIAN: readonly SolverMethod[] = ['dls', 'sdls', 'transpose', 'pseudoinverse', 'adaptive'];
+
+/** Which methods read which setting: engine/ik/solve.ts (methodStep, jacobianIteration, ccdSweep). */
 export const SOLVER_FIELDS: NumberField[] = [
   { path: 'solver.maxIterations', label: 'Iteration budget', integer: true },
   { path: 'solver.tolerance', label: 'Position tolerance', unit: 'm' },
-  { path: 'solver.lambda', label: 'DLS damping λ', unit: 'm' },
-  { path: 'solver.maxStepAngle', label: 'Largest joint change per iteration', unit: 'rad' },
+  { path: 'solver.lambda', label: 'DLS damping λ', unit: 'm', methods: ['dls', 'adaptive'] },
+  { path: 'solver.gammaMax', label: 'SDLS largest joint change γmax', unit: '°', degrees: true, methods: ['sdls'] },
+  { path: 'solver.svdThreshold', label: 'Singular values dropped below', methods: ['pseudoinverse'] },
+  { path: 'solver.manipulabilityThreshold', label: 'Manipulability threshold', methods: ['adaptive'] },
+  { path: 'solver.lmBias', label: 'Levenberg–Marquardt bias', methods: ['adaptive'] },
+  { path: 'solver.maxStepAngle', label: 'Largest joint change per iteration', unit: '°', degrees: true },
   { path: 'solver.maxStepLength', label: 'Largest slider change per iteration', unit: 'm' },
-  { path: 'solver.clampDistance', label: 'Task error clamp', unit: 'm', nullable: 'blank = off, 0 = automatic' },
-  { path: 'solver.orientationTolerance', label: 'Orientation tolerance', unit: 'rad' },
-  { path: 'solver.orientationWeight', label: 'Orientation weight', unit: 'm/rad' },
-  { path: 'solver.svdThreshold', label: 'SVD threshold' },
-  { path: 'solver.gammaMax', label: 'SDLS largest joint change γmax', unit: 'rad' },
-  { path: 'solver.manipulabilityThreshold', label: 'Manipulability threshold (adaptive)' },
-  { path: 'solver.lmBias', label: 'Levenberg–Marquardt bias (adaptive)' },
-  { path: 'solver.minStep', label: 'Smallest useful step', unit: 'rad' },
+  { path: 'solver.clampDistance', label: 'Task error clamp', unit: 'm', nullable: 'blank = off, 0 = automatic', methods: JACOBIAN },
+  { path: 'solver.orientationTolerance', label: 'Orientation tolerance', unit: '°', degrees: true, orientation: true },
+  { path: 'solver.orientationWeight', label: 'Orientation weight', unit: 'm/rad', orientation: true },
+  { path: 'solver.minStep', label: 'Smallest useful step', unit: '°', degrees: true },
 ];
+
+/** The fields the chosen method reads (and the orientation ones only when the sole is turned). */
+export function solverFieldsFor(method: string, orientation: boolean): NumberField[] {
+  return SOLVER_FIELDS.filter((f) => (!f.methods || f.methods.includes(method as SolverMethod)) && (!f.orientation || orientation));
+}
+
+/** Whether the chosen method reads the Jacobian-only switches (null-space bias, re-solve at limits). */
+export const isJacobianMethod = (method: string) => JACOBIAN.includes(method as SolverMethod);
 
 export const GAIT_FIELDS: NumberField[] = [
   { path: 'gait.dutyFactor', label: 'Duty factor (share of the cycle in stance)' },
@@ -59,12 +77,31 @@ function put(o: Record<string, unknown>, path: string, value: unknown) {
   at[keys[keys.length - 1]] = value;
 }
 
-/** Shown to 6 significant digits (engine defaults such as a speed from the Froude number carry 16). */
-const numberText = (v: unknown) => (v === null || v === undefined ? '' : typeof v === 'number' ? String(parseFloat(v.toPrecision(6))) : String(v));
+export const DEG_PER_RAD = 180 / Math.PI;
+
+/**
+ * Shown rounded to 3 significant digits (integers whole) (engine defaults such as a speed from the Froude number carry 16).
+ * The exact value is kept beside it under "exact:<path>", and used again while the field still shows its
+ * rounding, so loading a version and saving it unchanged does not move it.
+ */
+export const roundedText = (v: number) => (Number.isInteger(v) ? String(v) : String(parseFloat(v.toPrecision(3))));
+
+function setNumber(d: Draft, path: string, v: unknown, scale = 1) {
+  if (v === null || v === undefined) {
+    d[path] = '';
+    return;
+  }
+  if (typeof v !== 'number') {
+    d[path] = String(v);
+    return;
+  }
+  d[path] = roundedText(v * scale);
+  d[`exact:${path}`] = String(v);
+}
 
 export function draftOf(s: LegSetup): Draft {
   const d: Draft = {};
-  for (const f of ALL_NUMBERS) d[f.path] = numberText(get(s, f.path));
+  for (const f of ALL_NUMBERS) setNumber(d, f.path, get(s, f.path), f.degrees ? DEG_PER_RAD : 1);
   d['solver.method'] = s.solver.method;
   d['solver.adaptiveMode'] = s.solver.adaptiveMode;
   d['solver.warmStart'] = s.solver.warmStart;
@@ -75,17 +112,24 @@ export function draftOf(s: LegSetup): Draft {
   d['gait.pattern'] = s.gait.pattern;
   d['gait.phaseOffsets'] = s.gait.phaseOffsets ? s.gait.phaseOffsets.join(', ') : '';
   d['gait.timing.mode'] = s.gait.timing.mode;
-  d['gait.timing.value'] = numberText(s.gait.timing.mode === 'speed' ? s.gait.timing.speed : s.gait.timing.cycleTime);
+  setNumber(d, 'gait.timing.value', s.gait.timing.mode === 'speed' ? s.gait.timing.speed : s.gait.timing.cycleTime);
   d.legs = JSON.stringify(s.legs);
   return d;
 }
 
 const toNumber = (t: string) => (t.trim() === '' ? NaN : Number(t.trim()));
 
+/** The stored number: the exact one it was loaded with while the field still shows that rounding, else what was typed (over `scale`). */
+function numberOf(d: Draft, path: string, scale = 1): number {
+  const exact = d[`exact:${path}`];
+  if (exact !== undefined && d[path] === roundedText(Number(exact) * scale)) return Number(exact);
+  return toNumber(d[path]) / scale;
+}
+
 /** The setup the draft describes (not yet validated). */
 export function candidateOf(d: Draft): unknown {
   const o: Record<string, unknown> = { version: 1 };
-  for (const f of ALL_NUMBERS) put(o, f.path, f.nullable && d[f.path].trim() === '' ? null : toNumber(d[f.path]));
+  for (const f of ALL_NUMBERS) put(o, f.path, f.nullable && d[f.path].trim() === '' ? null : numberOf(d, f.path, f.degrees ? DEG_PER_RAD : 1));
   put(o, 'solver.method', d['solver.method']);
   put(o, 'solver.adaptiveMode', d['solver.adaptiveMode']);
   put(o, 'solver.warmStart', d['solver.warmStart']);
@@ -94,7 +138,7 @@ export function candidateOf(d: Draft): unknown {
   put(o, 'solver.nullSpace', d['solver.nullSpace.kind'] === 'rest' ? { kind: 'rest', gain: toNumber(d['solver.nullSpace.gain']) } : { kind: 'none' });
   put(o, 'gait.pattern', d['gait.pattern']);
   put(o, 'gait.phaseOffsets', d['gait.phaseOffsets'].trim() === '' ? null : d['gait.phaseOffsets'].split(',').map(toNumber));
-  const value = toNumber(d['gait.timing.value']);
+  const value = numberOf(d, 'gait.timing.value');
   put(o, 'gait.timing', d['gait.timing.mode'] === 'speed' ? { mode: 'speed', speed: value } : { mode: 'cycle', cycleTime: value });
   try {
     o.legs = JSON.parse(d.legs || '[]');
@@ -109,7 +153,17 @@ export function checkDraft(d: Draft): { setup: LegSetup; errors: null } | { setu
   const r = LegSetupSchema.safeParse(candidateOf(d));
   if (r.success) return { setup: r.data, errors: null };
   const errors = fieldMessages(r.error.issues);
+  for (const f of ALL_NUMBERS) if (f.degrees && errors[f.path]) errors[f.path] = inDegrees(errors[f.path]);
   // Timing errors land on the one value field.
   for (const k of Object.keys(errors)) if (k.startsWith('gait.timing.') && k !== 'gait.timing.value') errors['gait.timing.value'] ??= errors[k];
   return { setup: null, errors };
+}
+
+/** The schema's bounds are radians; a field typed in degrees says them in degrees ("at most 180°"). */
+export function inDegrees(message: string): string {
+  const m = /(<=|>=|<|>)\s*(-?[\d.]+(?:e[-+]?\d+)?)/i.exec(message);
+  if (!m) return message;
+  const deg = roundedText(Number(m[2]) * DEG_PER_RAD);
+  const words: Record<string, string> = { '<=': `Use at most ${deg}°.`, '<': `Use less than ${deg}°.`, '>=': `Use at least ${deg}°.`, '>': `Use more than ${deg}°.` };
+  return words[m[1]];
 }

@@ -43,7 +43,9 @@ async function dragZone(page: Page) {
   await page.getByTestId('sculpt-viewport').evaluate((el) => el.scrollIntoView({ block: 'start' }));
   const box = (await page.getByTestId('sculpt-canvas').boundingBox())!;
   const view = (await page.getByTestId('sculpt-viewport').boundingBox())!;
-  const top = Math.max(box.y, view.y, 70);
+  // The brush strip sticks to the top of the page over whatever scrolls under it.
+  const tools = await page.getByTestId('sculpt-tools').boundingBox();
+  const top = Math.max(box.y, view.y, 70, tools ? tools.y + tools.height + 4 : 0);
   const bottom = Math.min(box.y + box.height, view.y + view.height, PHONE.height - 90);
   expect(bottom - top).toBeGreaterThan(120);
   return { cx: box.x + box.width / 2, top, bottom };
@@ -78,14 +80,37 @@ describe('sculpting a course', () => {
     await page.waitForURL(`**/courses/${before.course.id}`);
     const canvas = page.getByTestId('sculpt-canvas');
     await canvas.waitFor();
+    // Paint mode starts off on a phone: a swipe over the map is for scrolling, and the browser may scroll.
+    expect(await page.getByRole('radio', { name: 'Scroll' }).getAttribute('aria-checked')).toBe('true');
+    expect(await canvas.evaluate((el) => getComputedStyle(el).touchAction)).toBe('pan-x pan-y');
+    await page.getByRole('heading', { name: 'Scrap rubble' }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'course-editor-scroll-mode-phone');
+
+    let { cx, top, bottom } = await dragZone(page);
+    let scrolled = await scrollOffsets(page);
+    // A swipe up (finger from low to high) over the map moves the content; nothing is painted.
+    await touchDrag(page, { x: cx, y: bottom - 10 }, { x: cx, y: top + 10 }, 16);
+    await page.waitForTimeout(300);
+    const afterSwipe = await scrollOffsets(page);
+    expect(afterSwipe).not.toEqual(scrolled);
+    expect(await page.getByRole('status').filter({ hasText: 'Version 1, nothing to save' }).count()).toBe(1);
+
+    // Paint on: the brush controls sit above the map, and a drag sculpts without scrolling.
+    await page.getByRole('radio', { name: 'Paint' }).click();
     expect(await canvas.evaluate((el) => getComputedStyle(el).touchAction)).toBe('none');
     await page.getByRole('radio', { name: 'Raise' }).click();
     await page.getByRole('radio', { name: 'Full' }).click();
+    await page.getByRole('radio', { name: '0.35 m' }).click();
     await page.getByRole('heading', { name: 'Scrap rubble' }).scrollIntoViewIfNeeded();
+    const tools = (await page.getByTestId('brush-bar').boundingBox())!;
+    const map = (await page.getByTestId('sculpt-viewport').boundingBox())!;
+    expect(tools.y + tools.height).toBeLessThanOrEqual(map.y + 1);
+    // Radius and strength are reachable without leaving the map: both on screen with the map's top.
+    expect(map.y).toBeLessThan(PHONE.height);
     await screenshot(page, 'course-editor-phone');
+    ({ cx, top, bottom } = await dragZone(page));
 
-    let { cx, top, bottom } = await dragZone(page);
-    const scrolled = await scrollOffsets(page);
+    scrolled = await scrollOffsets(page);
     const cy = top + (bottom - top) * 0.3;
     await touchDrag(page, { x: cx - 12, y: cy }, { x: cx + 12, y: cy + 30 });
     // The drag sculpted; it did not scroll the page.

@@ -8,6 +8,7 @@ import { LoadingPage } from '../../../components/layout/LoadingPage';
 import { CourseList } from '../../../components/course/CourseList';
 import { GeneratorForm } from '../../../components/course/GeneratorForm';
 import { SuitesSection } from '../../../components/course/SuitesSection';
+import { StarterCourses } from '../../../components/course/StarterCourses';
 import { useMe } from '../../../hooks/useSession';
 import { canEditCourses, canEditSuites, useCourses, useCreateCourse, useCreateSuite, useDeleteSuite, useSuites, useUpdateSuite } from '../../../hooks/useCourses';
 
@@ -42,6 +43,9 @@ export default function CoursesScreen() {
       ) : null}
       {courses.isPending ? <LoadingPage /> : null}
       {courses.isError ? <Notice message={courses.error.message} /> : null}
+      {courses.isSuccess && list.length === 0 && !making ? (
+        <StarterCourses mayEdit={mayEdit} reason="No courses yet. Start with the starter set in one tap, or make your own from a generator." />
+      ) : null}
       {courses.isSuccess && list.length === 0 && !making ? (
         <EmptyState
           heading="No courses yet"

@@ -2,6 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { LoadingPage } from '../../../../components/layout/LoadingPage';
 import { SetupPage } from '../../../../components/setup/SetupPage';
 import { useCharacter } from '../../../../hooks/useCharacters';
+import { canEditCourses } from '../../../../hooks/useCourses';
 import { canDialIn } from '../../../../hooks/useDialIn';
 import { canSaveLegSetups, useLegSetups } from '../../../../hooks/useLegSetups';
 import { useMe } from '../../../../hooks/useSession';
@@ -23,6 +24,7 @@ export default function LegSetupScreen() {
       mayEdit={canSaveLegSetups(me.data)}
       mayRun={canRunTrials(me.data)}
       mayDialIn={canDialIn(me.data)}
+      mayEditCourses={canEditCourses(me.data)}
     />
   );
 }
