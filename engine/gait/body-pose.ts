@@ -6,7 +6,8 @@ import { quat, vec3 } from 'gl-matrix';
 import * as sample from '../course/sample';
 import * as ikWorkspace from '../ik/workspace';
 import * as bodyFilter from './body-filter';
-import { COMFORT_MAX } from './reach';
+import { COMFORT_MAX, STANCE_FOLD_MIN } from './reach';
+import { minimumJerk } from './swing-path';
 import type { Trial } from './trial-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
@@ -38,8 +39,10 @@ export const bodyTargets = new Float64Array(3);
  * those heights along and across the walk; the body crouches on slopes by
  * slopeCrouch. The height is then capped so that every stance leg stays
  * inside its comfortable reach (reach.ts): no leg is driven straight.
+ * `landed`: as if every swinging foot had already landed (the height a new
+ * foothold asks for, which body step-ups are measured against).
  */
-export function computeBodyTargets(t: Trial): void {
+export function computeBodyTargets(t: Trial, landed = false): void {
   const L = t.legs;
   const b = t.setup.body;
   let mh = 0;
@@ -49,9 +52,12 @@ export function computeBodyTargets(t: Trial): void {
     const o = 3 * i;
     const sw = t.swings[i];
     const planted = t.stance[i] === 1;
-    const x = planted ? t.plant[o] : sw.x1;
-    const h = planted ? t.support[i] : sw.y1;
-    const z = planted ? t.plant[o + 2] : sw.z1;
+    // A swinging foot counts more toward where it will land the further its swing has gone.
+    const beta = t.gait.dutyFactor;
+    const w = planted ? 0 : landed ? 1 : minimumJerk((t.phase[i] - beta) / (1 - beta));
+    const x = planted ? t.plant[o] : sw.x0 + (sw.x1 - sw.x0) * w;
+    const h = planted ? t.support[i] : sw.y0 + (sw.y1 - sw.y0) * w;
+    const z = planted ? t.plant[o + 2] : sw.z0 + (sw.z1 - sw.z0) * w;
     footX[i] = x;
     footH[i] = h;
     footZ[i] = z;
@@ -88,13 +94,18 @@ export function computeBodyTargets(t: Trial): void {
   const wanted = ground + t.walkHeight + b.heightOffset - crouch;
   t.heightCap = stanceHeightCap(t, TARGET_CAP);
   const comfortable = stanceHeightCap(t, COMFORT_MAX);
-  bodyTargets[0] = wanted < comfortable ? wanted : comfortable;
+  const floor = stanceHeightFloor(t, STANCE_FOLD_MIN);
+  // Between the floor and the cap; where the two conflict, no leg is driven straight.
+  const lifted = wanted > floor ? wanted : floor;
+  bodyTargets[0] = lifted < comfortable ? lifted : comfortable;
   bodyTargets[1] = pitchRaw * b.followPitch;
   bodyTargets[2] = rollRaw * b.followRoll;
 }
 
 /** The filter may lag behind a falling cap; past this share of reach the body is held down outright. */
 const TARGET_CAP = 0.96;
+/** A stance leg keeps this much more than its fold limit. */
+const FOLD_TO_STANCE = 0.1;
 
 /** Highest body height at which every stance leg's hip is within `share` of its reach from its planted foot. */
 function stanceHeightCap(t: Trial, share: number): number {
@@ -115,6 +126,29 @@ function stanceHeightCap(t: Trial, share: number): number {
     if (top < cap) cap = top;
   }
   return cap;
+}
+
+/** Lowest body height at which every stance leg's hip is at least `share` of its reach from its planted foot. */
+function stanceHeightFloor(t: Trial, share: number): number {
+  let floor = -Infinity;
+  for (let i = 0; i < t.legs; i++) {
+    if (!t.stance[i]) continue;
+    const leg = t.rig.legs[i];
+    hipLocal[0] = leg.hip[0];
+    hipLocal[1] = leg.hip[1];
+    hipLocal[2] = leg.hip[2];
+    transformQuat(hipWorld as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
+    const o = 3 * i;
+    const dx = t.bodyPos[0] + hipWorld[0] - t.plant[o];
+    const dz = t.bodyPos[2] + hipWorld[2] - t.plant[o + 2];
+    const fold = t.foldLimit[i] + FOLD_TO_STANCE;
+    const r = (share > fold ? share : fold) * leg.chain.reach;
+    const h2 = r * r - dx * dx - dz * dz;
+    if (h2 <= 0) continue;
+    const low = t.plant[o + 1] + Math.sqrt(h2) - hipWorld[1];
+    if (low > floor) floor = low;
+  }
+  return floor;
 }
 
 /** One filter step of the body height, pitch and roll toward bodyTargets; the height never passes the stance cap. */

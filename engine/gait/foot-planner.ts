@@ -28,15 +28,16 @@ const terrain = new Float64Array(1);
 const hipLocal = new Float64Array(3);
 const hipOffset = new Float64Array(3);
 
+/** Where the body will be along the walk at `time`, at its present pace. */
 export function bodyZAt(t: Trial, time: number): number {
-  return t.startZ + t.gait.speed * time;
+  return t.bodyPos[2] + t.gait.speed * t.pace.value * (time - t.frame * t.options.timeStep);
 }
 
 /** The nominal touchdown spot of leg i at `time`: ahead of its neutral spot by half the stance travel. */
 export function touchdownPoint(t: Trial, i: number, time: number, out: Float64Array, o: number): void {
   const leg = t.rig.legs[i];
   const x = leg.neutralFoot[0];
-  const zz = bodyZAt(t, time) + leg.neutralFoot[1] + (t.gait.dutyFactor * t.gait.stride) / 2;
+  const zz = bodyZAt(t, time) + leg.neutralFoot[1] + (t.gait.dutyFactor * t.gait.stride * t.pace.value) / 2;
   out[o] = x;
   out[o + 1] = heightAt(t.course, x, zz);
   out[o + 2] = zz;
@@ -76,7 +77,7 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
   const lift = t.walkHeight + t.setup.body.heightOffset + hipOffset[1];
   const hx = t.bodyPos[0] + hipOffset[0];
   const hzDown = bodyZAt(t, landTime) + hipOffset[2];
-  const hzUp = hzDown + t.gait.speed * t.gait.dutyFactor * t.gait.cycleTime;
+  const hzUp = hzDown + t.gait.speed * t.pace.value * t.gait.dutyFactor * t.gait.cycleTime;
   const limit = CANDIDATE_MAX * reach;
   const soleHalf = t.soleHalf[i];
 

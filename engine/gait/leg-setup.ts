@@ -168,6 +168,15 @@ export const DEFAULT_BODY: BodySettings = {
  */
 export const TRIAL_TOLERANCE = 5e-4;
 
+/**
+ * Orientation of a walking sole: a degree and a bit of tilt is invisible
+ * (1.1° over a 10 cm sole is 2 mm), and the orientation rows weigh 3 cm per
+ * radian, so a sole that cannot lie flat (ankle at its limit) is left tilted
+ * rather than bought with a twist of the hip. Common practice, no source.
+ */
+export const TRIAL_ORIENTATION_TOLERANCE = 0.02;
+export const TRIAL_ORIENTATION_WEIGHT = 0.03;
+
 /** Default step height as a fraction of hip height (common practice, no source). */
 export const DEFAULT_STEP_HEIGHT_RATIO = 0.1;
 
@@ -177,11 +186,11 @@ export function defaultSolverSettings(footOrientation: boolean): SolverSettings 
     method: o.method,
     maxIterations: o.maxIterations,
     tolerance: TRIAL_TOLERANCE,
-    orientationTolerance: o.orientationTolerance,
+    orientationTolerance: TRIAL_ORIENTATION_TOLERANCE,
     maxStepAngle: o.maxStepAngle,
     maxStepLength: o.maxStepLength,
     clampDistance: Number.isFinite(o.clampDistance) ? o.clampDistance : null,
-    orientationWeight: o.orientationWeight,
+    orientationWeight: TRIAL_ORIENTATION_WEIGHT,
     lambda: o.lambda,
     svdThreshold: o.svdThreshold,
     gammaMax: o.gammaMax,

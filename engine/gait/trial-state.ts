@@ -34,6 +34,11 @@ export interface Trial {
   readonly totalFrames: number;
   frame: number;
   readonly startZ: number;
+  /** The walk ends when the body reaches this far along it, m. */
+  readonly lastBodyZ: number;
+  /** Share of the gait speed the body walks at now (pace.ts), through its filter. */
+  readonly pace: DampedState;
+  readonly paceFilter: CriticalFilter;
   /** False while createTrial places the feet (before the first solve). */
   started: boolean;
   /** Neutral body height above the footholds (walk-height.ts), m. */
@@ -45,6 +50,10 @@ export interface Trial {
   /** Per leg: the joint speed limit as a largest change per frame, rad; and the scratch pose it is applied in. */
   readonly maxJointStep: Float64Array;
   readonly limitedPose: Float64Array[];
+  /** Share of the way back to rest a lost leg moves per frame. */
+  readonly recoverRate: number;
+  /** Per leg: the tightest fold it reaches, as a share of its reach (reach.ts). */
+  readonly foldLimit: Float64Array;
 
   // Per leg state (index = leg).
   /** Gait phase this frame: 0 at touchdown, dutyFactor at liftoff. */
@@ -81,6 +90,7 @@ export interface Trial {
   readonly height: DampedState;
   readonly pitch: DampedState;
   readonly roll: DampedState;
+  /** Body height the chosen footholds ask for once every swinging foot has landed (step-up windows). */
   heightTarget: number;
   readonly filter: CriticalFilter;
 

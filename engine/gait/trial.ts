@@ -17,7 +17,6 @@
 import type { Heightfield } from '../course/heightfield';
 import { courseLength } from '../course/heightfield';
 import { parseOrThrow } from '../course/parse';
-import * as ikKinematics from '../ik/kinematics';
 import * as ikSolve from '../ik/solve';
 import * as ikWorkspace from '../ik/workspace';
 import type { LegChain } from '../rig/types';
@@ -25,10 +24,12 @@ import { ResponseSummary, ResponseWindow } from '../metrics/response-window';
 import { StumbleDetector } from '../metrics/stumble-detector';
 import * as bodyFilter from './body-filter';
 import { bodyTargets, computeBodyTargets, followBodyTargets, placeHips, updateBodyRotation } from './body-pose';
-import { bodyZAt, plantAt, startSwing, touchdownPoint, updateTargets } from './foot-planner';
+import { plantAt, startSwing, touchdownPoint, updateTargets } from './foot-planner';
+import { PACE_SETTLE_SECONDS, terrainPace } from './pace';
 import { resolveGait } from './gait-params';
 import { checkLegSetupForRig, legSolverSettings, parseLegSetup, solverOptionsOf, type LegSetup } from './leg-setup';
-import { pullInsideReach, TARGET_MAX } from './reach';
+import { aimLeg, limitLegMotion } from './leg-motion';
+import { measureFoldLimit } from './reach';
 import { checkRig, type Rig } from './rig';
 import { neutralWalkHeight } from './walk-height';
 import { createSeries } from './series';
@@ -55,16 +56,12 @@ export * from './trial-options';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { solve } = ikSolve;
-const { createWorkspace, setPose, DOF_BALL, DOF_SLIDE } = ikWorkspace;
-const { forwardKinematics } = ikKinematics;
+const { createWorkspace, resetPose, setRootTransform, DOF_BALL, DOF_SLIDE } = ikWorkspace;
+const ORIGIN = new Float64Array(3);
+const IDENTITY_QUAT = new Float64Array([0, 0, 0, 1]);
+const UP = new Float64Array([0, 1, 0]);
 
-function distance3(a: ArrayLike<number>, b: ArrayLike<number>): number {
-  const dx = a[0] - b[0];
-  const dy = a[1] - b[1];
-  const dz = a[2] - b[2];
-  return Math.sqrt(dx * dx + dy * dy + dz * dz);
-}
-const { createDampedState, createCriticalFilter } = bodyFilter;
+const { createDampedState, createCriticalFilter, stepCritical } = bodyFilter;
 const { createSwingPlan, descentStart } = swingPath;
 const { legPhase, writeLegPhases } = timing;
 
@@ -113,7 +110,8 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
       `course too short: ${courseLength(course).toFixed(2)} m leaves no room to walk from z = ${startZ.toFixed(2)} m with a ${gait.stride.toFixed(2)} m stride`,
     );
   }
-  const totalFrames = Math.floor(Math.min(options.duration, available) / dt + 1e-9);
+  // The walk ends when the body reaches lastBodyZ, or at the duration asked for: slowing on steep ground takes longer.
+  const totalFrames = Math.floor(options.duration / dt + 1e-9);
   const recordRate = Math.min(options.recordRate, 1 / dt);
   const capacity = Math.floor(totalFrames * dt * recordRate + 1e-9) + 2;
   const cycleFrames = Math.ceil(gait.cycleTime / dt) + Math.ceil(TOUCHDOWN_WINDOW_SECONDS / dt) + 4;
@@ -134,10 +132,22 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     soleHalf: Float64Array.from(rig.legs, (l) => soleHalfLength(l.chain)),
     maxJointStep: Float64Array.from(legSolvers, (s) => (s.maxJointSpeed / DEG) * options.timeStep),
     limitedPose: solvers.map((s) => new Float64Array(s.nDof)),
+    // Back to rest over about one swing.
+    recoverRate: Math.min(1, dt / ((1 - gait.dutyFactor) * gait.cycleTime)),
+    foldLimit: Float64Array.from(rig.legs, (l, i) => {
+      const ws = solvers[i];
+      setRootTransform(ws, ORIGIN, IDENTITY_QUAT);
+      resetPose(ws);
+      const up = legSolvers[i].footOrientation ? UP : null;
+      return measureFoldLimit(ws, l.chain.reach, (target) => solve(ws, target, up, { maxIterations: SETTLE_ITERATIONS }).positionError);
+    }),
     orient: Uint8Array.from(legSolvers, (s) => (s.footOrientation ? 1 : 0)),
     totalFrames,
     frame: 0,
     startZ,
+    lastBodyZ,
+    pace: createDampedState(1),
+    paceFilter: createCriticalFilter(PACE_SETTLE_SECONDS, dt),
     phase: new Float64Array(L),
     stance: new Uint8Array(L),
     plant: new Float64Array(3 * L),
@@ -193,11 +203,12 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     plantAt(t, i, landing[0], landing[1], landing[2]);
     if (!inStance) startSwing(t, i, (1 - phase) * T);
   }
+  computeBodyTargets(t, true);
+  t.heightTarget = bodyTargets[0];
   computeBodyTargets(t);
   t.height.value = bodyTargets[0];
   t.pitch.value = bodyTargets[1];
   t.roll.value = bodyTargets[2];
-  t.heightTarget = bodyTargets[0];
   t.bodyPos[1] = t.height.value;
   updateBodyRotation(t);
   placeHips(t);
@@ -222,25 +233,11 @@ function soleHalfLength(chain: LegChain): number {
   return Math.min(0.1, Math.max(0.03, fromToe));
 }
 
-/**
- * How much of the ground-normal target a swinging sole follows, by swing progress:
- * flat at liftoff and touchdown, free in mid-swing, where a foot held flat
- * would drive the ankle into its limit and the hip into a twist.
- */
-function swingOrientationShare(tau: number): number {
-  if (tau < 0.5) {
-    const u = 1 - tau / SWING_RELEASE;
-    return u <= 0 ? 0 : u * u * (3 - 2 * u);
-  }
-  const u = (tau - SWING_CATCH) / (1 - SWING_CATCH - 0.05);
-  return u <= 0 ? 0 : u >= 1 ? 1 : u * u * (3 - 2 * u);
-}
-const SWING_RELEASE = 0.25;
-const SWING_CATCH = 0.55;
+
 
 /** Advance one frame; returns false once the trial is over. */
 export function stepTrial(t: Trial): boolean {
-  if (t.frame >= t.totalFrames) return false;
+  if (t.frame >= t.totalFrames || t.bodyPos[2] >= t.lastBodyZ) return false;
   t.frame++;
   const dt = t.options.timeStep;
   const time = t.frame * dt;
@@ -267,14 +264,20 @@ export function stepTrial(t: Trial): boolean {
   }
 
   // Body: forward at the gait speed, height and attitude through the filter.
-  t.bodyPos[2] = bodyZAt(t, time);
-  computeBodyTargets(t);
-  const rise = bodyTargets[0] - t.heightTarget;
-  if (supportChanged && Math.abs(rise) >= BODY_STEP_UP_MIN) {
-    if (t.bodyWindow.open) t.bodySummary.fold(t.bodyWindow);
-    if (rise > 0) t.bodyWindow.start(t.height.value, bodyTargets[0], time, time + BODY_WINDOW_SECONDS);
+  stepCritical(t.pace, terrainPace(t), t.paceFilter);
+  t.bodyPos[2] += t.gait.speed * t.pace.value * dt;
+  // A body step-up is measured from the footholds that ask for it: when a new one is chosen, the height the
+  // body will settle at once every swinging foot has landed is the step the response is measured against.
+  if (supportChanged) {
+    computeBodyTargets(t, true);
+    const rise = bodyTargets[0] - t.heightTarget;
+    if (Math.abs(rise) >= BODY_STEP_UP_MIN) {
+      if (t.bodyWindow.open) t.bodySummary.fold(t.bodyWindow);
+      if (rise > 0) t.bodyWindow.start(t.height.value, bodyTargets[0], time, time + BODY_WINDOW_SECONDS);
+    }
+    t.heightTarget = bodyTargets[0];
   }
-  t.heightTarget = bodyTargets[0];
+  computeBodyTargets(t);
   // Smaller target changes inside a window move where the response should settle.
   if (t.bodyWindow.open) t.bodyWindow.final = bodyTargets[0];
   followBodyTargets(t);
@@ -313,24 +316,7 @@ export function stepTrial(t: Trial): boolean {
       }
       older.set(prev);
     }
-    // Never chase a point out of reach: aim at the nearest point of the reach sphere (the metrics still see the real target).
-    const o = 3 * i;
-    aim[0] = t.target[o];
-    aim[1] = t.target[o + 1];
-    aim[2] = t.target[o + 2];
-    pullInsideReach(ws.rootPos[0], ws.rootPos[1], ws.rootPos[2], TARGET_MAX * t.rig.legs[i].chain.reach, aim, 0);
-    let normal: Float64Array | null = null;
-    if (t.orient[i]) {
-      if (t.stance[i]) normal = t.targetNormalOf[i];
-      else {
-        const share = swingOrientationShare((t.phase[i] - beta) / (1 - beta));
-        if (share > 1e-3) {
-          const up = ws.footUp;
-          for (let k = 0; k < 3; k++) aimNormal[k] = up[k] + (t.targetNormal[o + k] - up[k]) * share;
-          normal = aimNormal;
-        }
-      }
-    }
+    const normal = aimLeg(t, i, aim, aimNormal);
     const r = solve(ws, aim, normal);
     t.iterations[i] = r.iterations;
     t.error[i] = r.positionError;
@@ -339,22 +325,7 @@ export function stepTrial(t: Trial): boolean {
     t.solverError[0] += r.positionError;
     if (r.positionError > t.solverError[1]) t.solverError[1] = r.positionError;
     if (!r.converged) t.unconverged++;
-    // Joint speed limit: a pose change faster than the limit is spread over the next frames.
-    const limit = t.maxJointStep[i];
-    const limited = t.limitedPose[i];
-    let over = false;
-    for (let d = 0; d < ws.nDof; d++) {
-      const change = r.pose[d] - prev[d];
-      if (ws.dKind[d] !== DOF_SLIDE && (change > limit || change < -limit)) {
-        limited[d] = prev[d] + (change > 0 ? limit : -limit);
-        over = true;
-      } else limited[d] = r.pose[d];
-    }
-    if (over) {
-      setPose(ws, limited);
-      forwardKinematics(ws);
-      t.error[i] = distance3(ws.foot, aim);
-    }
+    limitLegMotion(t, i, aim);
     let fastest = 0;
     for (let d = 0; d < ws.nDof; d++) {
       if (ws.dKind[d] === DOF_SLIDE) continue;
@@ -365,7 +336,7 @@ export function stepTrial(t: Trial): boolean {
     t.jointSpeed[i] = (fastest / dt) * DEG;
   }
   observe(t, time, true);
-  return t.frame < t.totalFrames;
+  return t.frame < t.totalFrames && t.bodyPos[2] < t.lastBodyZ;
 }
 
 /** Walk `rig` over `course` with `setup`; deterministic: the same inputs give bit-identical results. */

@@ -16,6 +16,13 @@ export const DEFAULT_LIMITS = {
   hipTwist: 35 * DEG,
   kneeFlexMax: 150 * DEG,
   ankleFlex: { min: -20 * DEG, max: 45 * DEG },
+  /**
+   * An ankle whose foot segment ends the chain (the sole point is the toe) must keep that whole
+   * segment flat while the shank swings through the stance: about ±25° of shank swing at a
+   * walking stride plus about ±30° taken up from a bent knee (worked from the geometry of a leg at
+   * 88 % of its reach over a stance of 0.43 hip heights either side; common practice, no source).
+   */
+  toeEndedAnkleFlex: { min: -60 * DEG, max: 60 * DEG },
   ankleRoll: 20 * DEG,
   toe: 40 * DEG,
   /** Slider stroke either side of rest, metres. */
@@ -103,11 +110,13 @@ export function defaultLegJoint(positions: ArrayLike<number>, path: readonly num
       return { joint, dof: 'ball', axes: [], limits: [{ min: 0, max: DEFAULT_LIMITS.hipSwing }, { min: -DEFAULT_LIMITS.hipTwist, max: DEFAULT_LIMITS.hipTwist }] };
     case 'universal': {
       const [lateral, forward] = footAxes(positions, path, k);
+      const toeEnded = k === path.length - 2;
+      const flex = toeEnded ? DEFAULT_LIMITS.toeEndedAnkleFlex : DEFAULT_LIMITS.ankleFlex;
       return {
         joint,
         dof: 'universal',
         axes: [lateral, forward],
-        limits: [{ ...DEFAULT_LIMITS.ankleFlex }, { min: -DEFAULT_LIMITS.ankleRoll, max: DEFAULT_LIMITS.ankleRoll }],
+        limits: [{ ...flex }, { min: -DEFAULT_LIMITS.ankleRoll, max: DEFAULT_LIMITS.ankleRoll }],
       };
     }
     case 'slider': {
