@@ -1,20 +1,16 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me, SignInInput, SignUpAnswer, SignUpInput } from '../schemas/auth';
+import type { Me, SessionState, SignInInput, SignUpAnswer, SignUpInput } from '../schemas/auth';
 import { api, ApiError } from './api';
 
 export const meQueryKey = ['me'] as const;
 
-/** The signed-in viewer, or null when signed out. */
+/** The signed-in viewer, or null when signed out (the session probe answers 200 either way, so no error is logged). */
 export function useMe() {
   return useQuery({
     queryKey: meQueryKey,
     queryFn: async (): Promise<Me | null> => {
-      try {
-        return await api<Me>('/me');
-      } catch (err) {
-        if (err instanceof ApiError && err.status === 401) return null;
-        throw err;
-      }
+      const state = await api<SessionState>('/me/session');
+      return state.signedIn ? state.me : null;
     },
     staleTime: 60_000,
   });

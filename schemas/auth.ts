@@ -63,6 +63,10 @@ export const meSchema = z.object({
 });
 export type Me = z.infer<typeof meSchema>;
 
+/** GET /api/me/session: signed out is a state, answered 200, so loading the app signed out logs no error. */
+export const sessionStateSchema = z.discriminatedUnion('signedIn', [z.object({ signedIn: z.literal(false) }), z.object({ signedIn: z.literal(true), me: meSchema })]);
+export type SessionState = z.infer<typeof sessionStateSchema>;
+
 export const switchTeamSchema = z.object({ teamId: z.number({ error: 'Pick a studio.' }).int() });
 
 export const signUpConfirmSchema = z.object({ token: z.string().min(1, 'This sign-up link is incomplete.').max(200, 'This sign-up link is not one of ours.') });

@@ -46,6 +46,7 @@ export const ROUTE_TABLE: RouteRule[] = [
   { method: 'GET', path: '/app-config', action: 'app-config', label: 'Read the app settings', access: 'public' },
   { method: 'GET', path: '/cli/treadle.mjs', action: 'cli.download', label: 'Download the treadle command', access: 'public' },
   { method: 'GET', path: '/me', action: 'me.read', label: 'See your own account', access: 'member' },
+  { method: 'GET', path: '/me/session', action: 'me.session', label: 'Check whether you are signed in', access: 'public' },
   { method: 'POST', path: '/me/team', action: 'me.switch-team', label: 'Switch studio', access: 'member' },
   { method: 'GET', path: '/permissions', action: 'permissions.read', label: 'See who may do what', access: 'member' },
   { method: 'GET', path: '/team', action: 'team.read', label: 'See the members', access: 'member' },

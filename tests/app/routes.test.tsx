@@ -17,7 +17,8 @@ function fakeServer(answers: Record<string, Answer>) {
   return calls;
 }
 
-const signedOut = { 'GET /api/me': { status: 401, body: { error: { code: 'unauthenticated', message: 'Sign in to continue.' } } } };
+// Signed out is a state the session probe answers with 200, not an error.
+const signedOut = { 'GET /api/me/session': { status: 200, body: { signedIn: false } } };
 const me = {
   user: { id: 1, email: 'designer@brassmoth.test', name: 'Dario Moth' },
   team: { id: 1, name: 'Brassmoth Interactive' },
@@ -44,7 +45,7 @@ describe('routes', () => {
   });
 
   it('opens a deep link inside the studio shell for a signed-in member', async () => {
-    fakeServer({ 'GET /api/me': { status: 200, body: me } });
+    fakeServer({ 'GET /api/me/session': { status: 200, body: { signedIn: true, me } } });
     renderRouter('./app', { initialUrl: '/courses' });
     expect(await screen.findByText('Brassmoth Interactive')).toBeTruthy();
     expect(screen.getByText('Dario Moth · Designer')).toBeTruthy();
