@@ -19,12 +19,12 @@ export function useAuditLog(enabled: boolean) {
   return useQuery({ queryKey: ['team', 'audit'], queryFn: () => api<{ entries: AuditEntry[] }>('/team/audit'), enabled });
 }
 
-/** A team write that refreshes the member list (and its log) when it lands. */
+/** A team write that refreshes the member list (and its log) when it lands, and the viewer's own role and rights. */
 function useTeamWrite<Input>(call: (input: Input) => Promise<unknown>) {
   const client = useQueryClient();
   return useMutation<unknown, ApiError, Input>({
     mutationFn: call,
-    onSettled: () => client.invalidateQueries({ queryKey: teamKey }),
+    onSettled: () => Promise.all([client.invalidateQueries({ queryKey: teamKey }), client.invalidateQueries({ queryKey: meQueryKey })]),
   });
 }
 

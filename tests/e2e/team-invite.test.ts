@@ -80,3 +80,66 @@ describe('a new member through the local inbox', () => {
     await page.context().close();
   });
 });
+
+describe('roles, with a second step and never an ownerless studio', () => {
+  const roleOf = async (email: string) =>
+    (await studio.server.db('memberships as m').join('users as u', 'u.id', 'm.user_id').where('u.email', email).first('m.role')).role as string;
+
+  it('asks before changing a role, keeps the only owner, and the server refuses demoting them too (phone, then wide)', async () => {
+    const owner = await newPage(PHONE);
+    await signIn(owner, 'owner@brassmoth.test');
+    await owner.goto(`${studio.server.url}/team`);
+    const dario = owner.getByLabel('Member Dario Moth');
+    await dario.getByRole('radio', { name: 'Programmer' }).click();
+    const confirm = owner.getByRole('group', { name: 'Confirm the role change of Dario Moth' });
+    await confirm.getByText('from Designer to Programmer?', { exact: false }).waitFor();
+    await screenshot(owner, 'team-role-confirm-phone');
+    // One tap changed nothing yet.
+    expect(await roleOf('designer@brassmoth.test')).toBe('designer');
+    await confirm.getByRole('button', { name: 'Keep the role' }).click();
+    expect(await confirm.count()).toBe(0);
+    expect(await dario.getByRole('radio', { name: 'Designer' }).getAttribute('aria-checked')).toBe('true');
+    expect(await roleOf('designer@brassmoth.test')).toBe('designer');
+
+    await dario.getByRole('radio', { name: 'Art lead' }).click();
+    await confirm.getByRole('button', { name: 'Make Dario Art lead' }).click();
+    await confirm.waitFor({ state: 'detached' });
+    await dario.getByRole('radio', { name: 'Art lead', checked: true }).waitFor();
+    expect(await roleOf('designer@brassmoth.test')).toBe('art_lead');
+    // Back as it was, for the other tests.
+    await dario.getByRole('radio', { name: 'Designer' }).click();
+    await confirm.getByRole('button', { name: 'Make Dario Designer' }).click();
+    await dario.getByRole('radio', { name: 'Designer', checked: true }).waitFor();
+    expect(await roleOf('designer@brassmoth.test')).toBe('designer');
+
+    // The only owner's own row offers neither a role change nor leaving, and says why.
+    const self = owner.getByLabel('Member Ottilie Brass');
+    await self.getByText("You are the studio's only owner", { exact: false }).waitFor();
+    expect(await self.getByRole('radio').count()).toBe(0);
+    expect(await self.getByRole('button').count()).toBe(0);
+    await self.scrollIntoViewIfNeeded();
+    await screenshot(owner, 'team-only-owner-phone');
+
+    // And the server: the same browser session asking directly is refused with the reason, and nothing changes.
+    const ownerId = (await studio.server.db('users').where({ email: 'owner@brassmoth.test' }).first('id')).id;
+    // The page's own request context: its session cookie, and its origin as a browser would send it.
+    const headers = { Origin: studio.server.url };
+    const demote = await owner.request.patch(`${studio.server.url}/api/team/members/${ownerId}`, { data: { role: 'designer' }, headers });
+    expect(demote.status()).toBe(409);
+    expect((await demote.json()).error.message).toMatch(/at least one owner/);
+    const leave = await owner.request.delete(`${studio.server.url}/api/team/members/${ownerId}`, { headers });
+    expect(leave.status()).toBe(409);
+    expect(await roleOf('owner@brassmoth.test')).toBe('owner');
+    await owner.context().close();
+
+    const wide = await newPage(WIDE);
+    await signIn(wide, 'owner@brassmoth.test');
+    await wide.goto(`${studio.server.url}/team`);
+    await wide.getByLabel('Member Priya Kettle').getByRole('radio', { name: 'Owner' }).click();
+    await wide.getByRole('group', { name: 'Confirm the role change of Priya Kettle' }).getByText('manage members, the plan and billing', { exact: false }).waitFor();
+    await screenshot(wide, 'team-role-confirm-wide');
+    await wide.getByRole('button', { name: 'Keep the role' }).click();
+    expect(await roleOf('programmer@brassmoth.test')).toBe('programmer');
+    await wide.context().close();
+  });
+});
