@@ -65,7 +65,7 @@ export function createWalkMarks(series: TrialSeries, events: readonly StumbleEve
     return { positions, attribute, line };
   });
 
-  const size = 0.06 * Math.max(hipHeight, 0.2) + 0.02;
+  const size = 0.035 * Math.max(hipHeight, 0.2) + 0.012;
   const geometries = Object.fromEntries(STUMBLE_KINDS.map((k) => [k, glyphGeometry(k)])) as Record<StumbleKind, THREE.BufferGeometry>;
   const materials = Object.fromEntries(
     STUMBLE_KINDS.map((k) => [k, new THREE.MeshBasicMaterial({ color: stumbleColor(k), side: THREE.DoubleSide, depthTest: false, transparent: true })]),
