@@ -58,6 +58,8 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   chip: {
     minHeight: touchTarget,
+    minWidth: touchTarget,
+    alignItems: 'center',
     paddingHorizontal: space.md,
     borderRadius: radius.md,
     borderWidth: 1.5,
