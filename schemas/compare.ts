@@ -28,8 +28,8 @@ export const compareEntrySchema = z.object({
   characterId: z.number().int(),
   characterName: z.string(),
   metrics: SuiteMetricsSchema,
-  /** Per course: body height response and mean foot-to-target distance over time (downsampled for the plots). */
-  plots: z.array(z.object({ course: z.string(), time: z.array(z.number()), bodyHeight: nullableNumbers, footError: nullableNumbers })),
+  /** Per course: body height response and mean foot-to-target distance, by time and by distance along the course (downsampled for the plots). */
+  plots: z.array(z.object({ course: z.string(), time: z.array(z.number()), distance: z.array(z.number()), bodyHeight: nullableNumbers, footError: nullableNumbers })),
 });
 
 export const compareResultSchema = z.object({

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, space, type } from '../../constants/theme';
 import type { CompareResult } from '../../hooks/useCompare';
@@ -8,26 +9,38 @@ import { SectionHeading } from '../ui/SectionHeading';
 import { MetricsTable } from './MetricsTable';
 import { OverlayPlot } from './OverlayPlot';
 
-/** The comparison: the metrics table and the overlaid plots; side by side on a wide screen. */
-export function CompareView({ result }: { result: CompareResult }) {
+/**
+ * The comparison: the metrics table and the overlaid plots, side by side on a wide screen; `children` are
+ * further full-width sections under them (a synchronized walk of the same entries, for one).
+ */
+export function CompareView({ result, children }: { result: CompareResult; children?: ReactNode }) {
   const wide = useIsWide();
+  const n = result.suite.courses.length;
   return (
-    <View style={[styles.cols, wide && styles.wide]}>
-      <Card style={wide ? styles.tableCol : undefined}>
-        <SectionHeading>{`On ${result.suite.name}`}</SectionHeading>
-        <MetricsTable entries={result.entries} />
-        <Text style={styles.formula}>{FOOTING_SCORE_FORMULA.text}</Text>
-      </Card>
-      <Card style={wide ? styles.plotCol : undefined}>
-        <SectionHeading>Over time</SectionHeading>
-        <OverlayPlot entries={result.entries} courses={result.suite.courses} />
-      </Card>
+    <View style={styles.sections}>
+      <View style={[styles.cols, wide && styles.wide]}>
+        <Card style={wide ? styles.tableCol : undefined}>
+          <SectionHeading>{`On the suite ${result.suite.name}`}</SectionHeading>
+          <Text style={styles.of}>
+            {`Suite figures pool all ${n} ${n === 1 ? 'course' : 'courses'}; the rows under "Per course" are each course on its own, as its trial shows it.`}
+          </Text>
+          <MetricsTable entries={result.entries} />
+          <Text style={styles.formula}>{FOOTING_SCORE_FORMULA.text}</Text>
+        </Card>
+        <Card style={wide ? styles.plotCol : undefined}>
+          <SectionHeading>Along the course</SectionHeading>
+          <OverlayPlot entries={result.entries} courses={result.suite.courses} />
+        </Card>
+      </View>
+      {children}
     </View>
   );
 }
 
 const styles = StyleSheet.create({
+  sections: { gap: space.lg },
   cols: { gap: space.lg },
+  of: { ...type.small, color: colors.ink },
   wide: { flexDirection: 'row', alignItems: 'flex-start' },
   tableCol: { flex: 3, minWidth: 0 },
   plotCol: { flex: 2, minWidth: 0 },

@@ -42,9 +42,24 @@ function Row({ row, entries }: { row: MetricRow; entries: Entry[] }) {
   );
 }
 
+/** Each course's own footing score, as that course's trial reports it (the suite score pools them). */
+function courseRows(entries: Entry[]): MetricRow[] {
+  const names = entries[0]?.metrics.courses.map((c) => c.course) ?? [];
+  return names.map((name) => ({
+    key: `course.${name}`,
+    label: name,
+    group: 'score',
+    unit: 'footing score',
+    better: 'higher',
+    digits: 1,
+    value: (m) => m.courses.find((c) => c.course === name)?.footingScore ?? null,
+  }));
+}
+
 /** Metrics side by side, the best of each row starred; phone: one group at a time, wide: all of them. */
 export function MetricsTable({ entries }: { entries: Entry[] }) {
   const wide = useIsWide();
+  const perCourse = courseRows(entries);
   const [group, setGroup] = useState<MetricGroup>('score');
   const groups = wide ? METRIC_GROUPS : METRIC_GROUPS.filter((g) => g.group === group);
   return (
@@ -58,12 +73,8 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
           {entries.map((e, i) => (
             <View key={e.pick} role="columnheader" style={styles.cell}>
               <View style={[styles.swatch, { backgroundColor: ENTRY_STYLES[i].color }]} />
-              <Text style={styles.headText} numberOfLines={1}>
-                {e.characterName}
-              </Text>
-              <Text style={styles.unit} numberOfLines={1}>
-                {e.label.split(' · ')[1] ?? ''}
-              </Text>
+              <Text style={styles.headText}>{e.characterName}</Text>
+              <Text style={[styles.unit, styles.right]}>{e.label.split(' · ')[1] ?? ''}</Text>
             </View>
           ))}
         </View>
@@ -75,6 +86,16 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
             {METRIC_ROWS.filter((r) => r.group === g.group).map((r) => (
               <Row key={r.key} row={r} entries={entries} />
             ))}
+            {g.group === 'score' && perCourse.length ? (
+              <>
+                <Text role="row" style={styles.subTitle}>
+                  Per course
+                </Text>
+                {perCourse.map((r) => (
+                  <Row key={r.key} row={r} entries={entries} />
+                ))}
+              </>
+            ) : null}
           </View>
         ))}
       </View>
@@ -86,6 +107,8 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
   left: { textAlign: 'left' },
+  right: { textAlign: 'right' },
+  subTitle: { fontFamily: fonts.bodyMedium, fontSize: 13, color: colors.graphite, paddingTop: space.sm, paddingBottom: space.xs },
   table: { borderTopWidth: 1, borderTopColor: colors.rule },
   head: { backgroundColor: colors.paperDeep },
   headText: { fontFamily: fonts.bodyStrong, fontSize: 13, color: colors.ink, textAlign: 'right' },

@@ -23,19 +23,22 @@ function niceMax(v: number) {
   return [1, 2, 5, 10].map((m) => m * p).find((m) => m >= v) ?? 10 * p;
 }
 
-/** The entries' series over one course drawn over each other; each line has its own dash pattern as well as colour. */
+/**
+ * The entries' series over one course drawn over each other, against distance along the course (where the
+ * ground is, so a stumble on the same step lines up); each line has its own dash pattern as well as colour.
+ */
 export function OverlayPlot({ entries, courses }: { entries: Entry[]; courses: string[] }) {
   const [course, setCourse] = useState(courses[0]);
   const [quantity, setQuantity] = useState<Quantity>('bodyHeight');
   const [width, setWidth] = useState(340);
   const q = QUANTITIES.find((x) => x.value === quantity)!;
   const plots = entries.map((e) => e.plots.find((p) => p.course === course));
-  let tMax = 0;
+  let dMax = 0;
   let lo = 0;
   let hi = 0;
   for (const p of plots) {
     if (!p) continue;
-    tMax = Math.max(tMax, p.time[p.time.length - 1] ?? 0);
+    for (const d of p.distance) dMax = Math.max(dMax, d);
     for (const v of p[quantity]) {
       if (v === null) continue;
       lo = Math.min(lo, v * q.scale);
@@ -44,14 +47,14 @@ export function OverlayPlot({ entries, courses }: { entries: Entry[]; courses: s
   }
   const top = niceMax(hi);
   const bottom = lo < 0 ? -niceMax(-lo) : 0;
-  const tEnd = niceMax(tMax);
-  const x = (t: number) => PAD.left + (t / tEnd) * (width - PAD.left - PAD.right);
+  const dEnd = niceMax(dMax);
+  const x = (d: number) => PAD.left + (Math.max(0, d) / dEnd) * (width - PAD.left - PAD.right);
   const y = (v: number) => PAD.top + ((top - v) / (top - bottom)) * (HEIGHT - PAD.top - PAD.bottom);
   return (
     <View style={styles.wrap}>
       <ChoiceChips label="Course" choices={courses.map((c) => ({ value: c, label: c }))} value={course} onChange={setCourse} />
       <ChoiceChips label="Plot" choices={QUANTITIES.map((x) => ({ value: x.value as Quantity, label: x.label }))} value={quantity} onChange={(v: Quantity) => setQuantity(v)} />
-      <View onLayout={(e) => setWidth(Math.max(240, e.nativeEvent.layout.width))} aria-label={`${q.label} over time on ${course}`} role="img">
+      <View onLayout={(e) => setWidth(Math.max(240, e.nativeEvent.layout.width))} aria-label={`${q.label} against distance along ${course}`} role="img">
         <Svg width={width} height={HEIGHT}>
           {[bottom, (bottom + top) / 2, top].map((v) => (
             <Line key={v} x1={PAD.left} x2={width - PAD.right} y1={y(v)} y2={y(v)} stroke={colors.rule} strokeWidth={1} />
@@ -61,17 +64,17 @@ export function OverlayPlot({ entries, courses }: { entries: Entry[]; courses: s
               {Number(v.toFixed(2))}
             </SvgText>
           ))}
-          {[0, tEnd / 2, tEnd].map((t) => (
-            <SvgText key={`t${t}`} x={x(t)} y={HEIGHT - 8} fontSize={11} fontFamily={fonts.mono} fill={colors.graphite} textAnchor="middle">
-              {`${Number(t.toFixed(1))} s`}
+          {[0, dEnd / 2, dEnd].map((d) => (
+            <SvgText key={`d${d}`} x={x(d)} y={HEIGHT - 8} fontSize={11} fontFamily={fonts.mono} fill={colors.graphite} textAnchor={d === dEnd ? 'end' : 'middle'}>
+              {`${Number(d.toFixed(1))} m`}
             </SvgText>
           ))}
           {plots.map((p, i) =>
             p ? (
               <Polyline
                 key={entries[i].pick}
-                points={p.time
-                  .map((t, k) => (p[quantity][k] === null ? null : `${x(t).toFixed(1)},${y((p[quantity][k] as number) * q.scale).toFixed(1)}`))
+                points={p.distance
+                  .map((d, k) => (p[quantity][k] === null ? null : `${x(d).toFixed(1)},${y((p[quantity][k] as number) * q.scale).toFixed(1)}`))
                   .filter(Boolean)
                   .join(' ')}
                 fill="none"
@@ -84,7 +87,7 @@ export function OverlayPlot({ entries, courses }: { entries: Entry[]; courses: s
         </Svg>
       </View>
       <Text style={styles.axis}>
-        {q.label} ({q.unit}) against time
+        {q.label} ({q.unit}) against distance along the course (m)
       </Text>
       <View style={styles.legend} role="list" aria-label="Legend">
         {entries.map((e, i) => (

@@ -13,6 +13,8 @@ const PLOT_POINTS = 150;
 export interface ComparePlot {
   course: string;
   time: number[];
+  /** Body position along the course, m: the axis that lines walks up (one stumbles where the ground does). */
+  distance: number[];
   /** Body height above its start, m. */
   bodyHeight: (number | null)[];
   /** Mean foot-to-target distance over the legs, mm. */
@@ -31,10 +33,11 @@ export interface CompareEntry {
 function plotOf(course: string, r: TrialResult): ComparePlot {
   const s = r.series;
   const stride = Math.max(1, Math.ceil(s.length / PLOT_POINTS));
-  const out: ComparePlot = { course, time: [], bodyHeight: [], footError: [] };
+  const out: ComparePlot = { course, time: [], distance: [], bodyHeight: [], footError: [] };
   const h0 = s.length ? s.bodyHeight[0] : 0;
   for (let k = 0; k < s.length; k += stride) {
     out.time.push(Math.round((k / s.rate) * 1000) / 1000);
+    out.distance.push(Math.round(s.bodyZ[k] * 1000) / 1000);
     out.bodyHeight.push(Math.round((s.bodyHeight[k] - h0) * 1e5) / 1e5);
     let e = 0;
     for (let i = 0; i < s.legs; i++) e += s.error[k * s.legs + i];
@@ -60,11 +63,11 @@ export async function compare(db: Db, teamId: number, q: CompareQuery) {
       const saved = await findLegSetupVersion(db, teamId, id);
       characterId = saved.characterId;
       setupJson = saved.setup;
-      label = `v${saved.version}`;
+      label = `leg setup v${saved.version}`;
     } else {
       const newest = await newestSetupOf(db, teamId, id);
       setupJson = newest?.setup;
-      label = newest ? `v${newest.version}` : 'default setup';
+      label = newest ? `leg setup v${newest.version}` : 'engine defaults';
     }
     const row = await findCharacterRow(db, teamId, characterId);
     if (!row) throw new HttpError(404, 'not_found', `Pick ${pick}: that character was not found.`, { pick: `${pick} is not a character of your team.` });

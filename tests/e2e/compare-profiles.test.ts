@@ -32,7 +32,8 @@ describe('compare', () => {
     const page = await signedInPage(PHONE, 'artlead@brassmoth.test');
     await page.goto(`${studio.server.url}/compare`);
     await page.getByRole('heading', { name: 'Compare', level: 1 }).waitFor();
-    await page.getByRole('radio', { name: 'Scrapyard crossing' }).click();
+    // The studio's only suite is already chosen.
+    await page.getByRole('radio', { name: 'Scrapyard crossing', checked: true }).waitFor();
     await page.getByRole('checkbox', { name: 'Wicket' }).click();
     await page.getByRole('checkbox', { name: 'Skitter' }).click();
     await page.getByRole('table', { name: 'Metrics side by side' }).waitFor({ timeout: 60_000 });
@@ -45,8 +46,44 @@ describe('compare', () => {
     await page.getByRole('radio', { name: 'Stumbles per 100 steps' }).click();
     await page.getByRole('rowheader').filter({ hasText: 'reach-miss' }).waitFor();
     await screenshot(page, 'compare-phone-stumbles');
-    await page.getByRole('img', { name: /over time on/ }).scrollIntoViewIfNeeded();
+    // The plot lines walks up by where they are on the course, not by when.
+    const plot = page.getByRole('img', { name: /against distance along Loading dock steps/ });
+    await plot.scrollIntoViewIfNeeded();
+    expect(await plot.locator('text').filter({ hasText: / m$/ }).count()).toBe(3);
+    expect(await plot.locator('text').filter({ hasText: / s$/ }).count()).toBe(0);
     await screenshot(page, 'compare-phone-plot');
+    await page.context().close();
+  });
+
+  it('versions of one character replace the pick, the cap says why chips are greyed, and notes are not cut (phone)', async () => {
+    const { wicket, skitter, suite } = await ids();
+    const page = await signedInPage(PHONE, 'artlead@brassmoth.test');
+    const burrow = (await studio.server.db('characters').where({ name: 'Burrow' }).first('id')).id;
+    await page.goto(`${studio.server.url}/compare?suite=${suite}&pick=c${wicket},c${skitter},c${burrow}`);
+    await page.getByRole('checkbox', { name: 'Wicket', checked: true }).waitFor();
+    const versions = await studio.server.db('leg_setups').where({ character_id: wicket }).orderBy('version', 'desc').select('id', 'version', 'note');
+    expect(versions.length).toBe(2);
+    await page.getByRole('radiogroup', { name: /versions of one character/ }).getByRole('radio', { name: 'Wicket' }).click();
+    // Replaced, not added to: exactly Wicket's versions, newest first.
+    await page.waitForURL((u) => u.searchParams.get('pick') === versions.map((v) => `s${v.id}`).join(','));
+    expect(await page.getByRole('checkbox', { name: 'Skitter', checked: true }).count()).toBe(0);
+    // Each version's whole note shows, wrapped, on its chip.
+    for (const v of versions) {
+      const chip = page.getByRole('checkbox', { name: `leg setup v${v.version}` });
+      await chip.getByText(v.note, { exact: true }).waitFor();
+    }
+    await page.getByRole('table', { name: 'Metrics side by side' }).waitFor({ timeout: 60_000 });
+    await page.getByRole('columnheader').filter({ hasText: `leg setup v${versions[0].version}` }).waitFor();
+    await screenshot(page, 'compare-versions-phone');
+
+    // At the cap of four the greyed chips are explained.
+    await page.getByRole('checkbox', { name: 'Skitter' }).click();
+    await page.getByRole('checkbox', { name: 'Burrow' }).click();
+    await page.getByRole('status').filter({ hasText: '4 picked, the most one comparison shows' }).waitFor();
+    const wicketChip = page.getByRole('group', { name: /^Characters/ }).getByRole('checkbox', { name: /^Wicket/ });
+    expect(await wicketChip.getAttribute('aria-disabled')).toBe('true');
+    await page.getByRole('status').scrollIntoViewIfNeeded();
+    await screenshot(page, 'compare-cap-phone');
     await page.context().close();
   });
 
@@ -57,7 +94,7 @@ describe('compare', () => {
     await page.getByRole('table', { name: 'Metrics side by side' }).waitFor({ timeout: 60_000 });
     // Every group is shown at once on a wide screen.
     await page.getByRole('rowheader').filter({ hasText: 'Touchdown overshoot' }).waitFor();
-    await page.getByRole('rowheader').filter({ hasText: 'Footing score' }).waitFor();
+    await page.getByRole('rowheader').filter({ hasText: /^Footing score/ }).waitFor();
     await screenshot(page, 'compare-wide');
     await page.context().close();
   });
@@ -82,6 +119,21 @@ describe('profiles', () => {
     // RFC 3339 §5.6 date-time.
     ajv.addFormat('date-time', /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?(Z|[+-]\d{2}:\d{2})$/);
     expect(ajv.validate(schema, file)).toBe(true);
+    // Every version says what its score is of.
+    await page.getByLabel('Version 2').getByText('on suite Scrapyard crossing (4 courses)', { exact: false }).waitFor();
+    // The suggested commands run in a game's own repository: the one-file command is linked and served.
+    const cli = page.getByRole('link', { name: 'Download the treadle command (treadle.mjs)' });
+    await cli.scrollIntoViewIfNeeded();
+    const href = await cli.getAttribute('href');
+    expect(href).toBe('/api/cli/treadle.mjs');
+    const served = await fetch(`${studio.server.url}${href}`);
+    expect(served.status).toBe(200);
+    expect(await served.text()).toMatch(/^#!\/usr\/bin\/env node/);
+    expect(await page.getByLabel('Get the command (once, or in CI)', { exact: true }).textContent()).toBe(`curl -fsSo treadle.mjs ${studio.server.url}/api/cli/treadle.mjs`);
+    expect(await page.getByLabel('Fail the build on a stumble regression', { exact: true }).textContent()).toMatch(/ node treadle\.mjs check --profile \d+ /);
+    expect(await page.getByText('npm run treadle').count()).toBe(0);
+    // The published setup carries no float noise (6 decimals, as the schema says).
+    expect(JSON.stringify(file.legSetup).match(/\d+\.\d{7,}/g)).toBeNull();
     await page.getByText('Use it in a build').scrollIntoViewIfNeeded();
     await screenshot(page, 'profile-phone-build');
     await page.context().close();
