@@ -1,17 +1,7 @@
 /** Treadle's identity: colours, type and spacing (shared/design/product.md, "Identity"). */
-export const colors = {
-  paper: '#F5F1E8',
-  paperDeep: '#ECE6D8',
-  card: '#FBF9F4',
-  ink: '#1E252B',
-  graphite: '#5A6670',
-  rule: '#D8D1C2',
-  ember: '#E4572E',
-  emberPressed: '#C4461F',
-  moss: '#5B8C5A',
-  danger: '#B3261E',
-  onInk: '#F5F1E8',
-} as const;
+import { colors, fonts } from './palette';
+
+export { colors, fonts };
 
 export const stumbleColors = {
   sink: '#7A4EAB',
@@ -19,16 +9,6 @@ export const stumbleColors = {
   'reach-miss': '#C8354B',
   scuff: '#2F8FA6',
   snap: '#34495E',
-} as const;
-
-export const fonts = {
-  heading: 'SpaceGrotesk_700Bold',
-  headingMedium: 'SpaceGrotesk_500Medium',
-  body: 'Inter_400Regular',
-  bodyMedium: 'Inter_500Medium',
-  bodyStrong: 'Inter_600SemiBold',
-  mono: 'IBMPlexMono_400Regular',
-  monoMedium: 'IBMPlexMono_500Medium',
 } as const;
 
 /** The files behind each family name, loaded once by the root layout. */

@@ -31,7 +31,7 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   await removeIncomingFiles(config.dataDir); // temporary files of uploads a crash interrupted
-  const payments = parts.payments ?? (await startLocalPayments());
+  const payments = parts.payments ?? (await startLocalPayments({ stateFile: config.paymentsFile }));
   // Before serving: jobs a crash left running are marked failed, queued ones start again.
   // REDIS_URL: tasks go to `npm run worker` processes over BullMQ; otherwise to threads in this process.
   const jobs = await openJobRunner({ db, clock: systemClock, redisUrl: process.env.REDIS_URL });

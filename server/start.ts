@@ -38,7 +38,8 @@ async function main() {
     localInboxUrl = catcher.inboxUrl;
   }
   // The payment fake first: Treadle's webhook address is given to it once Treadle listens.
-  const payments = await startLocalPayments({ port: Number(process.env.PAYMENTS_PORT ?? 0) });
+  // Its own SQLite file (PAYMENTS_DB, data/payments.sqlite by default), so subscriptions paid in it survive a restart.
+  const payments = await startLocalPayments({ port: Number(process.env.PAYMENTS_PORT ?? 0), stateFile: config.paymentsFile });
   const running = await startServer(config, { mailer, localInboxUrl, payments, logRequests: process.env.LOG_REQUESTS === '1' });
   console.log(`\nTreadle is running at ${running.url}\n`);
   if (process.env.REDIS_URL) console.log(`Trials and dial-ins are queued on Redis at ${shownUrl(process.env.REDIS_URL)}: start \`npm run worker\` on each machine that should run them.`);

@@ -6,7 +6,7 @@ const catalogs = new WeakMap<Stripe, Promise<Map<PlanId, string>>>();
 
 /**
  * The provider's price id of each paid plan, found by lookup key and created when missing
- * (the local fake starts empty at each start). Remembered per client for the life of the process.
+ * (the first start against an empty local test service). Remembered per client for the life of the process.
  */
 export function priceIds(client: Stripe): Promise<Map<PlanId, string>> {
   let catalog = catalogs.get(client);

@@ -79,7 +79,7 @@ async function ensureCustomer(deps: AppDeps, viewer: Viewer, known: string | nul
       const existing = await client.customers.retrieve(known);
       if (!('deleted' in existing && existing.deleted)) return known;
     } catch (err) {
-      // The local fake forgets its customers when restarted; make the team a new one.
+      // The provider no longer knows it (the local test service's file was removed, say): make the team a new one.
       if (!isMissing(err)) throw err;
     }
   }
@@ -123,7 +123,7 @@ async function updateSubscription(deps: AppDeps, id: string, params: Stripe.Subs
     return await deps.payments.client.subscriptions.update(id, params);
   } catch (err) {
     if (isMissing(err)) {
-      throw new HttpError(409, 'subscription_unknown', 'The payment service no longer knows this subscription (the local test stand-in forgets everything when restarted). Nothing was changed.');
+      throw new HttpError(409, 'subscription_unknown', 'The payment service no longer knows this subscription (if it is the local test service, its file may have been removed). Nothing was changed.');
     }
     throw err;
   }

@@ -26,7 +26,7 @@ async function checkoutPageAtDeskWidth(url: string) {
   const context = await studio.browser.newContext({ viewport: WIDE, deviceScaleFactor: 1 });
   const page = await context.newPage();
   await page.goto(url);
-  await page.getByRole('heading', { name: 'Test payment page — no real money moves' }).waitFor();
+  await page.getByRole('heading', { name: 'Treadle test checkout — no real money moves' }).waitFor();
   await screenshot(page, 'checkout-page-wide');
   await fillCard(page, '4000 0000 0000 0002');
   await page.getByRole('button', { name: /^Pay / }).click();
@@ -44,7 +44,7 @@ describe('the owner’s billing screen and the local checkout page', () => {
 
     await page.getByRole('button', { name: 'Upgrade to Crew' }).click();
     await page.waitForURL(`${studio.server.paymentsUrl}/pay/**`);
-    await page.getByRole('heading', { name: 'Test payment page — no real money moves' }).waitFor();
+    await page.getByRole('heading', { name: 'Treadle test checkout — no real money moves' }).waitFor();
     await screenshot(page, 'checkout-page-phone');
     await checkoutPageAtDeskWidth(page.url());
 

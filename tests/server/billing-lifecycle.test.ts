@@ -43,9 +43,9 @@ describe('a subscription from checkout to cancellation, through the real stripe 
   it('opens a checkout whose page lives on the fake and says it is a test', async () => {
     const res = await owner.post('/api/billing/checkout').send({ plan: 'studio' }).expect(200);
     checkoutUrl = res.body.url;
-    expect(checkoutUrl.startsWith(`${t.payments.fake.url}/pay/cs_test_`)).toBe(true);
+    expect(checkoutUrl.startsWith(`${t.payments.fake.url}/pay/treadle-test-checkout-`)).toBe(true);
     const page = await (await fetch(checkoutUrl)).text();
-    expect(page).toContain('Test payment page — no real money moves');
+    expect(page).toContain('Treadle test checkout — no real money moves');
     expect(page).toContain('€69.00');
   });
 
@@ -64,7 +64,7 @@ describe('a subscription from checkout to cancellation, through the real stripe 
     // 4242 4242 4242 4242: the provider's published test card that always succeeds (Stripe docs, "Testing").
     const res = await payOnCheckoutPage(checkoutUrl, '4242 4242 4242 4242');
     expect(res.status).toBe(303);
-    expect(res.location).toMatch(new RegExp(`^${TEST_PUBLIC_URL}/team/billing\\?checkout=done&session=cs_test_`));
+    expect(res.location).toMatch(new RegExp(`^${TEST_PUBLIC_URL}/team/billing\\?checkout=done&session=treadle-test-checkout-`));
     expect(t.payments.fake.deliveries.map((d) => [d.event.type, d.status])).toEqual([
       ['customer.subscription.created', 200],
       ['invoice.paid', 200],

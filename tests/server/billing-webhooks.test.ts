@@ -50,7 +50,7 @@ describe('the webhook signature', () => {
   ])('refuses %s with 400 and changes nothing', async (_what, sign) => {
     const before = await snapshot();
     const delivered = t.payments.fake.deliveries.find((d) => d.event.type === 'customer.subscription.created')!;
-    const forged = delivered.payload.replace(/"id": "evt_test_\w+"/, '"id": "evt_forged"').replace('"status": "active"', '"status": "canceled"');
+    const forged = delivered.payload.replace(/"id": "treadle-test-event-\w+"/, '"id": "evt_forged"').replace('"status": "active"', '"status": "canceled"');
     const res = await post(forged, sign(forged));
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('bad_signature');
@@ -75,7 +75,7 @@ describe('deliveries more than once and out of order', () => {
     await t.payments.fake.settled();
     // The "created" event (Crew) replayed under a new id, as if its first delivery had been lost and came late.
     const old = t.payments.fake.deliveries.find((d) => d.event.type === 'customer.subscription.created')!;
-    const late = old.payload.replace(/"id": "evt_test_\w+"/, '"id": "evt_late_created"');
+    const late = old.payload.replace(/"id": "treadle-test-event-\w+"/, '"id": "evt_late_created"');
     const res = await post(late, signatureHeader(late, t.payments.deps.webhookSecret));
     expect(res.body).toMatchObject({ duplicate: false, outcome: 'applied' });
     expect((await t.db('team_billing').where({ team_id: teamId }).first()).plan).toBe('studio');
@@ -95,7 +95,7 @@ describe('deliveries more than once and out of order', () => {
     expect(row.subscription_id).not.toBe(first);
 
     const ended = t.payments.fake.deliveries.find((d) => d.event.type === 'customer.subscription.deleted')!;
-    const late = ended.payload.replace(/"id": "evt_test_\w+"/, '"id": "evt_late_deleted"');
+    const late = ended.payload.replace(/"id": "treadle-test-event-\w+"/, '"id": "evt_late_deleted"');
     const res = await post(late, signatureHeader(late, t.payments.deps.webhookSecret));
     expect(res.body).toMatchObject({ duplicate: false, outcome: 'stale_subscription' });
     expect(await t.db('team_billing').where({ team_id: teamId }).first()).toEqual(row);
@@ -103,7 +103,7 @@ describe('deliveries more than once and out of order', () => {
 
   it('a late "open" copy of a paid invoice does not mark it unpaid', async () => {
     const paid = t.payments.fake.deliveries.find((d) => d.event.type === 'invoice.paid')!;
-    const stale = paid.payload.replace(/"id": "evt_test_\w+"/, '"id": "evt_stale_invoice"').replace(/"type": "invoice.paid"/, '"type": "invoice.finalized"').replace('"status": "paid"', '"status": "open"');
+    const stale = paid.payload.replace(/"id": "treadle-test-event-\w+"/, '"id": "evt_stale_invoice"').replace(/"type": "invoice.paid"/, '"type": "invoice.finalized"').replace('"status": "paid"', '"status": "open"');
     await post(stale, signatureHeader(stale, t.payments.deps.webhookSecret)).expect(200);
     const invoice = await t.db('billing_invoices').where({ id: (paid.event.data.object as { id: string }).id }).first();
     expect(invoice.status).toBe('paid');
@@ -123,7 +123,7 @@ it('the SDK refuses to talk to the fake with a live-looking key (the fake accept
   await expect(live.customers.create({})).rejects.toMatchObject({ type: 'StripeAuthenticationError' });
 });
 
-it('activates the plan paid on either of two checkouts opened at once (each may have made its own customer)', async () => {
+it('keeps one checkout open per studio: of two opened at once, the later replaces the earlier, and only it can be paid', async () => {
   const other = await createStudio(t.db, 'twin');
   const agent = await signedIn(t.app, other.members.owner.email);
   const [first, second] = await Promise.all([
@@ -131,9 +131,19 @@ it('activates the plan paid on either of two checkouts opened at once (each may 
     agent.post('/api/billing/checkout').send({ plan: 'studio' }),
   ]);
   expect([first.status, second.status]).toEqual([200, 200]);
-  const paid = await payOnCheckoutPage(first.body.url, '4242 4242 4242 4242');
+  const pages = await Promise.all([first.body.url, second.body.url].map(async (u: string) => (await fetch(u)).status));
+  expect([...pages].sort()).toEqual([200, 410]);
+  // Whichever the service saw first is the one replaced; its page says why and takes no payment.
+  const [openUrl, closedUrl]: string[] = pages[0] === 200 ? [first.body.url, second.body.url] : [second.body.url, first.body.url];
+  const refused = await payOnCheckoutPage(closedUrl, '4242 4242 4242 4242');
+  expect(refused.status).toBe(410);
+  expect(refused.html).toContain('only one can be open at a time');
+  const paid = await payOnCheckoutPage(openUrl, '4242 4242 4242 4242');
   expect(paid.status).toBe(303);
-  expect(await t.db('team_billing').where({ team_id: other.teamId }).first()).toMatchObject({ plan: 'crew', status: 'active' });
-  // The other checkout is still open, but paying it now would make a second subscription: Treadle refuses new ones.
+  const plan = (await t.db('team_billing').where({ team_id: other.teamId }).first()).plan;
+  expect(['crew', 'studio']).toContain(plan);
+  expect(await t.db('team_billing').where({ team_id: other.teamId }).first()).toMatchObject({ status: 'active' });
+  const subscriptions = [...t.payments.fake.store.subscriptions.values()].filter((s) => (s.metadata as { team_id?: string }).team_id === String(other.teamId));
+  expect(subscriptions).toHaveLength(1);
   expect((await agent.post('/api/billing/checkout').send({ plan: 'studio' })).status).toBe(409);
 });

@@ -1,25 +1,33 @@
+import path from 'node:path';
 import express, { Router, type Response } from 'express';
 import type { PaymentsStore } from './store';
 import type { WebhookSender } from './webhooks';
 import { tryCard } from './test-cards';
+import { colors, fonts } from '../../../constants/palette';
+import { projectRoot } from '../../config';
 
 type Session = ReturnType<PaymentsStore['sessions']['get']> & {};
 
-/** The fake's own hosted checkout page: a plain server-rendered form, clearly a local test stand-in. */
+/** The fake's own hosted checkout page: a plain server-rendered form in Treadle's identity, plainly a test on this machine. */
 export function checkoutPage(store: PaymentsStore, sender: WebhookSender): Router {
   const page = Router();
   page.use(express.urlencoded({ extended: false, limit: '10kb' }));
 
+  page.get('/fonts/:file', (req, res) => {
+    if (!CHECKOUT_FONTS[req.params.file]) return void res.status(404).type('text/plain').send('No such font.');
+    res.set('Cache-Control', 'public, max-age=86400').type('font/ttf').sendFile(path.join(projectRoot, 'fonts', req.params.file));
+  });
+
   page.get('/pay/:id', (req, res) => {
     const session = store.sessions.get(req.params.id);
     if (!session) return void send(res, 404, finishedPage('This checkout does not exist.'), null);
-    if (session.status !== 'open') return void send(res, 410, finishedPage('This checkout has already finished.'), session);
+    if (!store.isOpen(session)) return void send(res, 410, finishedPage(closedReason(session)), session);
     send(res, 200, payPage(store, session, {}), session);
   });
 
   page.post('/pay/:id', async (req, res) => {
     const session = store.sessions.get(req.params.id);
-    if (!session || session.status !== 'open') return void send(res, 410, finishedPage('This checkout has already finished.'), session ?? null);
+    if (!session || !store.isOpen(session)) return void send(res, 410, finishedPage(session ? closedReason(session) : 'This checkout does not exist.'), session ?? null);
     const form = req.body as Record<string, string | undefined>;
     const problems: Record<string, string> = {};
     if (!/^(0[1-9]|1[0-2])\s*\/\s*\d{2}$/.test(form.expiry ?? '')) problems.expiry = 'Enter the expiry as MM / YY, e.g. 12 / 30.';
@@ -40,6 +48,12 @@ export function checkoutPage(store: PaymentsStore, sender: WebhookSender): Route
   return page;
 }
 
+function closedReason(session: Session): string {
+  if (session.replaced) return 'The studio opened a newer checkout, which replaces this one: only one can be open at a time. Go back to Treadle and use the newest, or start again.';
+  if (session.status === 'expired') return 'This checkout has expired. Go back to Treadle and start the checkout again.';
+  return 'This checkout has already been paid. Nothing more to do here.';
+}
+
 function send(res: Response, status: number, html: string, session: Session | null) {
   const returnOrigins = session ? [session.success_url, session.cancel_url].filter(Boolean).map((u) => new URL(String(u)).origin) : [];
   res
@@ -48,7 +62,7 @@ function send(res: Response, status: number, html: string, session: Session | nu
       'Content-Type': 'text/html; charset=utf-8',
       'Cache-Control': 'no-store',
       // Chromium applies form-action to the redirect after the form, so Treadle's origin must be allowed there.
-      'Content-Security-Policy': `default-src 'none'; style-src 'unsafe-inline'; form-action 'self' ${returnOrigins.join(' ')}; base-uri 'none'; frame-ancestors 'none'`,
+      'Content-Security-Policy': `default-src 'none'; style-src 'unsafe-inline'; font-src 'self'; form-action 'self' ${returnOrigins.join(' ')}; base-uri 'none'; frame-ancestors 'none'`,
       'Referrer-Policy': 'no-referrer',
     })
     .send(html);
@@ -68,72 +82,103 @@ function payPage(store: PaymentsStore, session: Session, state: PageState): stri
   const product = price ? store.products.get(price.product as string) : undefined;
   const amount = money(session.amount_total as number, String(session.currency));
   const p = state.problems ?? {};
-  const field = (name: string, label: string, attrs: string, value = '') => `
+  const field = (name: string, label: string, attrs: string, hint = '', value = '') => {
+    const described = [hint ? `${name}-hint` : '', p[name] ? `${name}-problem` : ''].filter(Boolean).join(' ');
+    return `
       <label for="${name}">${label}</label>
-      <input id="${name}" name="${name}" ${attrs} value="${esc(value)}"${p[name] ? ` aria-invalid="true" aria-describedby="${name}-problem"` : ''}>
+      ${hint ? `<p class="hint" id="${name}-hint">${hint}</p>` : ''}
+      <input id="${name}" name="${name}" ${attrs} value="${esc(value)}"${p[name] ? ' aria-invalid="true"' : ''}${described ? ` aria-describedby="${described}"` : ''}>
       ${p[name] ? `<p class="problem" id="${name}-problem">${esc(p[name])}</p>` : ''}`;
+  };
   return layout(`
-    <p class="badge">Test mode</p>
-    <h1>Test payment page — no real money moves</h1>
-    <p class="lede">A local stand-in for the payment service, started with Treadle. It accepts only the test card numbers below and never keeps a card number.</p>
-    <section class="order" aria-label="Order">
-      <div><span>${esc(product?.name ?? 'Subscription')}</span><span class="fig">${amount} / month</span></div>
-      <p class="small">Prices are before tax. Billed monthly until cancelled.</p>
+    <h1>Treadle test checkout — no real money moves</h1>
+    ${onThisMachine}
+    <section class="slip" aria-label="What you are paying for">
+      <p class="slip-label">Plan</p>
+      <div class="slip-row"><span class="plan">${esc(product?.name ?? 'Subscription')}</span><span class="fig">${amount} a month</span></div>
+      <p class="small">Before tax. Billed monthly until the studio cancels. Reference <span class="fig">${esc(session.id)}</span></p>
     </section>
     ${state.refusal ? `<div class="refusal" role="alert"><strong>Payment refused.</strong> ${esc(state.refusal)}</div>` : ''}
     <form method="post" action="/pay/${esc(session.id)}" novalidate>
-      ${field('card', 'Card number', 'inputmode="numeric" autocomplete="off" placeholder="4242 4242 4242 4242"')}
+      ${field('card', 'Card number', 'inputmode="numeric" autocomplete="off"', 'Type one of the test numbers listed below. Never a real card.')}
       <div class="row">
-        <div>${field('expiry', 'Expiry (MM / YY)', 'inputmode="numeric" autocomplete="off" placeholder="12 / 30"')}</div>
-        <div>${field('cvc', 'Security code', 'inputmode="numeric" autocomplete="off" placeholder="123"')}</div>
+        <div>${field('expiry', 'Expiry (MM / YY)', 'inputmode="numeric" autocomplete="off" placeholder="MM / YY"')}</div>
+        <div>${field('cvc', 'Security code', 'inputmode="numeric" autocomplete="off" placeholder="3 digits"')}</div>
       </div>
-      ${field('name', 'Name on card', 'autocomplete="off"', state.name)}
+      ${field('name', 'Name on card', 'autocomplete="off"', '', state.name)}
       <button type="submit">Pay ${amount}</button>
     </form>
     ${session.cancel_url ? `<p><a href="${esc(session.cancel_url)}">Cancel and go back to Treadle</a></p>` : ''}
-    <aside class="cards" aria-label="Test cards">
+    <section class="cards" aria-label="Test cards">
       <h2>Test cards</h2>
-      <ul>
-        <li><span class="fig">4242 4242 4242 4242</span> payment succeeds</li>
-        <li><span class="fig">4000 0000 0000 0002</span> card is declined</li>
-      </ul>
-      <p class="small">Any future expiry and any three digits.</p>
-    </aside>`);
+      <table>
+        <tr><td class="fig">4242 4242 4242 4242</td><td>the payment goes through</td></tr>
+        <tr><td class="fig">4000 0000 0000 0002</td><td>the card is declined</td></tr>
+      </table>
+      <p class="small">With any expiry in the future and any three digits. Every other number is refused.</p>
+    </section>`);
 }
+
+const onThisMachine = `<p class="note">This page belongs to Treadle’s own test payment service, which runs on this computer together with Treadle. It takes only the test card numbers listed below, keeps no card number, and charges nothing.</p>`;
 
 function finishedPage(message: string): string {
-  return layout(`<p class="badge">Test mode</p><h1>Test payment page — no real money moves</h1><p class="lede">${esc(message)}</p>`);
+  return layout(`<h1>Treadle test checkout — no real money moves</h1>${onThisMachine}<p class="lede">${esc(message)}</p>`);
 }
 
+/** The font files the page may load from this service (Treadle's own, SIL Open Font License). */
+export const CHECKOUT_FONTS: Record<string, string> = {
+  [`${fonts.heading}.ttf`]: fonts.heading,
+  [`${fonts.body}.ttf`]: fonts.body,
+  [`${fonts.bodyStrong}.ttf`]: fonts.bodyStrong,
+  [`${fonts.mono}.ttf`]: fonts.mono,
+};
+
+const fontFaces = Object.entries(CHECKOUT_FONTS)
+  .map(([file, family]) => `@font-face { font-family: "${family}"; src: url("/fonts/${file}") format("truetype"); font-display: swap; }`)
+  .join('\n  ');
+
 function layout(body: string): string {
+  const c = colors;
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>Test payment — no real money moves</title>
+<title>Treadle test checkout — no real money moves</title>
 <style>
-  :root { --paper:#F5F1E8; --ink:#1E252B; --graphite:#5A6670; --ember:#E4572E; --rule:#D8D1C2; --card:#FBF9F4; --danger:#B3261E; }
+  ${fontFaces}
   * { box-sizing: border-box; }
-  body { margin:0; background:var(--paper); color:var(--ink); font: 16px/1.45 system-ui, -apple-system, "Segoe UI", sans-serif; }
-  main { max-width: 480px; margin: 0 auto; padding: 24px 16px 48px; }
-  h1 { font-size: 24px; line-height: 1.2; margin: 8px 0; }
-  h2 { font-size: 16px; margin: 0 0 8px; }
-  .badge { display:inline-block; margin:0; padding:2px 10px; border:2px dashed var(--ember); border-radius:999px; color:var(--ember); font-weight:700; font-size:13px; letter-spacing:.04em; text-transform:uppercase; }
-  .lede, .small { color: var(--graphite); }
-  .small { font-size: 13px; margin: 4px 0 0; }
-  .order { background: var(--card); border:1px solid var(--rule); border-radius:16px; padding:16px; margin:16px 0; }
-  .order div { display:flex; justify-content:space-between; gap:12px; font-weight:600; }
-  .fig { font-family: ui-monospace, "SFMono-Regular", Menlo, Consolas, monospace; font-variant-numeric: tabular-nums; }
+  body { margin:0; background:${c.paper}; color:${c.ink}; font: 16px/1.45 "${fonts.body}", system-ui, sans-serif; }
+  header { background:${c.ink}; color:${c.onInk}; }
+  header div { max-width: 520px; margin: 0 auto; padding: 14px 16px; display:flex; align-items:baseline; justify-content:space-between; gap:12px; flex-wrap:wrap; }
+  .wordmark { font: 24px/1 "${fonts.heading}", system-ui, sans-serif; letter-spacing: .01em; }
+  .wordmark span { color:${c.ember}; }
+  .where { font-size: 13px; color:${c.rule}; }
+  main { max-width: 520px; margin: 0 auto; padding: 20px 16px 48px; }
+  h1 { font: 25px/30px "${fonts.heading}", system-ui, sans-serif; margin: 8px 0 12px; }
+  h2 { font: 17px/22px "${fonts.heading}", system-ui, sans-serif; margin: 0 0 8px; }
+  .note { margin:0 0 16px; padding:12px 14px; background:${c.paperDeep}; border-left:4px solid ${c.ember}; border-radius:6px; font-size:14px; }
+  .lede, .small, .hint { color:${c.graphite}; }
+  .small, .hint { font-size: 13px; margin: 4px 0 0; }
+  .slip { background:${c.card}; border:1px solid ${c.rule}; border-radius:10px; padding:14px 16px; margin:0 0 16px; }
+  .slip-label { margin:0; font-size:12px; letter-spacing:.06em; text-transform:uppercase; color:${c.graphite}; }
+  .slip-row { display:flex; justify-content:space-between; align-items:baseline; gap:12px; margin-top:4px; }
+  .plan { font: 20px/26px "${fonts.heading}", system-ui, sans-serif; }
+  .fig { font-family: "${fonts.mono}", ui-monospace, monospace; font-variant-numeric: tabular-nums; }
   form { display:flex; flex-direction:column; gap:6px; }
-  label { font-weight:600; font-size:14px; margin-top:8px; }
-  input { min-height:44px; padding:8px 12px; font:inherit; border:1.5px solid var(--rule); border-radius:10px; background:#fff; color:var(--ink); width:100%; }
-  input[aria-invalid="true"] { border-color: var(--danger); }
+  label { font-family:"${fonts.bodyStrong}", system-ui, sans-serif; font-size:14px; margin-top:10px; }
+  .hint { margin:0; }
+  input { min-height:44px; padding:8px 12px; font:inherit; border:1.5px solid ${c.rule}; border-radius:10px; background:${c.card}; color:${c.ink}; width:100%; }
+  input::placeholder { color:${c.graphite}; opacity:.7; }
+  input:focus { outline: 3px solid ${c.ember}; outline-offset: 1px; }
+  input[aria-invalid="true"] { border-color:${c.danger}; }
   .row { display:flex; gap:12px; } .row > div { flex:1; display:flex; flex-direction:column; gap:6px; }
-  .problem { color: var(--danger); font-size: 13px; margin: 0; }
-  button { margin-top:16px; min-height:48px; border:0; border-radius:10px; background:var(--ember); color:var(--paper); font:inherit; font-weight:700; cursor:pointer; }
-  button:hover { background:#C4461F; }
-  a { color: var(--ink); display:inline-block; min-height:44px; line-height:44px; }
-  .refusal { border-left:4px solid var(--danger); background:#F6E3DF; padding:12px; border-radius:6px; margin: 8px 0 16px; }
-  .cards { margin-top: 24px; border-top: 1px solid var(--rule); padding-top: 16px; }
-  .cards ul { list-style:none; padding:0; margin:0; display:flex; flex-direction:column; gap:6px; }
+  .problem { color:${c.danger}; font-size:13px; margin:0; }
+  button { margin-top:18px; min-height:48px; border:0; border-radius:10px; background:${c.ember}; color:${c.onInk}; font: 16px "${fonts.bodyStrong}", system-ui, sans-serif; cursor:pointer; }
+  button:hover { background:${c.emberPressed}; }
+  a { color:${c.ink}; display:inline-block; min-height:44px; line-height:44px; font-family:"${fonts.bodyStrong}", system-ui, sans-serif; }
+  .refusal { border-left:4px solid ${c.danger}; background:#F6E3DF; padding:12px; border-radius:6px; margin: 0 0 12px; }
+  .cards { margin-top: 24px; border-top: 1px solid ${c.rule}; padding-top: 16px; }
+  .cards table { border-collapse: collapse; width: 100%; }
+  .cards td { padding: 6px 0; border-bottom: 1px solid ${c.rule}; vertical-align: top; }
+  .cards td.fig { white-space: nowrap; padding-right: 16px; }
 </style></head>
-<body><main>${body}</main></body></html>`;
+<body><header><div><span class="wordmark">Treadle<span>.</span></span><span class="where">Test checkout · on this computer</span></div></header><main>${body}</main></body></html>`;
 }

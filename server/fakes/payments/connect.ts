@@ -14,9 +14,12 @@ export interface LocalPayments {
   fake: RunningPaymentsFake;
 }
 
-/** Starts the fake with a fresh webhook secret and builds the app's payment dependencies over it. */
-export async function startLocalPayments(options: { port?: number; webhookUrl?: string } = {}): Promise<LocalPayments> {
+/**
+ * Starts the fake with a fresh webhook secret and builds the app's payment dependencies over it. `stateFile` is the
+ * fake's own SQLite file (data/payments.sqlite for `npm start`); without it the state lasts until stop().
+ */
+export async function startLocalPayments(options: { port?: number; webhookUrl?: string; stateFile?: string } = {}): Promise<LocalPayments> {
   const webhookSecret = `whsec_${crypto.randomBytes(24).toString('hex')}`;
-  const fake = await startPaymentsFake({ port: options.port, webhookUrl: options.webhookUrl, webhookSecret });
+  const fake = await startPaymentsFake({ port: options.port, webhookUrl: options.webhookUrl, webhookSecret, stateFile: options.stateFile });
   return { fake, deps: { client: stripeForFake(fake.url), webhookSecret, testMode: true } };
 }

@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import express from 'express';
 import Stripe from 'stripe';
 import { PaymentsStore } from './store';
+import { FakeStateFile } from './persistence';
 import { WebhookSender, type Delivery } from './webhooks';
 import { paymentsApi } from './api';
 import { checkoutPage } from './checkout-page';
@@ -13,6 +14,8 @@ export interface PaymentsFakeOptions {
   /** Where events are posted; a function when Treadle's address is known only once it listens. */
   webhookUrl?: string | (() => string | undefined);
   webhookSecret: string;
+  /** The fake's own SQLite file; without one it keeps its state in a temporary file removed by stop(). */
+  stateFile?: string;
 }
 
 export interface RunningPaymentsFake {
@@ -34,7 +37,8 @@ export interface RunningPaymentsFake {
 export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<RunningPaymentsFake> {
   let webhookUrl = options.webhookUrl;
   const sender = new WebhookSender(() => (typeof webhookUrl === 'function' ? webhookUrl() : webhookUrl), options.webhookSecret);
-  const store = new PaymentsStore((event) => sender.send(event), Stripe.API_VERSION);
+  const file = new FakeStateFile(options.stateFile);
+  const store = new PaymentsStore((event) => sender.send(event), Stripe.API_VERSION, file);
   let base = '';
 
   const app = express();
@@ -43,7 +47,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<R
   app.set('query parser', 'extended');
   app.use('/v1', paymentsApi(store, () => base));
   app.use(checkoutPage(store, sender));
-  app.get('/', (_req, res) => void res.type('text/plain').send('Local test stand-in for the payment service. No real money moves.'));
+  app.get('/', (_req, res) => void res.type('text/plain').send('Treadle’s own test payment service, on this machine. No real money moves.'));
   // Quietly: the default handler would print the request's stack trace, and this page's requests carry card fields.
   app.use((_err: unknown, _req: express.Request, res: express.Response, _next: express.NextFunction) => {
     res.status(500).type('text/plain').send('The local payment fake failed; nothing was charged.');
@@ -74,6 +78,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<R
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      file.close();
     },
   };
 }

@@ -1,5 +1,6 @@
 import { newId } from './ids';
 import { badParam, missing } from './errors';
+import { FakeStateFile, KeptMap } from './persistence';
 
 /** The fake's objects, shaped like the provider's (only the fields Treadle reads, plus a few for realism). */
 type Obj = Record<string, unknown> & { id: string };
@@ -7,21 +8,31 @@ export type FakeEvent = { id: string; object: 'event'; type: string; created: nu
 
 const PERIOD_SECONDS = 30 * 24 * 3600;
 
-/** All state of the fake payment service, in memory: it forgets everything when stopped. */
+/** All state of the fake payment service, kept in its own SQLite file (persistence.ts) so a restart forgets nothing. */
 export class PaymentsStore {
-  readonly customers = new Map<string, Obj>();
-  readonly products = new Map<string, Obj>();
-  readonly prices = new Map<string, Obj>();
-  readonly sessions = new Map<string, Obj & { line_price: string }>();
-  readonly subscriptions = new Map<string, Obj>();
-  readonly invoices = new Map<string, Obj>();
-  private invoiceCount = 0;
-  private offsetSeconds = 0;
+  readonly customers: KeptMap<Obj>;
+  readonly products: KeptMap<Obj>;
+  readonly prices: KeptMap<Obj>;
+  readonly sessions: KeptMap<Obj & { line_price: string }>;
+  readonly subscriptions: KeptMap<Obj>;
+  readonly invoices: KeptMap<Obj>;
+  private invoiceCount: number;
+  private offsetSeconds: number;
 
   constructor(
     private readonly emit: (event: FakeEvent) => void,
     private readonly apiVersion: string,
-  ) {}
+    private readonly file: FakeStateFile,
+  ) {
+    this.customers = new KeptMap(file, 'customers');
+    this.products = new KeptMap(file, 'products');
+    this.prices = new KeptMap(file, 'prices');
+    this.sessions = new KeptMap(file, 'sessions');
+    this.subscriptions = new KeptMap(file, 'subscriptions');
+    this.invoices = new KeptMap(file, 'invoices');
+    this.invoiceCount = Number(file.meta('invoiceCount') ?? 0);
+    this.offsetSeconds = Number(file.meta('offsetSeconds') ?? 0);
+  }
 
   /** The fake's clock, in the provider's epoch seconds; tests move it with advance(). */
   now(): number {
@@ -30,7 +41,7 @@ export class PaymentsStore {
 
   event(type: string, object: Obj): void {
     this.emit({
-      id: newId('evt'),
+      id: newId('event'),
       object: 'event',
       type,
       created: this.now(),
@@ -49,14 +60,14 @@ export class PaymentsStore {
   }
 
   createCustomer(p: Record<string, unknown>): Obj {
-    const c: Obj = { id: newId('cus'), object: 'customer', created: this.now(), email: p.email ?? null, name: p.name ?? null, metadata: p.metadata ?? {}, livemode: false };
+    const c: Obj = { id: newId('customer'), object: 'customer', created: this.now(), email: p.email ?? null, name: p.name ?? null, metadata: p.metadata ?? {}, livemode: false };
     this.customers.set(c.id, c);
     return c;
   }
 
   createProduct(p: Record<string, unknown>): Obj {
     if (!p.name) throw badParam('name', 'Missing required param: name.');
-    const product: Obj = { id: newId('prod'), object: 'product', active: true, name: p.name, metadata: p.metadata ?? {}, created: this.now(), livemode: false };
+    const product: Obj = { id: newId('product'), object: 'product', active: true, name: p.name, metadata: p.metadata ?? {}, created: this.now(), livemode: false };
     this.products.set(product.id, product);
     return product;
   }
@@ -92,7 +103,8 @@ export class PaymentsStore {
     if (!priceId || items.length !== 1) throw badParam('line_items', 'Pass exactly one line item with a price.');
     const price = this.get(this.prices, 'price', priceId);
     if (p.customer) this.get(this.customers, 'customer', String(p.customer));
-    const id = newId('cs');
+    this.closeOpenCheckoutsOf(p.client_reference_id ?? null, p.customer ?? null);
+    const id = newId('checkout');
     const session = {
       id,
       object: 'checkout.session',
@@ -125,7 +137,7 @@ export class PaymentsStore {
     const customerId = (session.customer as string | null) ?? this.createCustomer({}).id;
     const price = this.get(this.prices, 'price', session.line_price);
     const start = this.now();
-    const subId = newId('sub');
+    const subId = newId('subscription');
     const sub: Obj = {
       id: subId,
       object: 'subscription',
@@ -140,22 +152,49 @@ export class PaymentsStore {
       currency: price.currency,
       metadata: session.subscription_metadata,
       // Only the brand and last four digits are kept: the fake never holds a whole card number.
-      default_payment_method: { id: newId('pm'), object: 'payment_method', type: 'card', card: { brand: card.brand, last4: card.last4 } },
+      default_payment_method: { id: newId('card'), object: 'payment_method', type: 'card', card: { brand: card.brand, last4: card.last4 } },
       items: { object: 'list', has_more: false, data: [this.subscriptionItem(subId, price, start)] },
       livemode: false,
     };
     this.subscriptions.set(subId, sub);
     const invoice = this.createInvoice(sub, 'subscription_create', price.unit_amount as number, `${this.productName(price)} (monthly)`);
     Object.assign(session, { status: 'complete', payment_status: 'paid', subscription: subId, customer: customerId });
+    this.sessions.keep(session);
     sub.latest_invoice = invoice.id;
+    this.subscriptions.keep(sub);
     this.event('customer.subscription.created', sub);
     this.event('invoice.paid', invoice);
     this.event('checkout.session.completed', this.publicSession(session));
     return session;
   }
 
+  /**
+   * One open checkout per team (by Treadle's team reference, else by customer): opening another closes the earlier
+   * ones, so two checkouts of one studio can never both be paid.
+   */
+  private closeOpenCheckoutsOf(reference: unknown, customer: unknown): void {
+    for (const other of this.sessions.values()) {
+      if (other.status !== 'open') continue;
+      const sameTeam = reference !== null ? other.client_reference_id === reference : customer !== null && other.customer === customer;
+      if (!sameTeam) continue;
+      Object.assign(other, { status: 'expired', replaced: true });
+      this.sessions.keep(other);
+      this.event('checkout.session.expired', this.publicSession(other));
+    }
+  }
+
+  /** Open and not past its expiry; one that ran out is marked expired on the way. */
+  isOpen(session: Obj & { line_price: string }): boolean {
+    if (session.status === 'open' && (session.expires_at as number) <= this.now()) {
+      Object.assign(session, { status: 'expired' });
+      this.sessions.keep(session);
+      this.event('checkout.session.expired', this.publicSession(session));
+    }
+    return session.status === 'open';
+  }
+
   publicSession(session: Obj): Obj {
-    const { line_price: _hidden, subscription_metadata: _meta, ...rest } = session;
+    const { line_price: _hidden, subscription_metadata: _meta, replaced: _replaced, ...rest } = session;
     return rest as Obj;
   }
 
@@ -193,6 +232,7 @@ export class PaymentsStore {
       sub.canceled_at = cancel ? this.now() : null;
     }
     if (p.metadata) sub.metadata = { ...(sub.metadata as object), ...(p.metadata as object) };
+    this.subscriptions.keep(sub);
     this.event('customer.subscription.updated', { ...sub, previous_attributes: previous } as Obj);
     return sub;
   }
@@ -200,6 +240,7 @@ export class PaymentsStore {
   cancelNow(id: string): Obj {
     const sub = this.get(this.subscriptions, 'subscription', id);
     Object.assign(sub, { status: 'canceled', ended_at: this.now(), canceled_at: this.now(), cancel_at_period_end: false });
+    this.subscriptions.keep(sub);
     this.event('customer.subscription.deleted', sub);
     return sub;
   }
@@ -207,10 +248,12 @@ export class PaymentsStore {
   /** Moves the fake's clock on; subscriptions whose period ended renew (with an invoice) or end. */
   advance(seconds: number): void {
     this.offsetSeconds += seconds;
+    this.file.setMeta('offsetSeconds', String(this.offsetSeconds));
     for (const sub of this.subscriptions.values()) {
       while (sub.status === 'active' && this.periodEnd(sub) <= this.now()) {
         if (sub.cancel_at_period_end) {
           Object.assign(sub, { status: 'canceled', ended_at: this.periodEnd(sub) });
+          this.subscriptions.keep(sub);
           this.event('customer.subscription.deleted', sub);
           break;
         }
@@ -220,6 +263,7 @@ export class PaymentsStore {
         const price = item.price as Obj;
         const invoice = this.createInvoice(sub, 'subscription_cycle', price.unit_amount as number, `${this.productName(price)} (monthly)`);
         sub.latest_invoice = invoice.id;
+        this.subscriptions.keep(sub);
         this.event('invoice.paid', invoice);
         this.event('customer.subscription.updated', sub);
       }
@@ -237,7 +281,7 @@ export class PaymentsStore {
   }
 
   private subscriptionItem(subId: string, price: Obj, start: number): Obj {
-    return { id: newId('si'), object: 'subscription_item', subscription: subId, price, quantity: 1, created: start, current_period_start: start, current_period_end: start + PERIOD_SECONDS };
+    return { id: newId('item'), object: 'subscription_item', subscription: subId, price, quantity: 1, created: start, current_period_start: start, current_period_end: start + PERIOD_SECONDS };
   }
 
   private periodEnd(sub: Obj): number {
@@ -251,11 +295,12 @@ export class PaymentsStore {
   private createInvoice(sub: Obj, reason: string, total: number, description: string): Obj {
     const item = (sub.items as { data: Obj[] }).data[0];
     this.invoiceCount += 1;
+    this.file.setMeta('invoiceCount', String(this.invoiceCount));
     const amountDue = Math.max(0, total);
     const invoice: Obj = {
-      id: newId('in'),
+      id: newId('invoice'),
       object: 'invoice',
-      number: `TEST-${String(this.invoiceCount).padStart(4, '0')}`,
+      number: `TT-${String(this.invoiceCount).padStart(4, '0')}`,
       customer: sub.customer,
       status: 'paid',
       billing_reason: reason,
