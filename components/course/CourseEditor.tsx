@@ -160,7 +160,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
       <Button label="Redo" tone="quiet" disabled={!history.canRedo || !!stroke.current} onPress={() => history.redo(hf) && settle()} />
       <Button label="Save" busy={saving} disabled={!dirty || !!conflict} onPress={save} />
       <Text style={styles.status} role="status">
-        {status ?? (dirty ? 'Unsaved changes' : `Version ${baseVersion}, nothing to save`)}
+        {status ?? (dirty ? 'Unsaved changes' : `Version ${baseVersion}, nothing to save${history.canUndo ? '' : ' or undo'}`)}
       </Text>
     </View>
   ) : null;
@@ -228,6 +228,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
             {toolbar}
             {paintSwitch}
             {mayEdit ? <BrushBar value={brush} onChange={setBrush} disabled={!paint} /> : null}
+            {mayEdit && !paint ? <Text style={styles.hint}>The brush is off while a drag on the map scrolls; choose Paint to sculpt.</Text> : null}
             {details}
           </View>
         </View>

@@ -42,7 +42,7 @@ function inDisplayUnit(key: string, message: string): string {
 /** Brings a block into view on the web (react-native-web Views are DOM elements); a no-op elsewhere. */
 function scrollIntoView(ref: React.RefObject<View | null>) {
   const el = ref.current as unknown as { scrollIntoView?: (o: object) => void } | null;
-  el?.scrollIntoView?.({ block: 'start', behavior: 'smooth' });
+  el?.scrollIntoView?.({ block: 'start' });
 }
 
 /** Dial-in: what to tune and in which bounds (each with its value now), the suite, the budget and its cost; progress in view once started; before/after, and accept only when it found something. */
@@ -65,10 +65,12 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
   useEffect(() => {
     if (!suiteId && suites.data?.suites.length) setSuiteId(String(suites.data.suites[0].id));
   }, [suiteId, suites.data]);
-  useEffect(() => {
-    if (jobId !== null) scrollIntoView(progressRef);
-  }, [jobId]);
   const status = job.data?.status;
+  const hasProgress = jobId !== null && !!job.data;
+  // Once the progress card is there (first poll of the job), bring it into view.
+  useEffect(() => {
+    if (hasProgress) scrollIntoView(progressRef);
+  }, [hasProgress, jobId]);
   useEffect(() => {
     if (status === 'done') allowance.refetch();
   }, [status]);

@@ -6,7 +6,7 @@ import { colors, fonts, radius, space, type } from '../../constants/theme';
 import { useTrials } from '../../hooks/useTrials';
 import { StumbleGlyph } from '../trial/StumbleGlyph';
 import { STUMBLE_LABELS } from '../trial/stumble-glyphs';
-import { startStumbles, type StumbleRates } from './outcome';
+import { penalties, startStumbles, stopReasonText, type StumbleRates } from './outcome';
 
 interface CourseWhy {
   courseId: number;
@@ -35,6 +35,8 @@ export function NoGainPanel({ result, characterId }: { result: DialInResult; cha
     const rates = stored ? (Object.fromEntries(STUMBLE_KINDS.map((k) => [k, stored.metrics.stumbles[k]?.per100Steps ?? 0])) as StumbleRates) : null;
     return { courseId: c.courseId, courseName: c.courseName, score: c.footingScore, rates, trialId: stored?.id ?? null };
   });
+  const p = penalties(result);
+  const stopped = stopReasonText(result);
   const allZero = before.perCourse.length > 0 && before.perCourse.every((c) => Math.round(c.footingScore * 10) === 0);
   return (
     <View style={styles.box} testID="dial-in-no-gain" role="status">
@@ -45,6 +47,13 @@ export function NoGainPanel({ result, characterId }: { result: DialInResult; cha
         The best of {result.candidatesTried} candidates scored {after.footingScore.toFixed(1)} over the suite, the start {before.footingScore.toFixed(1)}. There is nothing to save, so
         there is no Accept.
       </Text>
+      {stopped ? <Text style={styles.body}>The search ended because {stopped}.</Text> : null}
+      {p ? (
+        <Text style={styles.body}>
+          Its penalty P (the score is 100·e^(−P)) went from <Text style={styles.fig}>{p.start.toFixed(2)}</Text> at the start to{' '}
+          <Text style={styles.fig}>{p.best.toFixed(2)}</Text> for the best{p.best < p.start ? ': a little steadier, but not enough to move the score' : ''}.
+        </Text>
+      ) : null}
       {allZero ? (
         <Text style={styles.body}>
           The start scored 0.0 on every course. The score is 100·e^(−penalty), so once stumbles are this frequent it rests at 0 and a better candidate within these

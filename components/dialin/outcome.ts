@@ -24,8 +24,10 @@ export const isBetter = (before: number, after: number) => rounded(after) > roun
 /** Found nothing worth saving: the best is no better than the start once both are rounded as shown. */
 export function foundNothing(result: DialInResult | undefined): boolean {
   const gain = shownGain(result);
-  const flagged = (result as { improved?: unknown } | undefined)?.improved;
-  if (flagged === false) return true;
+  // The server's own verdict (the best's penalty below the start's) can only take a gain away, never add one:
+  // a lower penalty that still shows the same score is nothing the reader can see.
+  const flagged = (result as { beatsStart?: unknown; improved?: unknown } | undefined);
+  if (flagged?.beatsStart === false || flagged?.improved === false) return true;
   return gain !== null && gain <= 0;
 }
 
@@ -72,4 +74,23 @@ export function valueAt(setup: unknown, key: string): number | null {
   if (!t) return null;
   const v = t.path.reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], setup);
   return typeof v === 'number' ? v : null;
+}
+
+/** The mean penalty P (score = 100·e^(−P)) of the start and the best, when the result carries them. */
+export function penalties(result: DialInResult): { start: number; best: number } | null {
+  const start = (result.before as { penalty?: unknown } | undefined)?.penalty;
+  const best = (result.after as { penalty?: unknown } | undefined)?.penalty;
+  return typeof start === 'number' && typeof best === 'number' ? { start, best } : null;
+}
+
+const STOP_REASONS: Record<string, string> = {
+  budget: 'it tried every candidate of its budget',
+  stalled: 'no candidate improved on the best for a while',
+  converged: 'every search settled on one point',
+};
+
+/** Why the search ended, in words, when the result says. */
+export function stopReasonText(result: DialInResult): string | null {
+  const r = (result as { stopReason?: unknown }).stopReason;
+  return typeof r === 'string' ? (STOP_REASONS[r] ?? null) : null;
 }

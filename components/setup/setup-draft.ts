@@ -19,6 +19,8 @@ export interface NumberField {
   methods?: readonly SolverMethod[];
   /** Read only when the sole is turned to the ground. */
   orientation?: boolean;
+  /** Carried through the form unchanged but not shown. */
+  hidden?: boolean;
 }
 
 const JACOBIAN: readonly SolverMethod[] = ['dls', 'sdls', 'transpose', 'pseudoinverse', 'adaptive'];
@@ -37,12 +39,13 @@ export const SOLVER_FIELDS: NumberField[] = [
   { path: 'solver.clampDistance', label: 'Task error clamp', unit: 'm', nullable: 'blank = off, 0 = automatic', methods: JACOBIAN },
   { path: 'solver.orientationTolerance', label: 'Orientation tolerance', unit: '°', degrees: true, orientation: true },
   { path: 'solver.orientationWeight', label: 'Orientation weight', unit: 'm/rad', orientation: true },
-  { path: 'solver.minStep', label: 'Smallest useful step', unit: '°', degrees: true },
+  // The engine's stall detector (a step this small ends the solve): kept in the setup, not offered in the form.
+  { path: 'solver.minStep', label: 'Smallest useful step', unit: '°', degrees: true, hidden: true },
 ];
 
 /** The fields the chosen method reads (and the orientation ones only when the sole is turned). */
 export function solverFieldsFor(method: string, orientation: boolean): NumberField[] {
-  return SOLVER_FIELDS.filter((f) => (!f.methods || f.methods.includes(method as SolverMethod)) && (!f.orientation || orientation));
+  return SOLVER_FIELDS.filter((f) => !f.hidden && (!f.methods || f.methods.includes(method as SolverMethod)) && (!f.orientation || orientation));
 }
 
 /** Whether the chosen method reads the Jacobian-only switches (null-space bias, re-solve at limits). */
@@ -84,7 +87,13 @@ export const DEG_PER_RAD = 180 / Math.PI;
  * The exact value is kept beside it under "exact:<path>", and used again while the field still shows its
  * rounding, so loading a version and saving it unchanged does not move it.
  */
-export const roundedText = (v: number) => (Number.isInteger(v) ? String(v) : String(parseFloat(v.toPrecision(3))));
+export function roundedText(v: number): string {
+  if (Number.isInteger(v)) return String(v);
+  const x = parseFloat(v.toPrecision(3));
+  const text = String(x);
+  // Never "5.73e-8" in a field: write the zeros out.
+  return text.includes('e') ? x.toFixed(Math.min(20, Math.ceil(-Math.log10(Math.abs(x))) + 2)) : text;
+}
 
 function setNumber(d: Draft, path: string, v: unknown, scale = 1) {
   if (v === null || v === undefined) {

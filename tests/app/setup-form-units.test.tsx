@@ -40,6 +40,8 @@ describe('rounded display', () => {
     expect(edited.gait.timing.mode === 'speed' && edited.gait.timing.speed).toBe(1.2);
     // Whole numbers stay whole: an iteration budget of 1234 is not rounded to 1230.
     expect(roundedText(1234)).toBe('1234');
+    // Tiny values are written out, never in exponent form.
+    expect(roundedText(5.72957795e-8)).toBe('0.0000000573');
   });
 });
 
