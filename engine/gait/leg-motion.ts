@@ -13,10 +13,11 @@
 import * as ikKinematics from '../ik/kinematics';
 import * as ikWorkspace from '../ik/workspace';
 import { pullInsideReach, pushOutsideFold, TARGET_MAX } from './reach';
+import type { IKWorkspace } from '../ik/workspace';
 import type { Trial } from './trial-state';
 
 const { forwardKinematics } = ikKinematics;
-const { setPose, DOF_SLIDE } = ikWorkspace;
+const { setPose, DOF_BALL, DOF_SLIDE } = ikWorkspace;
 
 /** Share of the stance after which the heel comes up and the sole rolls onto its point. */
 const HEEL_OFF = 0.5;
@@ -97,4 +98,73 @@ export function limitLegMotion(t: Trial, i: number, aim: Float64Array): void {
   const dy = f[1] - aim[1];
   const dz = f[2] - aim[2];
   t.error[i] = Math.sqrt(dx * dx + dy * dy + dz * dz);
+}
+
+/**
+ * The knee's straight limit, found once per leg: the limit of the knee DOF
+ * that puts the sole further from the hip (rest pose otherwise). Writes the
+ * straight value and the sign of bending (+1: bending raises the DOF) into
+ * out; returns the DOF index, or -1 when the leg has no hinge knee.
+ */
+export function findStraightKnee(ws: IKWorkspace, kneeJoint: number | undefined, out: Float64Array): number {
+  if (kneeJoint === undefined || kneeJoint < 1 || kneeJoint >= ws.nJoints) return -1;
+  const d = ws.jDof0[kneeJoint];
+  if (d < 0 || ws.dKind[d] === DOF_BALL || ws.dKind[d] === DOF_SLIDE) return -1;
+  const lo = ws.lo[d];
+  const hi = ws.hi[d];
+  if (!Number.isFinite(lo) || !Number.isFinite(hi)) return -1;
+  const saved = ws.pose[d];
+  ws.pose[d] = lo;
+  forwardKinematics(ws);
+  const atLo = Math.hypot(ws.foot[0] - ws.rootPos[0], ws.foot[1] - ws.rootPos[1], ws.foot[2] - ws.rootPos[2]);
+  ws.pose[d] = hi;
+  forwardKinematics(ws);
+  const atHi = Math.hypot(ws.foot[0] - ws.rootPos[0], ws.foot[1] - ws.rootPos[1], ws.foot[2] - ws.rootPos[2]);
+  ws.pose[d] = saved;
+  forwardKinematics(ws);
+  out[0] = atLo >= atHi ? lo : hi;
+  out[1] = atLo >= atHi ? 1 : -1;
+  return d;
+}
+
+/** A knee within this of its straight limit, rad, is preshaped. */
+const KNEE_NEAR_STRAIGHT = 0.15;
+
+/**
+ * Two-bone preshaping of the warm start: the knee is set to the bend that
+ * makes the hip-to-sole distance what the aim asks for (law of cosines over
+ * the thigh and the knee-to-sole segment as they stand), and the solver then
+ * only turns the leg to the aim. A damped least-squares step alone takes the
+ * cheapest motion, and for a foot that must rise behind the hip that is
+ * swinging a straight leg forward, through the ground, rather than bending
+ * the knee; at full extension the knee's Jacobian column has no component
+ * along the leg at all, so a straight knee never bends by itself.
+ */
+export function preshapeKnee(t: Trial, i: number, aim: Float64Array): void {
+  const d = t.kneeDof[i];
+  if (d < 0) return;
+  const ws = t.solvers[i];
+  // Only a knee near its straight limit: a bent one is left to the solver, which follows it smoothly.
+  if (Math.abs(ws.pose[d] - t.kneeStraight[2 * i]) > KNEE_NEAR_STRAIGHT) return;
+  forwardKinematics(ws);
+  const k = 3 * (t.rig.legs[i].chain.knee as number);
+  const p = ws.jPos;
+  const hx = p[0];
+  const hy = p[1];
+  const hz = p[2];
+  const a = Math.hypot(p[k] - hx, p[k + 1] - hy, p[k + 2] - hz);
+  const f = ws.foot;
+  const b = Math.hypot(f[0] - p[k], f[1] - p[k + 1], f[2] - p[k + 2]);
+  if (!(a > 1e-9 && b > 1e-9)) return;
+  const now = Math.hypot(f[0] - hx, f[1] - hy, f[2] - hz);
+  let want = Math.hypot(aim[0] - hx, aim[1] - hy, aim[2] - hz);
+  const shortest = Math.abs(a - b) + 1e-6;
+  const longest = a + b - 1e-6;
+  want = want < shortest ? shortest : want > longest ? longest : want;
+  const inner = (c: number) => {
+    const cos = (a * a + b * b - c * c) / (2 * a * b);
+    return Math.acos(cos > 1 ? 1 : cos < -1 ? -1 : cos);
+  };
+  const v = ws.pose[d] + (inner(now) - inner(want)) * t.kneeStraight[2 * i + 1];
+  ws.pose[d] = v < ws.lo[d] ? ws.lo[d] : v > ws.hi[d] ? ws.hi[d] : v;
 }

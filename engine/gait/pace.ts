@@ -1,9 +1,17 @@
 /**
  * Pace: how fast the body walks, as a share of the gait speed, from the
  * ground ahead. The gait clock keeps its cadence, so a slower pace means
- * shorter steps: on stairs and steep ramps each swing climbs no more than a
- * set share of the leg's reach (about two code risers for a human leg, as
- * people climb stairs one tread a step: common practice, no source).
+ * shorter steps.
+ *
+ * - Stairs (a run of edges at a regular spacing, all up or all down): each
+ *   swing carries the foot a whole number of treads, as many as keep its
+ *   climb within RISE_PER_SWING of the leg's reach (at least one), so every
+ *   foot lands on a tread, not a nosing.
+ * - Other ground: each swing climbs or descends no more than RISE_PER_SWING
+ *   of the reach, measured on the ground's upper envelope so that a narrow
+ *   gap (which is stepped over, not into) does not count as a drop.
+ * The rule of thumb behind RISE_PER_SWING: people climb code stairs one tread
+ * a step, two risers a swing (common practice, no source).
  */
 import * as sample from '../course/sample';
 import type { Trial } from './trial-state';
@@ -13,13 +21,25 @@ const { heightAt } = sample;
 /** Largest height change one swing may climb or descend, as a share of the shortest leg's reach. */
 export const RISE_PER_SWING = 0.33;
 /** The body never slows below this share of the gait speed. */
-export const SLOWEST_PACE = 0.25;
-/** 2 % settling time of the pace filter, s: the walk slows over about a step. */
+export const SLOWEST_PACE = 0.2;
+/** 2 % settling time of the pace filter, s: the walk changes speed over about a step. */
 export const PACE_SETTLE_SECONDS = 0.6;
-/** Samples along the look-ahead window. */
-const SAMPLES = 24;
+/** Profile sample spacing along the walk, m, and the most samples looked at. */
+const SAMPLE_STEP = 0.02;
+const MAX_SAMPLES = 256;
+/** A height change steeper than this between neighbouring samples is an edge (a riser, a curb, a rim). */
+const EDGE_RISE = 0.025;
+/** Gaps up to this wide are bridged by the upper envelope, m. */
+const ENVELOPE_HALF_WIDTH = 0.15;
+/** Treads of one stair run differ by less than this share. */
+const TREAD_TOLERANCE = 0.2;
 
-/** The pace the ground ahead asks for: the largest height change over one stride between the rearmost hip and a stride past the front feet. */
+const profile = new Float64Array(MAX_SAMPLES);
+const envelope = new Float64Array(MAX_SAMPLES);
+const edgeAt = new Float64Array(MAX_SAMPLES);
+const edgeRise = new Float64Array(MAX_SAMPLES);
+
+/** The pace the ground ahead asks for, between the rearmost hip and a stride and a half past the front feet. */
 export function terrainPace(t: Trial): number {
   const stride = t.gait.stride;
   let rear = Infinity;
@@ -32,15 +52,69 @@ export function terrainPace(t: Trial): number {
   }
   const z0 = t.bodyPos[2] + rear - stride / 2;
   const z1 = t.bodyPos[2] + front + 1.5 * stride;
-  const step = (z1 - z0) / SAMPLES;
+  const n = Math.min(MAX_SAMPLES, Math.max(2, Math.ceil((z1 - z0) / SAMPLE_STEP) + 1));
+  const step = (z1 - z0) / (n - 1);
+  for (let k = 0; k < n; k++) profile[k] = heightAt(t.course, 0, z0 + k * step);
+  const allowed = RISE_PER_SWING * reach;
+
+  const stairs = stairPace(n, step, stride, allowed);
+  if (stairs > 0) return stairs;
+
+  const half = Math.max(1, Math.round(ENVELOPE_HALF_WIDTH / step));
+  for (let k = 0; k < n; k++) {
+    let m = -Infinity;
+    const a = k - half < 0 ? 0 : k - half;
+    const b = k + half >= n ? n - 1 : k + half;
+    for (let j = a; j <= b; j++) if (profile[j] > m) m = profile[j];
+    envelope[k] = m;
+  }
   const span = Math.max(1, Math.round(stride / step));
   let rise = 0;
-  for (let k = 0; k + span <= SAMPLES; k++) {
-    const d = Math.abs(heightAt(t.course, 0, z0 + (k + span) * step) - heightAt(t.course, 0, z0 + k * step));
+  for (let k = 0; k + span < n; k++) {
+    const d = Math.abs(envelope[k + span] - envelope[k]);
     if (d > rise) rise = d;
   }
-  const allowed = RISE_PER_SWING * reach;
   if (rise <= allowed) return 1;
   const pace = allowed / rise;
   return pace < SLOWEST_PACE ? SLOWEST_PACE : pace;
+}
+
+/** On a stair run ahead, the pace that carries each foot a whole number of treads; 0 when the ground ahead is no stair run. */
+function stairPace(n: number, step: number, stride: number, allowed: number): number {
+  let edges = 0;
+  let k = 0;
+  while (k + 1 < n) {
+    const d = profile[k + 1] - profile[k];
+    if (Math.abs(d) <= EDGE_RISE) {
+      k++;
+      continue;
+    }
+    // One edge may span a few samples: add them up.
+    let total = d;
+    let j = k + 1;
+    while (j + 1 < n && Math.abs(profile[j + 1] - profile[j]) > EDGE_RISE && Math.sign(profile[j + 1] - profile[j]) === Math.sign(d)) {
+      total += profile[j + 1] - profile[j];
+      j++;
+    }
+    edgeAt[edges] = (k + j) * 0.5 * step;
+    edgeRise[edges] = total;
+    edges++;
+    k = j;
+  }
+  if (edges < 3) return 0;
+  let treadSum = 0;
+  let riseSum = 0;
+  for (let e = 0; e < edges; e++) {
+    if (Math.sign(edgeRise[e]) !== Math.sign(edgeRise[0])) return 0;
+    riseSum += Math.abs(edgeRise[e]);
+    if (e > 0) treadSum += edgeAt[e] - edgeAt[e - 1];
+  }
+  const tread = treadSum / (edges - 1);
+  for (let e = 1; e < edges; e++) if (Math.abs(edgeAt[e] - edgeAt[e - 1] - tread) > TREAD_TOLERANCE * tread) return 0;
+  const riser = riseSum / edges;
+  const byRise = Math.floor(allowed / riser);
+  const byStride = Math.floor(stride / tread);
+  const treads = Math.max(1, Math.min(byRise, byStride));
+  const pace = (treads * tread) / stride;
+  return pace > 1 ? 1 : pace < SLOWEST_PACE ? SLOWEST_PACE : pace;
 }

@@ -54,6 +54,9 @@ export interface Trial {
   readonly recoverRate: number;
   /** Per leg: the tightest fold it reaches, as a share of its reach (reach.ts). */
   readonly foldLimit: Float64Array;
+  /** Per leg: the knee's DOF index (−1: none), and its straight value and bending sign (2 per leg). */
+  readonly kneeDof: Int32Array;
+  readonly kneeStraight: Float64Array;
 
   // Per leg state (index = leg).
   /** Gait phase this frame: 0 at touchdown, dutyFactor at liftoff. */

@@ -28,7 +28,7 @@ import { plantAt, startSwing, touchdownPoint, updateTargets } from './foot-plann
 import { PACE_SETTLE_SECONDS, terrainPace } from './pace';
 import { resolveGait } from './gait-params';
 import { checkLegSetupForRig, legSolverSettings, parseLegSetup, solverOptionsOf, type LegSetup } from './leg-setup';
-import { aimLeg, limitLegMotion } from './leg-motion';
+import { aimLeg, findStraightKnee, limitLegMotion, preshapeKnee } from './leg-motion';
 import { measureFoldLimit } from './reach';
 import { checkRig, type Rig } from './rig';
 import { neutralWalkHeight } from './walk-height';
@@ -60,6 +60,7 @@ const { createWorkspace, resetPose, setRootTransform, DOF_BALL, DOF_SLIDE } = ik
 const ORIGIN = new Float64Array(3);
 const IDENTITY_QUAT = new Float64Array([0, 0, 0, 1]);
 const UP = new Float64Array([0, 1, 0]);
+const kneeScratch = new Float64Array(2);
 
 const { createDampedState, createCriticalFilter, stepCritical } = bodyFilter;
 const { createSwingPlan, descentStart } = swingPath;
@@ -117,6 +118,7 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
   const cycleFrames = Math.ceil(gait.cycleTime / dt) + Math.ceil(TOUCHDOWN_WINDOW_SECONDS / dt) + 4;
 
   const target = new Float64Array(3 * L);
+  const kneeStraight = new Float64Array(2 * L);
   const targetNormal = new Float64Array(3 * L);
   const t: Trial = {
     rig,
@@ -134,6 +136,16 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
     limitedPose: solvers.map((s) => new Float64Array(s.nDof)),
     // Back to rest over about one swing.
     recoverRate: Math.min(1, dt / ((1 - gait.dutyFactor) * gait.cycleTime)),
+    kneeStraight,
+    kneeDof: Int32Array.from(rig.legs, (l, i) => {
+      const ws = solvers[i];
+      setRootTransform(ws, ORIGIN, IDENTITY_QUAT);
+      resetPose(ws);
+      const d = findStraightKnee(ws, l.chain.knee, kneeScratch);
+      kneeStraight[2 * i] = kneeScratch[0];
+      kneeStraight[2 * i + 1] = kneeScratch[1];
+      return d;
+    }),
     foldLimit: Float64Array.from(rig.legs, (l, i) => {
       const ws = solvers[i];
       setRootTransform(ws, ORIGIN, IDENTITY_QUAT);
@@ -317,6 +329,7 @@ export function stepTrial(t: Trial): boolean {
       older.set(prev);
     }
     const normal = aimLeg(t, i, aim, aimNormal);
+    preshapeKnee(t, i, aim);
     const r = solve(ws, aim, normal);
     t.iterations[i] = r.iterations;
     t.error[i] = r.positionError;
