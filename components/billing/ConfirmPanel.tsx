@@ -1,4 +1,5 @@
-import { StyleSheet, Text, View } from 'react-native';
+import { useEffect, useRef } from 'react';
+import { Platform, StyleSheet, Text, View } from 'react-native';
 import { colors, radius, space, type } from '../../constants/theme';
 import { Button } from '../ui/Button';
 
@@ -11,8 +12,15 @@ export function ConfirmPanel({ message, confirmLabel, keepLabel, busy, onConfirm
   onConfirm(): void;
   onKeep(): void;
 }) {
+  const ref = useRef<View>(null);
+  // The question opens where the answer is asked for: on a phone that can be below the fold, so bring it into view.
+  useEffect(() => {
+    if (Platform.OS !== 'web') return;
+    const node = ref.current as unknown as { scrollIntoView?: (o: ScrollIntoViewOptions) => void } | null;
+    node?.scrollIntoView?.({ block: 'center', behavior: 'auto' });
+  }, []);
   return (
-    <View style={styles.panel} role="group" aria-label="Confirm">
+    <View ref={ref} style={styles.panel} role="group" aria-label="Confirm">
       <Text style={styles.text}>{message}</Text>
       <View style={styles.buttons}>
         <Button label={confirmLabel} tone="danger" busy={busy} onPress={onConfirm} />

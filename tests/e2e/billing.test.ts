@@ -1,4 +1,4 @@
-import type { Page } from 'playwright-core';
+import type { Locator, Page } from 'playwright-core';
 import { PHONE, WIDE, screenshot } from '../support/browser';
 import { e2eStudio } from '../support/e2e';
 
@@ -12,6 +12,15 @@ async function signedInPage(size: { width: number; height: number }, email: stri
   await page.goto(`${studio.server.url}/team/billing`);
   await page.getByRole('heading', { name: 'Billing', level: 1 }).waitFor();
   return page;
+}
+
+/** The whole box inside the viewport, as the user would see it without scrolling. */
+async function expectInView(page: Page, target: Locator) {
+  await target.waitFor();
+  const box = (await target.boundingBox())!;
+  const viewport = page.viewportSize()!;
+  expect(box.y).toBeGreaterThanOrEqual(0);
+  expect(box.y + box.height).toBeLessThanOrEqual(viewport.height);
 }
 
 async function fillCard(page: Page, number: string) {
@@ -65,6 +74,13 @@ describe('the owner’s billing screen and the local checkout page', () => {
     await page.getByText('Invoices', { exact: true }).scrollIntoViewIfNeeded();
     await screenshot(page, 'billing-invoices-phone');
 
+    // A plan change asks first, and the question opens where it can be read: on a phone the plan cards run
+    // below the fold, so the confirmation must come into view with both its buttons.
+    await page.getByRole('button', { name: 'Upgrade to Studio' }).click();
+    await expectInView(page, page.getByLabel('Studio plan').getByRole('group', { name: 'Confirm' }));
+    await screenshot(page, 'billing-confirm-upgrade-phone');
+    await page.getByRole('button', { name: 'Keep Crew' }).click();
+
     // Cancelling asks first and says what happens and when; keeping the plan changes nothing.
     await page.getByRole('button', { name: 'Cancel subscription' }).click();
     await page.getByRole('group', { name: 'Confirm' }).getByText(/stays until .*then the studio moves to the free Solo plan/).waitFor();
@@ -80,6 +96,7 @@ describe('the owner’s billing screen and the local checkout page', () => {
     await screenshot(page, 'billing-crew-wide');
     await page.getByRole('button', { name: 'Upgrade to Studio' }).click();
     await page.getByText('charged straight away', { exact: false }).waitFor();
+    await expectInView(page, page.getByLabel('Studio plan').getByRole('group', { name: 'Confirm' }));
     await screenshot(page, 'billing-confirm-upgrade-wide');
     await page.getByRole('button', { name: 'Move to Studio' }).click();
     await page.getByLabel('Studio plan').getByText('Current').waitFor();
