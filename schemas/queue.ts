@@ -6,10 +6,10 @@ export const queueStatusSchema = z.object({
   runner: z.enum(['embedded', 'redis']),
   /** Workers connected (processes for `redis`, threads for `embedded`). */
   workers: z.array(z.object({ name: z.string(), address: z.string().optional() })),
-  /** Tasks (one candidate or one course) waiting for a worker and being worked on. */
+  /** Tasks (one course of a trial or of a dial-in candidate), every team's, waiting for a worker and being worked on. */
   waiting: z.number().int().min(0),
   running: z.number().int().min(0),
-  /** The whole service's jobs queued and running (every team), from the server's own records. */
+  /** This team's jobs queued and running, from the server's own records. */
   jobsQueued: z.number().int().min(0),
   jobsRunning: z.number().int().min(0),
   /** Set when Redis is configured but the server cannot reach it at the moment. */

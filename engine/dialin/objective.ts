@@ -42,15 +42,16 @@ export function summariseOutcome(perCourse: CourseOutcome[]): CandidateOutcome {
   };
 }
 
+/** One course of a candidate: a setup the engine refuses there scores 0 with REFUSED_PENALTY. */
+export function evaluateCourse(rig: Rig, setup: unknown, course: Heightfield, options: TrialOptionsInput): CourseOutcome {
+  try {
+    const m = runTrial(rig, setup, course, options).metrics;
+    return { footingScore: m.footingScore, penalty: penaltyOf(m) };
+  } catch (err) {
+    return { footingScore: 0, penalty: REFUSED_PENALTY, refused: (err as Error).message };
+  }
+}
+
 export function evaluateCandidate(rig: Rig, setup: unknown, courses: readonly Heightfield[], options: TrialOptionsInput): CandidateOutcome {
-  return summariseOutcome(
-    courses.map((c) => {
-      try {
-        const m = runTrial(rig, setup, c, options).metrics;
-        return { footingScore: m.footingScore, penalty: penaltyOf(m) };
-      } catch (err) {
-        return { footingScore: 0, penalty: REFUSED_PENALTY, refused: (err as Error).message };
-      }
-    }),
-  );
+  return summariseOutcome(courses.map((c) => evaluateCourse(rig, setup, c, options)));
 }

@@ -34,7 +34,10 @@ export interface DialInSearchOptions {
   seed: number;
   /** Size of the Latin hypercube (default: 5 per dimension plus 10, within 20–40, and within the budget). */
   sampleSize?: number;
-  /** Nelder–Mead runs started from the best points of the first batch (default 3). */
+  /**
+   * Nelder–Mead runs started from the best points of the first batch (default 4). It bounds how many
+   * candidates a batch holds once the sample is done, so it is fixed, never taken from the worker count.
+   */
   runs?: number;
   /** Stop when the best has not improved by the margin for this many candidates (default: 40, at least 8 per dimension). */
   patience?: number;
@@ -94,7 +97,7 @@ export function createDialInSearch(o: DialInSearchOptions): DialInSearch {
   if (!(o.budget >= 1)) throw new Error('the dial-in search needs a budget of at least one candidate');
   const rng = mulberry32(o.seed);
   const sampleSize = Math.min(o.sampleSize ?? sampleSizeFor(n, o.budget), o.budget - 1);
-  const runCount = Math.max(1, o.runs ?? 3);
+  const runCount = Math.max(1, o.runs ?? 4);
   const patience = o.patience ?? Math.max(40, 8 * n);
   const absoluteMargin = o.absoluteMargin ?? 1e-4;
   const relativeMargin = o.relativeMargin ?? 1e-3;

@@ -64,10 +64,13 @@ export async function createBullmqPool(url: string, log: (line: string) => void 
 
   async function lookUp(id: string): Promise<void> {
     if (!pending.has(id)) return;
+    // The state first, then the job: read the other way round, a task finishing in between would be seen
+    // completed with the answer it did not have yet when it was read.
+    const state = await queue.getJobState(id).catch(() => 'unknown');
+    if (state !== 'completed' && state !== 'failed') return;
     const job = await Job.fromId(queue, id).catch(() => undefined);
     if (!job) return;
-    const state = await job.getState().catch(() => 'unknown');
-    if (state === 'completed') settle(id, { value: job.returnvalue });
+    if (state === 'completed' && job.returnvalue !== null && job.returnvalue !== undefined) settle(id, { value: job.returnvalue });
     else if (state === 'failed') settle(id, { error: new Error(readableTaskFailure(job.failedReason ?? 'no reason given')) });
   }
   const poller = setInterval(() => {

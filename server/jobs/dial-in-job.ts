@@ -1,6 +1,6 @@
 /**
- * The dial-in job: the batched search of server/workers/dial-in-search.ts, every candidate a worker task
- * (one trial per course of the suite), so the pool's threads or the queue's workers share one dial-in.
+ * The dial-in job: the batched search of server/workers/dial-in-search.ts, every course of every candidate a
+ * worker task (one trial), so the pool's threads or the queue's workers share one dial-in.
  * Progress and the best-so-far plot are reported as candidates finish; the final result (start and best
  * per course, the best setup) depends only on the inputs and the seed.
  */
@@ -8,7 +8,7 @@ import { z } from 'zod';
 import type { Clock } from '../clock';
 import type { Db } from '../db';
 import { encodeCourse } from '../../engine/course/encoding';
-import type { CandidateOutcome } from '../../engine/dialin/objective';
+import { summariseOutcome, type CandidateOutcome, type CourseOutcome } from '../../engine/dialin/objective';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
 import { loadCourse, type LoadedCourse } from '../services/courses';
 import { loadWalkingCharacter } from '../services/leg-setups';
@@ -76,7 +76,8 @@ export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
     try {
       run = await runSearch(
         { base: input.base, params: input.params, budget: input.candidates, seed: input.seed },
-        (values) => ctx.runTask<CandidateOutcome>('candidate', { context, values } satisfies CandidateTask),
+        async (values) =>
+          summariseOutcome(await Promise.all(context.courses.map((_, course) => ctx.runTask<CourseOutcome>('candidate', { context, values, course } satisfies CandidateTask)))),
         (c) => {
           arrived.push(c);
           ctx.report((98 * arrived.length) / input.candidates, partial());

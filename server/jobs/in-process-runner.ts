@@ -175,9 +175,9 @@ export function createInProcessRunner(o: InProcessRunnerOptions): JobRunner & { 
       return jobFromRow(await findJobRow(db, teamId, jobId));
     },
 
-    async queueStatus(): Promise<QueueStatus> {
+    async queueStatus(teamId: number): Promise<QueueStatus> {
       const counts = (await pool.counts?.()) ?? { runner: 'embedded' as const, workers: [], waiting: 0, running: 0 };
-      const byStatus = await db('jobs').whereIn('status', ['queued', 'running']).groupBy('status').select<{ status: string; n: number }[]>('status', db.raw('count(*) as n'));
+      const byStatus = await db('jobs').where({ team_id: teamId }).whereIn('status', ['queued', 'running']).groupBy('status').select<{ status: string; n: number }[]>('status', db.raw('count(*) as n'));
       const of = (s: string) => Number(byStatus.find((r) => r.status === s)?.n ?? 0);
       return { ...counts, jobsQueued: of('queued'), jobsRunning: of('running') };
     },

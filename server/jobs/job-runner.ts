@@ -27,8 +27,8 @@ export interface JobRunner {
   start(): Promise<void>;
   /** Stops taking work, cancels what runs and shuts the pool down. */
   close(): Promise<void>;
-  /** Where tasks run: workers connected, tasks waiting and running. */
-  queueStatus(): Promise<QueueStatus>;
+  /** Where tasks run: workers connected, tasks waiting and running, and the team's own jobs queued and running. */
+  queueStatus(teamId: number): Promise<QueueStatus>;
 }
 
 /** Passed to a kind's handler while its job runs. */

@@ -1,10 +1,9 @@
-/** One dial-in candidate on a worker: its setup walked over every course of the suite, scored by the footing penalty. */
+/** One course of one dial-in candidate on a worker: the setup walked over the course, scored by the footing penalty. */
 import { decodeCourse } from '../../engine/course/encoding';
-import { evaluateCandidate, type CandidateOutcome } from '../../engine/dialin/objective';
+import { evaluateCourse, type CourseOutcome } from '../../engine/dialin/objective';
 import { withValues, type CandidateTask } from './dial-in-search';
 
-export function runCandidateTask({ payload }: { payload: CandidateTask }): CandidateOutcome {
-  const { context, values } = payload;
-  const courses = context.courses.map((c) => decodeCourse(c));
-  return evaluateCandidate(context.rig, withValues(context.base, values), courses, context.options);
+export function runCandidateTask({ payload }: { payload: CandidateTask }): CourseOutcome {
+  const { context, values, course } = payload;
+  return evaluateCourse(context.rig, withValues(context.base, values), decodeCourse(context.courses[course]), context.options);
 }

@@ -25,9 +25,12 @@ export interface DialInContext {
   options: TrialOptionsInput;
 }
 
+/** One course of one candidate: the unit of work, so a batch of k candidates over n courses is k·n tasks. */
 export interface CandidateTask {
   context: DialInContext;
   values: Record<string, number>;
+  /** Index into context.courses. */
+  course: number;
 }
 
 export interface EvaluatedCandidate {

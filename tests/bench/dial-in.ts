@@ -10,14 +10,14 @@
 import os from 'node:os';
 import { encodeCourse } from '../../engine/course/encoding';
 import { generateCourse } from '../../engine/course/generators';
-import type { CandidateOutcome } from '../../engine/dialin/objective';
+import { decodeCourse } from '../../engine/course/encoding';
+import { evaluateCandidate, summariseOutcome, type CourseOutcome } from '../../engine/dialin/objective';
 import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { createPiscinaPool } from '../../server/jobs/worker-pool';
 import { importGltf } from '../../server/services/gltf-import';
 import { mappingOf } from '../../server/services/gltf-import-store';
-import { runCandidateTask } from '../../server/workers/candidate-worker';
-import { runSearch, type DialInContext } from '../../server/workers/dial-in-search';
+import { runSearch, withValues, type DialInContext } from '../../server/workers/dial-in-search';
 import { burrow } from '../../seeds/characters';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import type { DialInParam } from '../../schemas/dial-ins';
@@ -49,9 +49,12 @@ async function main(): Promise<void> {
 
   const pool = createPiscinaPool(2);
   const signal = new AbortController().signal;
-  const onPool = (values: Record<string, number>) => pool.run<CandidateOutcome>('candidate', { context, values }, () => undefined, signal);
+  const onPool = async (values: Record<string, number>) =>
+    summariseOutcome(await Promise.all(context.courses.map((_, course) => pool.run<CourseOutcome>('candidate', { context, values, course }, () => undefined, signal))));
   // Warm the threads (load tsx and the engine) before timing.
   await Promise.all([0, 1].map(() => onPool({})));
+  const heightfields = context.courses.map((c) => decodeCourse(c));
+  const onMain = async (values: Record<string, number>) => evaluateCandidate(rig, withValues(base, values), heightfields, context.options);
   const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const pooled = await runSearch(input, onPool);
@@ -61,9 +64,9 @@ async function main(): Promise<void> {
   await pool.close();
   const coreBusy = (cpu.user + cpu.system) / 1000 / (poolWallMs * Math.min(cores, 2));
 
-  runCandidateTask({ payload: { context, values: {} } });
+  await onMain({});
   const s0 = performance.now();
-  const serial = await runSearch(input, async (values) => runCandidateTask({ payload: { context, values } }));
+  const serial = await runSearch(input, onMain);
   const serialWallMs = performance.now() - s0;
 
   const same = JSON.stringify(pooled.candidates) === JSON.stringify(serial.candidates);

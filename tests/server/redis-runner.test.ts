@@ -113,7 +113,7 @@ describe('the BullMQ runner with two worker processes', () => {
     const runner = await openJobRunner({ db, clock, redisUrl: redis.url });
     try {
       const status = await waitFor(async () => {
-        const s = await runner.queueStatus();
+        const s = await runner.queueStatus(studio.teamId);
         return s.workers.length === 2 ? s : null;
       }, 'two workers');
       expect(status).toMatchObject({ runner: 'redis', waiting: 0, running: 0, jobsQueued: 0, jobsRunning: 0 });
