@@ -24,6 +24,7 @@ import { charactersRouter } from './routes/characters';
 import { legSetupsRouter } from './routes/leg-setups';
 import { trialsRouter } from './routes/trials';
 import { jobsRouter } from './routes/jobs';
+import { queueRouter } from './routes/queue';
 import { dialInsRouter } from './routes/dial-ins';
 import { dialInAllowanceRouter } from './routes/dial-in-allowance';
 import { coursesRouter } from './routes/courses';
@@ -84,6 +85,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(legSetupsRouter(deps));
   api.use('/trials', trialsRouter(deps));
   api.use('/jobs', jobsRouter(deps));
+  api.use('/queue', queueRouter(deps));
   api.use('/dial-ins/allowance', dialInAllowanceRouter(deps));
   api.use('/dial-ins', dialInsRouter(deps));
   api.use('/courses', coursesRouter(deps));

@@ -56,6 +56,7 @@ export const ROUTE_TABLE: RouteRule[] = [
   { method: 'POST', path: '/team/invites/:id/resend', action: 'team.invite', label: 'Invite people', access: OWNER },
   { method: 'DELETE', path: '/team/invites/:id', action: 'team.invite', label: 'Invite people', access: OWNER },
   { method: 'GET', path: '/team/audit', action: 'team.audit', label: 'Read the team log', access: OWNER },
+  { method: 'GET', path: '/queue', action: 'queue.read', label: 'See where trials and dial-ins run', access: OWNER },
   { method: 'GET', path: '/invites/:token', action: 'invite.preview', label: 'Open an invite', access: 'public' },
   { method: 'POST', path: '/invites/:token/accept', action: 'invite.accept', label: 'Accept an invite', access: 'public' },
   ...characterRules,

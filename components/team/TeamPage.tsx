@@ -15,6 +15,7 @@ import { InviteForm } from './InviteForm';
 import { MemberList } from './MemberList';
 import { PendingInvites } from './PendingInvites';
 import { PermissionMatrix } from './PermissionMatrix';
+import { QueueStatusSection } from './QueueStatus';
 import { StudioLinks } from './StudioLinks';
 
 export function TeamPage() {
@@ -67,6 +68,8 @@ export function TeamPage() {
           <AuditLog entries={audit.data?.entries ?? []} />
         </>
       )}
+
+      <QueueStatusSection />
 
       <SectionHeading>Your sessions</SectionHeading>
       <Card>
