@@ -6,7 +6,7 @@ import { Card } from '../ui/Card';
 import { Button } from '../ui/Button';
 import { TextField } from '../ui/TextField';
 import { Notice } from '../ui/Notice';
-import { formatMoment } from '../ui/format';
+import { formatLocalMoment as formatMoment } from '../setup/local-dates';
 import { recipeLine } from './generatorFields';
 
 /** Name, where the course came from, the suites that hold it, and deleting it. */

@@ -1,6 +1,6 @@
 import type { CourseSummary } from '../../schemas/courses';
 import { RecordList, type RecordColumn } from '../ui/RecordList';
-import { formatDay } from '../ui/format';
+import { formatLocalDay as formatDay } from '../setup/local-dates';
 
 const relief = (c: CourseSummary) => `${(c.maxHeight - c.minHeight).toFixed(2)} m`;
 const kinds = (c: CourseSummary) => (c.generatorKinds.length ? c.generatorKinds.join(', ') : 'uploaded');

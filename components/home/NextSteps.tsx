@@ -26,15 +26,15 @@ export function NextSteps({ characters, hasTrial }: { characters: Character[]; h
   const hasCourse = courses.data.courses.length > 0;
   const first = characters[0];
   const steps: Step[] = [
-    { key: 'character', done: characters.length > 0, title: 'Bring a character', body: 'Upload a glTF character; Treadle finds its legs.', href: '/characters', action: 'Open Characters' },
-    { key: 'course', done: hasCourse, title: 'Give it ground to walk over', body: 'Add the starter courses in one tap, or build your own.', href: '/courses', action: 'Open Courses' },
+    { key: 'character', done: characters.length > 0, title: 'Bring a character', body: 'Upload a glTF character; Treadle finds its legs.', href: '/characters', action: 'Go to the character list' },
+    { key: 'course', done: hasCourse, title: 'Give it ground to walk over', body: 'Add the starter courses in one tap, or build your own.', href: '/courses', action: 'Go to the course list' },
     {
       key: 'trial',
       done: hasTrial,
       title: 'Run its first trial',
       body: first ? `Open ${first.name}'s leg setup and press “Run trial”.` : 'Once a character is here, run it over a course from its leg setup.',
       href: first ? `/characters/setup/${first.id}` : '/characters',
-      action: first ? `Open ${first.name}'s leg setup` : 'Open Characters',
+      action: first ? `Open ${first.name}'s leg setup` : 'Go to the character list',
     },
   ];
   if (steps.every((s) => s.done)) return null;

@@ -5,3 +5,8 @@
 export function formatLocalMoment(ms: number, locale?: string): string {
   return new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(new Date(ms));
 }
+
+/** A day in the reader's own locale, month in words: "1 Dec 2026" (en-GB), "Dec 1, 2026" (en-US). */
+export function formatLocalDay(ms: number, locale?: string): string {
+  return new Intl.DateTimeFormat(locale, { dateStyle: 'medium' }).format(new Date(ms));
+}

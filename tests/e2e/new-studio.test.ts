@@ -44,7 +44,7 @@ describe('a new studio', () => {
     await steps.waitFor();
     await steps.getByText('Bring a character').waitFor();
     expect(await steps.getByText('(done)').count()).toBe(1);
-    const toCourses = steps.getByRole('link', { name: 'Open Courses' });
+    const toCourses = steps.getByRole('link', { name: 'Go to the course list' });
     expect(await toCourses.getAttribute('href')).toBe('/courses');
     expect(await steps.getByRole('link', { name: "Open Wicket's leg setup" }).getAttribute('href')).toBe(`/characters/setup/${characterId}`);
     expect(await steps.getByRole('button', { name: 'Add starter courses' }).count()).toBe(1);
