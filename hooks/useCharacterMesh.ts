@@ -10,7 +10,12 @@ const MAX_MESH_BYTES = 64 * 1024 * 1024;
  * parses its own copy with three's GLTFLoader (a three object can hang in one scene only).
  */
 export function useCharacterMesh(characterId: number) {
-  return useQuery({
+  return useQuery(characterMeshQuery(characterId));
+}
+
+/** The query of a character's file, for useQuery or useQueries. */
+export function characterMeshQuery(characterId: number) {
+  return {
     queryKey: ['character-mesh', characterId],
     enabled: characterId > 0,
     staleTime: Infinity,
@@ -27,5 +32,5 @@ export function useCharacterMesh(characterId: number) {
       if (size > MAX_MESH_BYTES) throw new ApiError(413, 'mesh_too_large', 'The character file is too large to show in the walk.');
       return response.arrayBuffer();
     },
-  });
+  };
 }

@@ -5,6 +5,7 @@ import { EmptyState } from '../../components/ui/EmptyState';
 import { Notice } from '../../components/ui/Notice';
 import { ComparePicker } from '../../components/compare/ComparePicker';
 import { CompareView } from '../../components/compare/CompareView';
+import { CompareWalk } from '../../components/compare/CompareWalk';
 import { useCompare } from '../../hooks/useCompare';
 
 /** The selection lives in the URL (?suite=…&pick=c1,c2), so a comparison can be shared as a link. */
@@ -28,6 +29,7 @@ export default function CompareScreen() {
       {result.isFetching && !result.data ? <LoadingPage /> : null}
       {result.isError ? <Notice message={result.error.message} /> : null}
       {result.data ? <CompareView result={result.data} /> : null}
+      {result.data ? <CompareWalk result={result.data} /> : null}
     </Screen>
   );
 }
