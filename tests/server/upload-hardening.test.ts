@@ -158,6 +158,22 @@ describe('1. deeply nested JSON never reaches a recursive parser', () => {
     expect(after.status).toBe(201);
     await discard(after);
   });
+
+  it('holds the reader threads to their memory limit: a thread that runs out ends alone and the upload gets a 422', async () => {
+    await closeImportPool();
+    process.env.TREADLE_IMPORT_HEAP_MB = '12';
+    let res;
+    try {
+      res = await upload(designer, [file('wicket-small-heap.glb', wicketGlb)]);
+    } finally {
+      delete process.env.TREADLE_IMPORT_HEAP_MB;
+      await closeImportPool();
+    }
+    expect(res.status).toBe(422);
+    expect(res.body.error.code).toBe('unreadable');
+    expect(res.body.error.message).toMatch(/needed more memory than Treadle gives one upload/);
+    await stillServing();
+  });
 });
 
 /** Signs in with fetch and returns the session cookie, for requests written by hand. */
