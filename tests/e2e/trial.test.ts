@@ -233,10 +233,14 @@ describe('watching the character walk', () => {
     const box = (await timeline.boundingBox())!;
     const duration = (await clockOf(page)).split(' / ')[1].replace(' s', '');
     const xOf = (t: number) => box.x + 10 + (t / Number(duration)) * (box.width - 20);
-    const free = [0.2, 0.35, 0.5, 0.65].map((f) => f * Number(duration)).find((t) => trial.events.every((e) => Math.abs(xOf(e.time) - xOf(t)) > 14))!;
+    const gap = (t: number) => Math.min(Infinity, ...trial.events.map((e) => Math.abs(xOf(e.time) - xOf(t))));
+    const candidates = Array.from({ length: 91 }, (_, i) => ((i + 5) / 100) * Number(duration));
+    const free = candidates.reduce((best, t) => (gap(t) > gap(best) ? t : best), candidates[0]);
     await page.mouse.click(xOf(free), box.y + box.height / 2);
     const seconds = await clockSeconds(page);
-    expect(Math.abs(seconds - free)).toBeLessThan(0.1);
+    // Away from every mark (more than the 12 px snap) the playhead lands where tapped; next to one, on that stumble.
+    if (gap(free) > 14) expect(Math.abs(seconds - free)).toBeLessThan(0.1);
+    else expect(trial.events.some((e) => Math.abs(e.time - seconds) < 0.01)).toBe(true);
     // The re-solve and plots follow the clock: nowhere on the page reads NaN.
     expect(await page.getByText(/NaN/).count()).toBe(0);
 
