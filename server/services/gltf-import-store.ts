@@ -78,9 +78,14 @@ export function characterFromRow(row: CharacterRow): Character {
   };
 }
 
+/** The first `max` characters by code point, so a cut never leaves half of a surrogate pair (an emoji, say). */
+function clip(text: string, max: number): string {
+  return Array.from(text).slice(0, max).join('');
+}
+
 function defaultName(fileName: string): string {
   const base = fileName.replace(/^.*[\\/]/, '').replace(/\.(glb|gltf)$/i, '').trim();
-  return (base || 'Unnamed character').slice(0, 60);
+  return clip(base || 'Unnamed character', 60);
 }
 
 function isUniqueViolation(err: unknown): boolean {
@@ -145,7 +150,7 @@ export async function storeCharacterUpload(
         const [newId] = await trx('characters').insert({
           team_id: input.teamId,
           name: input.name?.trim() || defaultName(imported.fileName),
-          file_name: imported.fileName.slice(0, 255),
+          file_name: clip(imported.fileName, 255),
           format: imported.format,
           sha256,
           byte_size: imported.glb.byteLength,

@@ -402,4 +402,17 @@ describe('9. the smaller upload findings', () => {
     expect(res.body.character.name).toBe('Füße-ヒーロー-😀');
     await discard(res);
   });
+
+  it('keeps a hostile file name as text only: its folders dropped, never used as a path', async () => {
+    const name = `../../../etc/${'😀'.repeat(59)}<script>.glb`;
+    const res = await upload(designer, [file(name, await glbOf({ ...wicket, parts: wicket.parts.slice(5) }))]);
+    expect(res.status).toBe(201);
+    // busboy keeps only the last path segment of a part's filename (its preservePath option is off).
+    expect(res.body.character.fileName).toBe(`${'😀'.repeat(59)}<script>.glb`);
+    // The default name drops the folders and stops at 60 characters, never inside an emoji's surrogate pair.
+    expect(res.body.character.name).toBe(`${'😀'.repeat(59)}<`);
+    expect(fs.readdirSync(path.join(t.dataDir, 'characters'))).toContain(`${res.body.character.sha256}.glb`);
+    expect(fs.existsSync(path.join(t.dataDir, '..', 'etc'))).toBe(false);
+    await discard(res);
+  });
 });
