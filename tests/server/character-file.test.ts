@@ -22,17 +22,16 @@ beforeAll(async () => {
 });
 afterAll(() => t.cleanup());
 
-const bytes = (r: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  r.on('data', (c: Buffer) => chunks.push(c));
-  r.on('end', () => cb(null, Buffer.concat(chunks)));
-};
 
 describe("a character's stored glTF", () => {
   it('is served to every role of its team, as GLB with an ETag naming its content', async () => {
     for (const who of ['owner', 'designer', 'programmer', 'artlead']) {
       const agent = await signedIn(t.app, `${who}@brassmoth.test`, 'treadle-demo');
-      const res = await agent.get(`/api/characters/${wicket.id}/file`).buffer(true).parse(bytes);
+      const res = await agent.get(`/api/characters/${wicket.id}/file`).buffer(true).parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
       expect(res.status).toBe(200);
       // glTF 2.0 §4.4.2: a GLB starts with the magic "glTF" and version 2.
       const body = res.body as Buffer;
