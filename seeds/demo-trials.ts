@@ -6,6 +6,7 @@ import { loadCourse } from '../server/services/courses';
 import { loadWalkingCharacter, saveLegSetup } from '../server/services/leg-setups';
 import { TRIAL_SECONDS } from '../schemas/trials';
 import { DEMO_SUITE } from './demo-courses';
+import { roundProfileNumbers } from '../engine/profile/export';
 import { STUMBLE_KINDS } from '../engine/metrics/stumble-thresholds';
 import type { TrialMetrics } from '../engine/metrics/trial-metrics';
 
@@ -59,7 +60,8 @@ export async function seedDemoTrials(db: Db, teamId: number, userId: number, now
     const measured: { course: string; metrics: TrialMetrics }[] = [];
     for (const [k, courseId] of courseIds.slice(0, SEEDED_COURSES).entries()) {
       const course = await loadCourse(db, teamId, courseId);
-      const result = runTrial(character.rig, setup, course.heightfield, { duration: TRIAL_SECONDS });
+      // The setup as it was saved (numbers rounded on save), so the trial is the saved version's own.
+      const result = runTrial(character.rig, roundProfileNumbers(setup), course.heightfield, { duration: TRIAL_SECONDS });
       await db('trials').insert({
         team_id: teamId,
         character_id: c.id,

@@ -12,6 +12,7 @@ import type { Rig } from '../../engine/gait/rig';
 import type { LegMapping } from '../../schemas/characters';
 import type { LegSetupSource, LegSetupVersion } from '../../schemas/leg-setups';
 import type { StoredSkeleton } from './gltf-import-store';
+import { roundProfileNumbers } from '../../engine/profile/export';
 
 type Conn = Db | Knex.Transaction;
 
@@ -97,7 +98,8 @@ export async function saveLegSetup(
       team_id: v.teamId,
       character_id: v.characterId,
       version: Number(top?.n ?? 0) + 1,
-      setup: JSON.stringify(v.setup),
+      // Stored at the precision a published profile keeps, so its trials, Compare and its profile run the same numbers.
+      setup: JSON.stringify(roundProfileNumbers(v.setup)),
       note: v.note,
       source: v.source,
       created_by: v.userId,

@@ -12,6 +12,7 @@ import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import { runSuite, type SuiteRun } from '../../engine/profile/run-suite';
+import { roundProfileNumbers } from '../../engine/profile/export';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { findSuite } from './suites';
 import { loadSuiteCourses, type LoadedCourse } from './courses';
@@ -44,9 +45,13 @@ export function rigOf(c: TrialCharacter): Rig {
   }
 }
 
-/** Checks a setup against the rig; a setup that does not fit (leg names, phase offsets) is a 400. */
+/**
+ * Checks a setup against the rig; a setup that does not fit (leg names, phase offsets) is a 400. Its numbers are
+ * rounded as a published file carries them (and as saved versions are stored), so Compare, a profile and a build
+ * check walk exactly the same setup: a trial can turn on a difference of 10⁻⁷.
+ */
 export function setupFor(rig: Rig, setup: unknown | undefined): LegSetup {
-  const parsed = setup === undefined ? defaultLegSetup(rig) : LegSetupSchema.parse(setup);
+  const parsed = roundProfileNumbers(setup === undefined ? defaultLegSetup(rig) : LegSetupSchema.parse(setup));
   try {
     checkLegSetupForRig(parsed, rig);
   } catch (err) {

@@ -9,6 +9,7 @@
  */
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { runTrial } from '../../engine/gait/trial';
+import { roundProfileNumbers } from '../../engine/profile/export';
 import { loadCourse } from '../../server/services/courses';
 import { loadWalkingCharacter } from '../../server/services/leg-setups';
 import { dialInResultSchema, type DialInRequest, type DialInResult } from '../../schemas/dial-ins';
@@ -106,7 +107,8 @@ describe('dial-in on Burrow over a held suite', () => {
     const agent = await signedIn(t.app, studio.members.designer.email);
     const res = await agent.post(`/api/dial-ins/${first.id}/accept`).send({});
     expect(res.status).toBe(201);
-    expect(res.body.legSetup).toMatchObject({ characterId: studio.characters.burrow, source: 'dial-in', setup: first.result.bestSetup });
+    // Saved at the precision a published profile keeps (engine/profile/export.ts, PROFILE_DECIMALS).
+    expect(res.body.legSetup).toMatchObject({ characterId: studio.characters.burrow, source: 'dial-in', setup: roundProfileNumbers(first.result.bestSetup) });
     expect(res.body.legSetup.note).toMatch(/footing score/);
     expect((await agent.post(`/api/dial-ins/${first.id}/accept`).send({})).status).toBe(409);
     const list = await agent.get(`/api/characters/${studio.characters.burrow}/leg-setups`);
