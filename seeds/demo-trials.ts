@@ -6,30 +6,17 @@ import { loadCourse } from '../server/services/courses';
 import { loadWalkingCharacter, saveLegSetup } from '../server/services/leg-setups';
 import { TRIAL_SECONDS } from '../schemas/trials';
 import { DEMO_SUITE } from './demo-courses';
+import { seededSetupFor, tunedRecordFor } from './demo-setups';
 import { roundProfileNumbers } from '../engine/profile/export';
 import { STUMBLE_KINDS } from '../engine/metrics/stumble-thresholds';
 import type { TrialMetrics } from '../engine/metrics/trial-metrics';
 
 /**
- * A first leg setup version for each demo character (the engine's defaults), a second for Burrow with the body
- * lowered (its legs stand almost straight at rest) and for Wicket with wider ankles, and a stored trial per character on the first demo courses, run
- * here synchronously through the engine. Characters that already have a setup are left as they are.
+ * A first leg setup version for each demo character (the engine's defaults), a second with the settings a
+ * real dial-in over the demo suite chose (seeds/tune-demo-setups.ts, recorded in demo-tuned-setups.json),
+ * and a stored trial per character on the first demo courses, run here synchronously through the engine.
+ * Characters that already have a setup are left as they are.
  */
-/** Wicket's second version, as a designer would tune it by hand after reading its first trials. */
-function wicketByHand(defaults: LegSetup, legs: { leg: string; knee: string; ankle: string }[]): LegSetup {
-  return {
-    ...defaults,
-    body: { ...defaults.body, heightOffset: -0.1 },
-    legs: legs.map(({ leg, knee, ankle }) => ({
-      leg,
-      limits: [
-        { joint: ankle, dof: 0, min: -1.2, max: 1.2 },
-        { joint: knee, dof: 0, min: -0.3, max: 2.4 },
-      ],
-    })),
-  };
-}
-
 /** Courses of the demo suite each character gets a stored trial on (the first ones; a few trials are enough to show). */
 const SEEDED_COURSES = 2;
 
@@ -48,13 +35,11 @@ export async function seedDemoTrials(db: Db, teamId: number, userId: number, now
     let legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Engine defaults.', source: 'seed', now: at });
     // A second version is made the day after the first, once its author has looked at the defaults walking.
     const nextDay = at + 86_400_000;
-    if (c.name === 'Burrow') {
-      setup = { ...defaults, body: { ...defaults.body, heightOffset: -0.18 } };
-      legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note: 'Body 18 cm lower, tried because the legs stood almost straight at rest and could miss their reach.', source: 'seed', now: nextDay });
-    }
-    if (c.name === 'Wicket') {
-      setup = wicketByHand(defaults, character.rig.legs.map((l) => ({ leg: l.name, knee: l.chain.joints[1].name, ankle: l.chain.joints[2].name })));
-      const note = 'Body 10 cm lower, ankles free to ±69°, tried because the detected ankle range looked tight for feet that plant at the toe.';
+    const tuned = tunedRecordFor(c.name);
+    if (tuned) {
+      setup = seededSetupFor(c.name, character.rig);
+      const mean = (xs: number[]) => (xs.reduce((a, b) => a + b, 0) / Math.max(1, xs.length)).toFixed(1);
+      const note = `Dial-in of ${tuned.tried} candidates over ${DEMO_SUITE}: mean footing score ${mean(tuned.startScores)} → ${mean(tuned.bestScores)}.`;
       legSetupId = await saveLegSetup(db, { teamId, characterId: c.id, userId, setup, note, source: 'seed', now: nextDay });
     }
     const measured: { course: string; metrics: TrialMetrics }[] = [];

@@ -146,6 +146,7 @@ export function startSwing(t: Trial, i: number, landTime: number): void {
     landing[1],
     landing[2],
     Math.max(t.gait.stepHeight, MIN_TOE_CLEARANCE),
+    MIN_TOE_CLEARANCE,
   );
   for (let k = 0; k < 3; k++) t.liftNormal[3 * i + k] = t.plantNormal[3 * i + k];
   normalAt(t.course, landing[0], landing[2], t.landNormal, 3 * i);

@@ -87,9 +87,32 @@ function pathClearance(hf: Heightfield, p: SwingPlan): number {
   return least;
 }
 
+/** Horizontal distance from either end within which the sole may be at the ground (it is lifting off or setting down), m. */
+const END_ZONE = 0.03;
+
+/** Smallest height above the ground of the path's points away from its ends (the sole over nosings, lips and rims). */
+function interiorClearance(hf: Heightfield, p: SwingPlan): number {
+  let least = Infinity;
+  for (let i = 1; i < INTERIOR_SAMPLES; i++) {
+    swingPoint(p, i / INTERIOR_SAMPLES, scratchA);
+    const x = scratchA[0];
+    const z = scratchA[2];
+    const d0 = Math.hypot(x - p.x0, z - p.z0);
+    const d1 = Math.hypot(x - p.x1, z - p.z1);
+    if (d0 < END_ZONE || d1 < END_ZONE) continue;
+    const c = scratchA[1] - heightAt(hf, x, z);
+    if (c < least) least = c;
+  }
+  return least;
+}
+const INTERIOR_SAMPLES = 48;
+/** Apex raises tried when even the boxiest path passes too close to an edge. */
+const APEX_RAISES = 3;
+
 /**
  * Plan a swing from (x0, y0, z0) to (x1, y1, z1) whose apex clears the
- * highest ground under it by stepHeight; returns the plan (filled in place).
+ * highest ground under it by stepHeight, and whose points away from its ends stay
+ * at least minClearance above the ground; returns the plan (filled in place).
  */
 export function planSwing(
   hf: Heightfield,
@@ -101,6 +124,7 @@ export function planSwing(
   y1: number,
   z1: number,
   stepHeight: number,
+  minClearance = 0,
 ): SwingPlan {
   p.x0 = x0;
   p.y0 = y0;
@@ -112,10 +136,16 @@ export function planSwing(
   p.apex = Math.max(ground, y0, y1) + stepHeight;
   // The ends sit on the ground; measure clearance against the lower of the path and the ground there.
   const endSlack = Math.min(0, y0 - heightAt(hf, x0, z0), y1 - heightAt(hf, x1, z1));
-  for (const k of BOXINESS_TRIES) {
-    p.boxiness = k;
-    p.clearance = pathClearance(hf, p);
-    if (p.clearance >= endSlack - CLEARANCE_SLACK) break;
+  for (let raise = 0; raise <= APEX_RAISES; raise++) {
+    let deficit = 0;
+    for (const k of BOXINESS_TRIES) {
+      p.boxiness = k;
+      p.clearance = pathClearance(hf, p);
+      deficit = minClearance - interiorClearance(hf, p);
+      if (p.clearance >= endSlack - CLEARANCE_SLACK && deficit <= 0) return p;
+    }
+    // Even lifted first and set down last, the sole passes an edge too closely: lift it higher.
+    p.apex += deficit > 0 ? deficit : 0;
   }
   return p;
 }

@@ -153,7 +153,8 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
       const up = legSolvers[i].footOrientation ? UP : null;
       return measureFoldLimit(ws, l.chain.reach, (target) => solve(ws, target, up, { maxIterations: SETTLE_ITERATIONS }).positionError);
     }),
-    orient: Uint8Array.from(legSolvers, (s) => (s.footOrientation ? 1 : 0)),
+    // CCD turns one joint at a time toward the sole's position only: it has no orientation rows (documented in the form).
+    orient: Uint8Array.from(legSolvers, (s) => (s.footOrientation && s.method !== 'ccd' ? 1 : 0)),
     totalFrames,
     frame: 0,
     startZ,
@@ -226,9 +227,11 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
   placeHips(t);
   updateTargets(t);
   for (let i = 0; i < L; i++) {
+    // From rest with the knee already bent to the target's distance: a straight start can settle straight.
+    resetPose(solvers[i]);
+    preshapeKnee(t, i, t.targetOf[i]);
     const r = solve(solvers[i], t.targetOf[i], t.orient[i] ? t.targetNormalOf[i] : null, {
       maxIterations: SETTLE_ITERATIONS,
-      warmStart: 'rest',
     });
     t.prevPose[i].set(r.pose);
     t.olderPose[i].set(r.pose);

@@ -17,7 +17,8 @@ import type { Rig } from '../../engine/gait/rig';
 import { runTrial } from '../../engine/gait/trial';
 import { STUMBLE_KINDS } from '../../engine/metrics/stumble-thresholds';
 import { DEMO_COURSES } from '../../seeds/demo-courses';
-import { demoCharacterRigs } from './demo-rigs';
+import { demoCharacterRigs } from '../../seeds/demo-character-rigs';
+import { seededSetupFor } from '../../seeds/demo-setups';
 
 interface Row {
   rig: string;
@@ -67,7 +68,7 @@ async function main(): Promise<void> {
     const rig = presetRig(name);
     subjects.push({ name, rig, setup: defaultLegSetup(rig), courses: gauntlet });
   }
-  for (const demo of await demoCharacterRigs()) subjects.push({ name: demo.name, rig: demo.rig, setup: demo.setup, courses: [...gauntlet, ...demoSuite] });
+  for (const demo of await demoCharacterRigs()) subjects.push({ name: demo.name, rig: demo.rig, setup: seededSetupFor(demo.name, demo.rig), courses: [...gauntlet, ...demoSuite] });
 
   const rows: Row[] = [];
   const costs: string[] = [];
