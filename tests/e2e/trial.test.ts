@@ -270,6 +270,21 @@ describe('watching the character walk', () => {
     const bytes = fs.readFileSync((await download.path())!);
     expect(bytes.length).toBeGreaterThan(1000);
     expect([...bytes.subarray(0, 4)]).toEqual([0x1a, 0x45, 0xdf, 0xa3]);
+    // And it plays: chromium's own <video> reads its frames at the walk view's size.
+    // In a blank page (Treadle's own pages allow no media URLs); a source string, since the test's transpiler
+    // would rewrite an async function into helpers the page lacks.
+    const player = await page.context().newPage();
+    const played = (await player.evaluate(`new Promise((resolve, reject) => {
+      const raw = Uint8Array.from(atob(${JSON.stringify(bytes.toString('base64'))}), (c) => c.charCodeAt(0));
+      const video = document.createElement('video');
+      video.muted = true;
+      video.src = URL.createObjectURL(new Blob([raw], { type: 'video/webm' }));
+      video.onloadeddata = () => resolve({ width: video.videoWidth, height: video.videoHeight });
+      video.onerror = () => reject(new Error('the clip does not play: ' + (video.error ? video.error.message : 'unknown error')));
+    })`)) as { width: number; height: number };
+    await player.close();
+    expect(played.width).toBeGreaterThan(300);
+    expect(played.height).toBeGreaterThan(200);
     // A still: a PNG (PNG specification §5.2 signature 89 50 4E 47 0D 0A 1A 0A).
     const still = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Save still (PNG)' }).click();
