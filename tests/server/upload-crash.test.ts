@@ -103,7 +103,7 @@ async function signIn(url: string): Promise<string> {
 
 function uploadTo(url: string, cookie: string, glb: Uint8Array, name: string): Promise<Response> {
   const form = new FormData();
-  form.append('file', new Blob([glb]), `${name}.glb`);
+  form.append('file', new Blob([new Uint8Array(glb)]), `${name}.glb`);
   return fetch(`${url}/api/characters`, { method: 'POST', headers: { cookie }, body: form });
 }
 
