@@ -66,7 +66,8 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
   const w = t.setup.footholds;
   const leg = t.rig.legs[i];
   const reach = leg.chain.reach;
-  const radius = w.searchRadius * t.gait.stride;
+  // Legs with short strides for their reach (insects) still search far enough to step past a gap.
+  const radius = w.searchRadius * Math.max(t.gait.stride, reach);
   // The hip at touchdown and at the following liftoff, the body at the height these footholds will give it.
   hipLocal[0] = leg.hip[0];
   hipLocal[1] = leg.hip[1];

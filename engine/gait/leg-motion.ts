@@ -59,7 +59,13 @@ export function aimLeg(t: Trial, i: number, aim: Float64Array, aimNormal: Float6
   const reach = t.rig.legs[i].chain.reach;
   const hip = ws.rootPos;
   pullInsideReach(hip[0], hip[1], hip[2], TARGET_MAX * reach, aim, 0);
-  pushOutsideFold(hip[0], hip[1], hip[2], t.foldLimit[i] * reach, aim, 0);
+  // A swing path that passes closer to the hip than the leg can fold is revised outward: the revised
+  // path is the plan (the metrics follow it). A target out of reach stays a miss.
+  if (pushOutsideFold(hip[0], hip[1], hip[2], t.foldLimit[i] * reach, aim, 0) && !t.stance[i]) {
+    t.target[o] = aim[0];
+    t.target[o + 1] = aim[1];
+    t.target[o + 2] = aim[2];
+  }
   if (!t.orient[i]) return null;
   const share = orientationShare(t.phase[i], t.gait.dutyFactor);
   if (share > 1 - 1e-9) return t.targetNormalOf[i];

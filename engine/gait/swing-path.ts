@@ -93,6 +93,7 @@ const END_ZONE = 0.03;
 /** Smallest height above the ground of the path's points away from its ends (the sole over nosings, lips and rims). */
 function interiorClearance(hf: Heightfield, p: SwingPlan): number {
   let least = Infinity;
+  const lower = p.y0 < p.y1 ? p.y0 : p.y1;
   for (let i = 1; i < INTERIOR_SAMPLES; i++) {
     swingPoint(p, i / INTERIOR_SAMPLES, scratchA);
     const x = scratchA[0];
@@ -100,12 +101,17 @@ function interiorClearance(hf: Heightfield, p: SwingPlan): number {
     const d0 = Math.hypot(x - p.x0, z - p.z0);
     const d1 = Math.hypot(x - p.x1, z - p.z1);
     if (d0 < END_ZONE || d1 < END_ZONE) continue;
-    const c = scratchA[1] - heightAt(hf, x, z);
+    // Only where the ground stands above the lower end: a nosing, a lip, a bump; not the ground the foot leaves.
+    const g = heightAt(hf, x, z);
+    if (g <= lower + OBSTACLE_RISE) continue;
+    const c = scratchA[1] - g;
     if (c < least) least = c;
   }
   return least;
 }
 const INTERIOR_SAMPLES = 48;
+/** Ground this much above the lower end counts as something to clear, m. */
+const OBSTACLE_RISE = 0.005;
 /** Apex raises tried when even the boxiest path passes too close to an edge. */
 const APEX_RAISES = 3;
 
@@ -136,6 +142,7 @@ export function planSwing(
   p.apex = Math.max(ground, y0, y1) + stepHeight;
   // The ends sit on the ground; measure clearance against the lower of the path and the ground there.
   const endSlack = Math.min(0, y0 - heightAt(hf, x0, z0), y1 - heightAt(hf, x1, z1));
+  const apex = p.apex;
   for (let raise = 0; raise <= APEX_RAISES; raise++) {
     let deficit = 0;
     for (const k of BOXINESS_TRIES) {
@@ -146,6 +153,13 @@ export function planSwing(
     }
     // Even lifted first and set down last, the sole passes an edge too closely: lift it higher.
     p.apex += deficit > 0 ? deficit : 0;
+  }
+  // No lift clears the edge by the floor: the first shape that clears the ground at all.
+  p.apex = apex;
+  for (const k of BOXINESS_TRIES) {
+    p.boxiness = k;
+    p.clearance = pathClearance(hf, p);
+    if (p.clearance >= endSlack - CLEARANCE_SLACK) break;
   }
   return p;
 }

@@ -63,7 +63,10 @@ describe('series', () => {
     const rig = presetRig('biped');
     const course = rubbleCourse(30, 0.06, 0.4, 5, { leadIn: 2 });
     const setup = defaultLegSetup(rig);
-    setup.solver.lambda = 0;
+    // A sluggish solver (one heavily damped iteration a frame), so that the walk has stumbles to find.
+    setup.solver.lambda = 0.4;
+    setup.solver.maxIterations = 1;
+    setup.solver.warmStart = 'previous';
     const r = runTrial(rig, setup, course, { duration: 10, recordRate: 60 });
     expect(r.metrics.events.length).toBeGreaterThan(0);
     const offline = detectStumbles(r.series, course);
