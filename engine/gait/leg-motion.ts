@@ -3,8 +3,10 @@
  *
  * - aimLeg: the point and sole normal the solver aims at. A target out of
  *   reach is replaced by the nearest point of the reach sphere (never chase
- *   what the leg cannot reach), one closer than the leg can fold is pushed
- *   out to its fold limit; the metrics still see the real target. The sole
+ *   what the leg cannot reach), and a stance foot closer than the leg can fold
+ *   is pushed out to its fold limit; the metrics still see the real target. A
+ *   swinging foot is not pushed: pushed away from the hip it would be driven
+ *   down into the step it is clearing. The sole
  *   follows the ground normal by a share that changes over the cycle.
  * - limitLegMotion: after the solve, a leg that has lost its aim eases toward
  *   its rest pose over about a swing, and no joint moves faster than the
@@ -59,13 +61,7 @@ export function aimLeg(t: Trial, i: number, aim: Float64Array, aimNormal: Float6
   const reach = t.rig.legs[i].chain.reach;
   const hip = ws.rootPos;
   pullInsideReach(hip[0], hip[1], hip[2], TARGET_MAX * reach, aim, 0);
-  // A swing path that passes closer to the hip than the leg can fold is revised outward: the revised
-  // path is the plan (the metrics follow it). A target out of reach stays a miss.
-  if (pushOutsideFold(hip[0], hip[1], hip[2], t.foldLimit[i] * reach, aim, 0) && !t.stance[i]) {
-    t.target[o] = aim[0];
-    t.target[o + 1] = aim[1];
-    t.target[o + 2] = aim[2];
-  }
+  if (t.stance[i]) pushOutsideFold(hip[0], hip[1], hip[2], t.foldLimit[i] * reach, aim, 0);
   if (!t.orient[i]) return null;
   const share = orientationShare(t.phase[i], t.gait.dutyFactor);
   if (share > 1 - 1e-9) return t.targetNormalOf[i];
