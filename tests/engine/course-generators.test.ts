@@ -17,9 +17,25 @@ import {
 } from '../../engine/course';
 
 describe('code stairs preset', () => {
-  it('riser ≤ 178 mm and tread ≥ 279 mm (IBC 2021 §1011.5.2)', () => {
-    expect(CODE_STAIRS.riser).toBeLessThanOrEqual(0.178);
-    expect(CODE_STAIRS.tread).toBeGreaterThanOrEqual(0.279);
+  it('a generated flight measures riser ≤ 7 in and tread ≥ 11 in, to the millimetre courses are stored in (IBC 2021 §1011.5.2; 1 in = 25.4 mm exactly)', () => {
+    const hf = codeStairsCourse(6, 'up', { leadIn: 1, leadOut: 1, cellSize: 0.005 });
+    // Walk the centre line and find the edges: where the height jumps between neighbouring samples.
+    const edges: { z: number; rise: number }[] = [];
+    const step = 0.001;
+    for (let z = 0; z + step < courseLength(hf); z += step) {
+      const d = heightAt(hf, 0, z + step) - heightAt(hf, 0, z);
+      if (d > 0.01) {
+        const last = edges[edges.length - 1];
+        if (last && z - last.z < 0.01) last.rise += d;
+        else edges.push({ z, rise: d });
+      }
+    }
+    expect(edges.length).toBe(6);
+    const mm = (m: number) => Math.round(m * 1000);
+    for (const e of edges) expect(mm(e.rise)).toBeLessThanOrEqual(Math.round(7 * 25.4));
+    // Edges sit on a 5 mm grid: the mean tread over the flight is good to 1 mm.
+    const tread = (edges[edges.length - 1].z - edges[0].z) / (edges.length - 1);
+    expect(mm(tread)).toBeGreaterThanOrEqual(Math.round(11 * 25.4));
   });
   it('the generated flight climbs one riser per tread (IBC 2021 §1011.5.2 dimensions)', () => {
     const hf = codeStairsCourse(5, 'up', { leadIn: 1, leadOut: 1 });

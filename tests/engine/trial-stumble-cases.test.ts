@@ -162,10 +162,14 @@ describe('sink and skid', () => {
 describe('body step-up after a curb', () => {
   it('the pelvis rises without overshoot (critically damped filter; Ogata §5-3) and settles', () => {
     const rig = presetRig('biped');
-    const m = runTrial(rig, defaultLegSetup(rig), curbCourse(10, 0.1, { leadIn: 3, leadOut: 20 }), { duration: 20 }).metrics;
+    const setup = defaultLegSetup(rig);
+    const r = runTrial(rig, setup, curbCourse(10, 0.1, { leadIn: 3, leadOut: 20 }), { duration: 20 });
+    const m = r.metrics;
     expect(m.bodyStepUp.count).toBeGreaterThanOrEqual(1);
     expect(m.bodyStepUp.overshootMaxPercent).toBeLessThan(0.5);
-    expect(m.bodyStepUp.settleMeanSeconds).not.toBeNull();
+    // It settles within the 2 % band before the next step has gone by: the filter's settling time after
+    // the swing that asked for the rise (common practice, no source).
+    expect(m.bodyStepUp.settleMeanSeconds ?? Infinity).toBeLessThan(setup.body.settleTime + r.gait.cycleTime);
   });
 });
 
