@@ -24,6 +24,8 @@ const { transformQuat } = vec3;
 export const MIN_TOE_CLEARANCE = 0.0129;
 
 const landing = new Float64Array(3);
+/** Times the search radius is doubled when nothing inside it is reachable. */
+const SEARCH_WIDENINGS = 2;
 const terrain = new Float64Array(1);
 const hipLocal = new Float64Array(3);
 const hipOffset = new Float64Array(3);
@@ -58,8 +60,8 @@ function nextSupportHeight(t: Trial, j: number): number {
 
 /**
  * Choose leg i's touchdown spot for a landing at `landTime` into out (x, y, z):
- * the cheapest reachable candidate around the nominal spot; when none is
- * reachable, the one that over-reaches least.
+ * the cheapest reachable candidate around the nominal spot, widening the
+ * search twice when none is; failing that, the one that over-reaches least.
  */
 export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float64Array): void {
   touchdownPoint(t, i, landTime, landing, 0);
@@ -67,7 +69,7 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
   const leg = t.rig.legs[i];
   const reach = leg.chain.reach;
   // Legs with short strides for their reach (insects) still search far enough to step past a gap.
-  const radius = w.searchRadius * Math.max(t.gait.stride, reach);
+  const radius0 = w.searchRadius * Math.max(t.gait.stride, reach);
   // The hip at touchdown and at the following liftoff, the body at the height these footholds will give it.
   hipLocal[0] = leg.hip[0];
   hipLocal[1] = leg.hip[1];
@@ -88,36 +90,39 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
   let by = landing[1];
   let bz = landing[2];
   let found = false;
-  for (let k = 0; k < CANDIDATE_COUNT; k++) {
-    const cx = landing[0] + CANDIDATE_PATTERN[2 * k] * radius;
-    const cz = landing[2] + CANDIDATE_PATTERN[2 * k + 1] * radius;
-    const cost = terrainCost(t.course, cx, cz, soleHalf, w, terrain);
-    const cy = terrain[0];
-    const hy = (others + cy) / t.legs + lift;
-    const dx = cx - hx;
-    const dy = cy - hy;
-    const dDown = Math.sqrt(dx * dx + dy * dy + (cz - hzDown) * (cz - hzDown));
-    const dUp = Math.sqrt(dx * dx + dy * dy + (cz - hzUp) * (cz - hzUp));
-    const d = dDown > dUp ? dDown : dUp;
-    if (d > limit) {
-      if (!found && d < bestOver) {
-        bestOver = d;
+  // When nothing within the radius is reachable (the nominal spot lies in a gap), the search widens.
+  for (let widen = 0, radius = radius0; widen <= SEARCH_WIDENINGS && !found; widen++, radius *= 2) {
+    for (let k = 0; k < CANDIDATE_COUNT; k++) {
+      const cx = landing[0] + CANDIDATE_PATTERN[2 * k] * radius;
+      const cz = landing[2] + CANDIDATE_PATTERN[2 * k + 1] * radius;
+      const cost = terrainCost(t.course, cx, cz, soleHalf, w, terrain);
+      const cy = terrain[0];
+      const hy = (others + cy) / t.legs + lift;
+      const dx = cx - hx;
+      const dy = cy - hy;
+      const dDown = Math.sqrt(dx * dx + dy * dy + (cz - hzDown) * (cz - hzDown));
+      const dUp = Math.sqrt(dx * dx + dy * dy + (cz - hzUp) * (cz - hzUp));
+      const d = dDown > dUp ? dDown : dUp;
+      if (d > limit) {
+        if (!found && d < bestOver) {
+          bestOver = d;
+          bx = cx;
+          by = cy;
+          bz = cz;
+        }
+        continue;
+      }
+      const dn = Math.sqrt((cx - landing[0]) * (cx - landing[0]) + (cz - landing[2]) * (cz - landing[2]));
+      const over = d / reach - REACH_COST_START;
+      let total = cost + (radius0 > 0 ? (w.distanceWeight * dn) / radius0 : 0);
+      if (over > 0) total += w.reachWeight * (over / (CANDIDATE_MAX - REACH_COST_START)) ** 2;
+      if (total < best) {
+        best = total;
+        found = true;
         bx = cx;
         by = cy;
         bz = cz;
       }
-      continue;
-    }
-    const dn = Math.sqrt((cx - landing[0]) * (cx - landing[0]) + (cz - landing[2]) * (cz - landing[2]));
-    const over = d / reach - REACH_COST_START;
-    let total = cost + (radius > 0 ? (w.distanceWeight * dn) / radius : 0);
-    if (over > 0) total += w.reachWeight * (over / (CANDIDATE_MAX - REACH_COST_START)) ** 2;
-    if (total < best) {
-      best = total;
-      found = true;
-      bx = cx;
-      by = cy;
-      bz = cz;
     }
   }
   out[0] = bx;
