@@ -16,7 +16,7 @@ import { demoCharacterRigs } from './demo-character-rigs';
 import { DEMO_COURSES } from './demo-courses';
 import { TUNED_SETUPS_FILE, tunedDimensions, withTuned, type TunedSetupsFile } from './demo-setups';
 
-const BUDGET = 48;
+const BUDGET = 96;
 const SEED = 2026;
 
 function tune(rig: Rig, base: LegSetup, courses: ReturnType<typeof generateCourse>[]) {

@@ -14,10 +14,11 @@ import { DEFAULT_FROUDE, speedForFroude } from './stride';
 export const LEG_SETUP_VERSION = 1;
 
 /**
- * Default joint speed limit, °/s: under the 720 °/s snap threshold, above the
- * few hundred °/s a knee reaches in walking (from memory, Winter's gait data).
+ * Default joint speed limit, °/s: just under the 720 °/s snap threshold, so a
+ * solve never pops, and well above the few hundred °/s a knee reaches in
+ * walking (from memory, Winter's gait data), so a swing is not held back.
  */
-export const DEFAULT_MAX_JOINT_SPEED = 600;
+export const DEFAULT_MAX_JOINT_SPEED = 700;
 
 export const SolverSettingsSchema = z.object({
   method: z.enum(SOLVER_METHODS as unknown as [SolverMethod, ...SolverMethod[]]),
