@@ -8,6 +8,8 @@
  * characters; a stairs trial costs at most 2× flat per simulated second.
  * `--json`: the last line is {"rows":[{"rig","course","score","stumbles":{…},"unconverged","wallMs"}…]}.
  * `--only NAME` keeps rows whose rig or course contains NAME.
+ * `--tune N`: rows under 95 are then dialled in on their own course with N candidates (the product's
+ * search, seeds/demo-setups.ts's settings and bounds) and the tuned score is printed beside them.
  */
 import { generateCourse, type Heightfield } from '../../engine/course';
 import { GAUNTLET } from '../../engine/course/gauntlet';
@@ -18,7 +20,8 @@ import { runTrial } from '../../engine/gait/trial';
 import { STUMBLE_KINDS } from '../../engine/metrics/stumble-thresholds';
 import { DEMO_COURSES } from '../../seeds/demo-courses';
 import { demoCharacterRigs } from '../../seeds/demo-character-rigs';
-import { seededSetupFor } from '../../seeds/demo-setups';
+import { seededSetupFor, tunedDimensions, withTuned } from '../../seeds/demo-setups';
+import { createDialInSearch, evaluateCandidate } from '../../engine/dialin';
 
 interface Row {
   rig: string;
@@ -94,6 +97,23 @@ async function main(): Promise<void> {
   const below = rows.filter((r) => r.score < 90);
   console.log(`rows below 90: ${below.length} of ${rows.length}; lowest ${Math.min(...rows.map((r) => r.score)).toFixed(1)}`);
   for (const c of costs) console.log(c);
+  const tuneAt = process.argv.indexOf('--tune');
+  if (tuneAt > 0) {
+    const budget = Number(process.argv[tuneAt + 1] ?? 200);
+    for (const r of rows.filter((x) => x.score < 95)) {
+      const subject = subjects.find((x) => x.name === r.rig)!;
+      const course = subject.courses.find((c) => c.name === r.course)!.hf;
+      const dims = tunedDimensions(subject.rig, subject.setup);
+      const search = createDialInSearch({ dimensions: dims, start: dims.map((d) => d.start), budget, seed: 2026 });
+      let best = -Infinity;
+      for (let batch = search.ask(); batch; batch = search.ask()) {
+        const outs = batch.map((p) => evaluateCandidate(subject.rig, withTuned(subject.setup, dims, p.values), [course], { duration: 60 }));
+        for (const o of outs) best = Math.max(best, o.footingScore);
+        search.tell(outs.map((o) => o.objective));
+      }
+      console.log(`tuned (${budget} candidates): ${r.rig.padEnd(10)}${r.course.padEnd(34)}${r.score.toFixed(1)} → ${best.toFixed(1)}`);
+    }
+  }
   if (json) console.log(JSON.stringify({ rows: rows.map(({ msPerSimSecond: _m, ...r }) => r) }));
 }
 
