@@ -92,8 +92,10 @@ export async function createBullmqPool(url: string, log: (line: string) => void 
 
   async function cancelTask(id: string, meta: TaskMeta | undefined) {
     const job = await Job.fromId(queue, id).catch(() => undefined);
-    // A task still waiting is simply removed; one a worker holds is locked and stays, so the broadcast ends it.
-    await job?.remove().catch(() => undefined);
+    // A task still waiting is simply removed; one a worker holds is locked and stays, so the broadcast ends it;
+    // one already finished stays as the record of what it did.
+    const state = await job?.getState().catch(() => 'unknown');
+    if (state === 'waiting' || state === 'delayed' || state === 'prioritized') await job?.remove().catch(() => undefined);
     if (meta && !cancelled.has(meta.jobId)) {
       cancelled.add(meta.jobId);
       await connection.set(cancelledKey(meta.jobId), '1', 'EX', KEEP_SECONDS);
