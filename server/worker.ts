@@ -17,9 +17,11 @@ async function main(): Promise<void> {
   console.log(`Treadle worker ${worker.name}: taking up to ${worker.concurrency} tasks at once from ${shownUrl(url)}.`);
   let stopping = false;
   const stop = () => {
-    if (stopping) return;
+    // A second signal stops at once: the tasks in hand are taken up by another worker once their locks run out.
+    if (stopping) process.exit(1);
     stopping = true;
-    // Tasks in hand finish first; a second signal (or kill -9) leaves them to be taken up by another worker.
+    // Tasks in hand finish first, but not for ever: with Redis gone, closing would wait on it indefinitely.
+    setTimeout(() => process.exit(1), 30_000).unref();
     worker.close().then(() => process.exit(0), () => process.exit(1));
   };
   process.on('SIGINT', stop);
