@@ -6,7 +6,7 @@ const nodeProject = (name, roots) => ({
   testMatch: ['**/*.test.ts'],
   transform: { '^.+\\.m?[jt]sx?$': 'babel-jest' },
   // ESM-only packages that the node projects load through babel.
-  transformIgnorePatterns: ['/node_modules/(?!(three|simplex-noise|gl-matrix|@gltf-transform|property-graph|ktx-parse|fmin)/)'],
+  transformIgnorePatterns: ['/node_modules/(?!(three|simplex-noise|gl-matrix|@gltf-transform|property-graph|ktx-parse)/)'],
   moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
 });
 
