@@ -20,7 +20,7 @@ export const SOLVER_METHOD_NOTES: Record<SolverMethod, string> = {
   transpose: 'Jacobian transpose: cheap steps along the gradient; needs more iterations.',
   pseudoinverse: 'Pseudoinverse: exact steps, with tiny singular values dropped; can snap near full stretch.',
   adaptive: 'DLS whose damping grows near full stretch (from manipulability) or with the error.',
-  ccd: 'Cyclic coordinate descent: one joint at a time, foot to hip.',
+  ccd: 'Cyclic coordinate descent: one joint at a time, foot to hip. Position only: it does not turn the sole to the ground.',
 };
 
 const GAIT_NAMES: Record<string, string> = {

@@ -107,45 +107,43 @@ const TARGET_CAP = 0.96;
 /** A stance leg keeps this much more than its fold limit. */
 const FOLD_TO_STANCE = 0.1;
 
+/**
+ * The body height at which stance leg i's hip is `r` from its planted foot (the hip turned by the body's
+ * present rotation); NaN when the foot lies further than r from the hip horizontally.
+ */
+function heightAtDistance(t: Trial, i: number, r: number): number {
+  const leg = t.rig.legs[i];
+  hipLocal[0] = leg.hip[0];
+  hipLocal[1] = leg.hip[1];
+  hipLocal[2] = leg.hip[2];
+  transformQuat(hipWorld as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
+  const o = 3 * i;
+  const dx = t.bodyPos[0] + hipWorld[0] - t.plant[o];
+  const dz = t.bodyPos[2] + hipWorld[2] - t.plant[o + 2];
+  const h2 = r * r - dx * dx - dz * dz;
+  return h2 > 0 ? t.plant[o + 1] + Math.sqrt(h2) - hipWorld[1] : NaN;
+}
+
 /** Highest body height at which every stance leg's hip is within `share` of its reach from its planted foot. */
 function stanceHeightCap(t: Trial, share: number): number {
   let cap = Infinity;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
-    const leg = t.rig.legs[i];
-    hipLocal[0] = leg.hip[0];
-    hipLocal[1] = leg.hip[1];
-    hipLocal[2] = leg.hip[2];
-    transformQuat(hipWorld as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
-    const o = 3 * i;
-    const dx = t.bodyPos[0] + hipWorld[0] - t.plant[o];
-    const dz = t.bodyPos[2] + hipWorld[2] - t.plant[o + 2];
-    const r = share * leg.chain.reach;
-    const h2 = r * r - dx * dx - dz * dz;
-    const top = t.plant[o + 1] + (h2 > 0 ? Math.sqrt(h2) : 0) - hipWorld[1];
+    let top = heightAtDistance(t, i, share * t.rig.legs[i].chain.reach);
+    // Out of reach already: no height helps, so hold the hip level with the foot's side of the sphere.
+    if (top !== top) top = t.plant[3 * i + 1] - hipWorld[1];
     if (top < cap) cap = top;
   }
   return cap;
 }
 
-/** Lowest body height at which every stance leg's hip is at least `share` of its reach from its planted foot. */
+/** Lowest body height at which every stance leg's hip is at least `share` of its reach (and clear of its fold limit) from its planted foot. */
 function stanceHeightFloor(t: Trial, share: number): number {
   let floor = -Infinity;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
-    const leg = t.rig.legs[i];
-    hipLocal[0] = leg.hip[0];
-    hipLocal[1] = leg.hip[1];
-    hipLocal[2] = leg.hip[2];
-    transformQuat(hipWorld as unknown as vec3, hipLocal as unknown as vec3, t.bodyRot as unknown as quat);
-    const o = 3 * i;
-    const dx = t.bodyPos[0] + hipWorld[0] - t.plant[o];
-    const dz = t.bodyPos[2] + hipWorld[2] - t.plant[o + 2];
     const fold = t.foldLimit[i] + FOLD_TO_STANCE;
-    const r = (share > fold ? share : fold) * leg.chain.reach;
-    const h2 = r * r - dx * dx - dz * dz;
-    if (h2 <= 0) continue;
-    const low = t.plant[o + 1] + Math.sqrt(h2) - hipWorld[1];
+    const low = heightAtDistance(t, i, (share > fold ? share : fold) * t.rig.legs[i].chain.reach);
     if (low > floor) floor = low;
   }
   return floor;

@@ -153,7 +153,7 @@ export function createTrial(rig: Rig, setupInput: unknown, course: Heightfield, 
       const up = legSolvers[i].footOrientation ? UP : null;
       return measureFoldLimit(ws, l.chain.reach, (target) => solve(ws, target, up, { maxIterations: SETTLE_ITERATIONS }).positionError);
     }),
-    // CCD turns one joint at a time toward the sole's position only: it has no orientation rows (documented in the form).
+    // CCD turns one joint at a time toward the sole's position only: it has no orientation rows (the form says so).
     orient: Uint8Array.from(legSolvers, (s) => (s.footOrientation && s.method !== 'ccd' ? 1 : 0)),
     totalFrames,
     frame: 0,
@@ -248,7 +248,13 @@ function soleHalfLength(chain: LegChain): number {
   return Math.min(0.1, Math.max(0.03, fromToe));
 }
 
-
+/** Share of the walk done, 0..1: the further of time and distance, since a walk ends at the course's end or its duration. */
+export function trialProgress(t: Trial): number {
+  const byTime = t.frame / t.totalFrames;
+  const byDistance = (t.bodyPos[2] - t.startZ) / (t.lastBodyZ - t.startZ);
+  const p = byTime > byDistance ? byTime : byDistance;
+  return p < 0 ? 0 : p > 1 ? 1 : p;
+}
 
 /** Advance one frame; returns false once the trial is over. */
 export function stepTrial(t: Trial): boolean {

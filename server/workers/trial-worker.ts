@@ -7,7 +7,7 @@ import { decodeCourse, type CourseEncoding } from '../../engine/course/encoding'
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import { encodeSeries, type SeriesEncoding } from '../../engine/gait/series-encoding';
-import { createTrial, finishTrial, stepTrial, type TrialOptionsInput } from '../../engine/gait/trial';
+import { createTrial, finishTrial, stepTrial, trialProgress, type TrialOptionsInput } from '../../engine/gait/trial';
 import type { TrialMetrics } from '../../engine/metrics/trial-metrics';
 
 export interface TrialTask {
@@ -29,7 +29,7 @@ const REPORT_EVERY = 120;
 export function runTrialTask({ payload, port }: { payload: TrialTask; port?: MessagePort }): TrialTaskResult {
   const t = createTrial(payload.rig, payload.setup, decodeCourse(payload.course), payload.options);
   while (stepTrial(t)) {
-    if (port && t.frame % REPORT_EVERY === 0) port.postMessage({ fraction: t.frame / t.totalFrames });
+    if (port && t.frame % REPORT_EVERY === 0) port.postMessage({ fraction: trialProgress(t) });
   }
   const r = finishTrial(t);
   port?.postMessage({ fraction: 1 });
