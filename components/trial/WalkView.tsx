@@ -6,6 +6,7 @@ import type { Heightfield } from '../../engine/course/heightfield';
 import type { Rig } from '../../engine/gait/rig';
 import { colors, radius } from '../../constants/theme';
 import { createWalkScene, type WalkPose, type WalkScene } from './walk-scene';
+import { useDrawLoop } from '../viewer/useDrawLoop';
 
 /** GLView's web-only prop: preserveDrawingBuffer lets browser tests read pixels back. */
 const webContextProps = Platform.OS === 'web' ? ({ webglContextAttributes: { preserveDrawingBuffer: true, antialias: true } } as object) : {};
@@ -46,19 +47,7 @@ export function WalkView({ course, rig, poseAt, animating, revision, height = 30
     [course, rig, draw],
   );
 
-  useEffect(() => {
-    if (!animating) {
-      draw();
-      return;
-    }
-    let handle = 0;
-    const loop = () => {
-      draw();
-      handle = requestAnimationFrame(loop);
-    };
-    handle = requestAnimationFrame(loop);
-    return () => cancelAnimationFrame(handle);
-  }, [animating, revision, draw]);
+  useDrawLoop(animating, draw, [revision]);
 
   useEffect(
     () => () => {

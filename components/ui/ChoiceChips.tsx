@@ -25,24 +25,7 @@ export function ChoiceChips<T extends string>({
   return (
     <View style={styles.wrap}>
       <Text style={styles.label}>{label}</Text>
-      <View role="radiogroup" aria-label={label} style={styles.row}>
-        {choices.map((c) => {
-          const on = c.value === value;
-          return (
-            <Pressable
-              key={c.value}
-              role="radio"
-              aria-checked={on}
-              accessibilityLabel={c.label}
-              disabled={disabled}
-              onPress={() => onChange(c.value)}
-              style={[styles.chip, on && styles.chipOn, disabled && styles.disabled]}
-            >
-              <Text style={[styles.chipText, on && styles.chipTextOn]}>{c.label}</Text>
-            </Pressable>
-          );
-        })}
-      </View>
+      <ChipGroup label={label} choices={choices} value={value} onChange={onChange} disabled={disabled} />
       {error ? (
         <Text role="alert" style={styles.error}>
           {error}
@@ -52,10 +35,52 @@ export function ChoiceChips<T extends string>({
   );
 }
 
+/**
+ * The chips alone, as a radiogroup of radios named by `label`; `compact` packs them tighter for a tool
+ * strip. ChoiceChips puts its label above them, ChoiceRow (components/course) beside them.
+ */
+export function ChipGroup<T extends string>({
+  label,
+  choices,
+  value,
+  onChange,
+  disabled,
+  compact,
+}: {
+  label: string;
+  choices: readonly Choice<T>[];
+  value: T | undefined;
+  onChange(value: T): void;
+  disabled?: boolean;
+  compact?: boolean;
+}) {
+  return (
+    <View role="radiogroup" aria-label={label} style={[styles.row, compact && styles.rowCompact]}>
+      {choices.map((c) => {
+        const on = c.value === value;
+        return (
+          <Pressable
+            key={c.value}
+            role="radio"
+            aria-checked={on}
+            accessibilityLabel={c.label}
+            disabled={disabled}
+            onPress={() => onChange(c.value)}
+            style={[styles.chip, compact && styles.chipCompact, on && styles.chipOn, disabled && styles.disabled]}
+          >
+            <Text style={[styles.chipText, on && styles.chipTextOn]}>{c.label}</Text>
+          </Pressable>
+        );
+      })}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   label: { fontFamily: fonts.bodyMedium, fontSize: 14, color: colors.ink },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  rowCompact: { gap: 6, flexShrink: 1 },
   chip: {
     minHeight: touchTarget,
     minWidth: touchTarget,
@@ -67,6 +92,7 @@ const styles = StyleSheet.create({
     backgroundColor: colors.card,
     justifyContent: 'center',
   },
+  chipCompact: { paddingHorizontal: space.sm },
   chipOn: { backgroundColor: colors.ink, borderColor: colors.ink },
   chipText: { fontFamily: fonts.bodyMedium, fontSize: 14, color: colors.ink },
   chipTextOn: { color: colors.onInk },

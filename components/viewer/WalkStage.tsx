@@ -15,6 +15,7 @@ import { createFollowCamera, WALK_FOV, type FollowCamera } from './follow-camera
 import { useOrbitGestures } from './gestures';
 import { createWalkMarks, type WalkMarks } from './walk-marks';
 import type { WalkReplay } from './walk-replay';
+import { useDrawLoop } from './useDrawLoop';
 
 /** One walker on the stage: its rig and series, the replay that poses its mesh, and the mesh's bytes. */
 export interface StageWalker {
@@ -280,19 +281,7 @@ export function WalkStage({
     draw();
   }, [walkers, skeleton, sync, draw]);
 
-  useEffect(() => {
-    if (!animating) {
-      draw();
-      return;
-    }
-    let handle = 0;
-    const loop = () => {
-      draw();
-      handle = requestAnimationFrame(loop);
-    };
-    handle = requestAnimationFrame(loop);
-    return () => cancelAnimationFrame(handle);
-  }, [animating, revision, focus?.seq, draw]);
+  useDrawLoop(animating, draw, [revision, focus?.seq]);
 
   useEffect(
     () => () => {

@@ -61,7 +61,7 @@ describe('a gap narrower than the leg can reach across', () => {
   // Two 25 cm gaps, 60 cm deep (deeper than any preset leg reaches from its hip): no foot may land inside.
   const course = generateCourse({ cellSize: 0.02, segments: [{ kind: 'flat', length: LEAD }, { kind: 'trench', length: 1.5, width: 0.25, depth: 0.6 }, { kind: 'flat', length: 1.5 }, { kind: 'trench', length: 1.5, width: 0.25, depth: 0.6 }, { kind: 'flat', length: LEAD }] });
   const gaps = [LEAD + 0.625, LEAD + 3 + 0.625].map((a) => [a, a + 0.25]);
-  it.each<PresetRigName>(['biped', 'quadruped'])('%s: no foothold is chosen inside a gap', (name) => {
+  it.each<PresetRigName>(['biped', 'quadruped'])('%s: no foothold is chosen inside a gap (common practice, no source)', (name) => {
     const rig = presetRig(name);
     const t = createTrial(rig, defaultLegSetup(rig), course, { duration: 40 });
     let inside = 0;
