@@ -1,70 +1,25 @@
 import { z } from 'zod';
+import { legMappingSchema, detectedLegSchema, vec3Schema } from '../engine/rig/leg-mapping';
+
+/** The leg shapes belong to the engine, which reads them too; the API uses them from there. */
+export {
+  MAX_LEG_DOF_JOINTS,
+  legDofKindSchema,
+  legSideSchema,
+  legJointSchema,
+  legMappingSchema,
+  detectedLegSchema,
+  type Vec3,
+  type LegDofKind,
+  type LegSide,
+  type LegJoint,
+  type LegMapping,
+  type DetectedLeg,
+} from '../engine/rig/leg-mapping';
+export { DOF_SHAPE } from '../engine/rig/dof-kinds';
 
 /** Most legs a character may map (an eight-legged crawler with room to spare). */
 export const MAX_LEGS = 16;
-/** A leg is 2–5 skeleton joints: 1–4 that move plus the end joint at the sole. */
-export const MAX_LEG_DOF_JOINTS = 4;
-
-const vec3Schema = z.tuple([z.number().finite(), z.number().finite(), z.number().finite()]);
-export type Vec3 = z.infer<typeof vec3Schema>;
-
-/** Joint kinds a leg can use (the engine's DOF kinds: engine/rig/types.ts DofKind). */
-export const legDofKindSchema = z.enum(['ball', 'hinge', 'universal', 'slider'], { error: 'Pick ball, hinge, universal or slider.' });
-export type LegDofKind = z.infer<typeof legDofKindSchema>;
-
-export const legSideSchema = z.enum(['left', 'right', 'centre'], { error: 'Pick left, right or centre.' });
-export type LegSide = z.infer<typeof legSideSchema>;
-
-const rangeSchema = z
-  .object({ min: z.number({ error: 'Enter a number.' }).finite(), max: z.number({ error: 'Enter a number.' }).finite() })
-  .refine((r) => r.min <= r.max, { message: 'The lower limit must not exceed the upper one.', path: ['max'] });
-
-/** How many rotation axes and limit ranges each kind carries. A ball has no axes and two ranges: swing cone [0, half-angle] and twist. */
-export const DOF_SHAPE: Record<LegDofKind, { axes: number; limits: number }> = {
-  hinge: { axes: 1, limits: 1 },
-  universal: { axes: 2, limits: 2 },
-  ball: { axes: 0, limits: 2 },
-  slider: { axes: 1, limits: 1 },
-};
-
-/**
- * One moving joint of a leg. Axes are unit vectors in the character's rest (bind) space, +Y up, metres;
- * limits are radians around those axes relative to the rest pose (metres along the axis for a slider).
- */
-export const legJointSchema = z
-  .object({
-    joint: z.number({ error: 'Pick a joint.' }).int().min(0),
-    dof: legDofKindSchema,
-    axes: z.array(vec3Schema).max(2),
-    limits: z.array(rangeSchema).max(2),
-  })
-  .superRefine((j, ctx) => {
-    const shape = DOF_SHAPE[j.dof];
-    if (j.axes.length !== shape.axes) ctx.addIssue({ code: 'custom', path: ['axes'], message: `A ${j.dof} joint has ${shape.axes} axes.` });
-    if (j.limits.length !== shape.limits) ctx.addIssue({ code: 'custom', path: ['limits'], message: `A ${j.dof} joint has ${shape.limits} limit ranges.` });
-  });
-export type LegJoint = z.infer<typeof legJointSchema>;
-
-/** A leg as the user confirms it: its moving joints hip → ankle and the end joint whose rest position is the sole point. */
-export const legMappingSchema = z.object({
-  name: z.string({ error: 'Name the leg.' }).trim().min(1, 'Name the leg.').max(40, 'Use at most 40 characters.'),
-  side: legSideSchema,
-  joints: z
-    .array(legJointSchema)
-    .min(1, 'A leg needs at least one moving joint.')
-    .max(MAX_LEG_DOF_JOINTS, `A leg has at most ${MAX_LEG_DOF_JOINTS} moving joints.`),
-  end: z.number({ error: 'Pick the end joint.' }).int().min(0),
-});
-export type LegMapping = z.infer<typeof legMappingSchema>;
-
-/** A leg as detection found it: the mapping plus how sure detection was (0–1) and what it relied on. */
-export const detectedLegSchema = legMappingSchema.extend({
-  confidence: z.number().min(0).max(1),
-  /** Index of its mirror partner in the same list, or null when unpaired. */
-  mirrorOf: z.number().int().nullable(),
-  evidence: z.array(z.string()),
-});
-export type DetectedLeg = z.infer<typeof detectedLegSchema>;
 
 /** PUT /api/characters/:id/legs. Topology (joints exist, hip → end is one path, no joint in two legs) is checked by the server against the skeleton. */
 export const legMappingUpdateSchema = z.object({

@@ -1,6 +1,6 @@
 /**
  * A walking Rig from an imported character: its rest skeleton and the legs
- * the user confirmed (LegMapping[], schemas/characters.ts).
+ * the user confirmed (LegMapping[], engine/rig/leg-mapping.ts).
  *
  * Leg chains keep the character's rest (bind) space axes: every chain joint
  * gets the identity rest rotation and its offset is the rest world position
@@ -17,7 +17,7 @@
  *
  * Used by the trial workers, the live preview and the leg-profile runtime.
  */
-import type { LegJoint, LegMapping } from '../../schemas/characters';
+import type { LegJoint, LegMapping } from '../rig/leg-mapping';
 import { jointWorldPositions } from '../rig/skeleton-world';
 import type { ChainJoint, LegChain, Skeleton } from '../rig/types';
 import { checkRig, type Rig, type RigLeg } from './rig';

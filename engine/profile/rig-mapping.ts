@@ -1,5 +1,5 @@
 /** The rig mapping by joint names (what a profile carries) to and from joint indices (what a skeleton uses). */
-import type { LegMapping } from '../../schemas/characters';
+import type { LegMapping } from '../rig/leg-mapping';
 import type { ProfileRig } from './schema';
 
 export class LegProfileBindError extends Error {

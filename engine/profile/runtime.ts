@@ -23,7 +23,7 @@ import type { Rig } from '../gait/rig';
 import { createTrial, stepTrial, type Trial, type TrialOptionsInput } from '../gait/trial';
 import { jointWorldMatrix as chainJointWorldMatrix } from '../ik/kinematics';
 import type { Skeleton } from '../rig/types';
-import type { LegMapping } from '../../schemas/characters';
+import type { LegMapping } from '../rig/leg-mapping';
 import { LegProfileError, parseLegProfile } from './export';
 import { legMappingsFor } from './rig-mapping';
 import type { LegProfile } from './schema';

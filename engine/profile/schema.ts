@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { LegSetupSchema } from '../gait/leg-setup';
-import { legDofKindSchema, legSideSchema } from '../../schemas/characters';
+import { legDofKindSchema, legSideSchema } from '../rig/leg-mapping';
 import { SuiteMetricsSchema } from './suite-metrics';
 
 /** The JSON Schema's $id and the `schema` field of every profile file. */

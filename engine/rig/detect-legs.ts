@@ -5,7 +5,7 @@
  * withers) down to one of the lowest leaf joints, 2–5 joints long, hanging downward and off the
  * character's mirror plane. glTF 2.0 §3.4: +Y up, the front faces +Z, so +X is the character's left.
  */
-import type { DetectedLeg, LegSide } from '../../schemas/characters';
+import type { DetectedLeg, LegSide } from './leg-mapping';
 import type { Skeleton } from './types';
 import { chainLengths, jointChildren, jointWorldPositions } from './skeleton-world';
 import { nameHint, nameSide } from './skeleton-names';

@@ -3,7 +3,7 @@
  * hierarchy (every joint below the previous one, the end joint below the last), and no joint serves two legs.
  * Returns messages keyed like zod's field paths ("legs.0.joints.1.joint"), empty when all is well.
  */
-import type { LegMapping } from '../../schemas/characters';
+import type { LegMapping } from './leg-mapping';
 import type { Skeleton } from './types';
 import { isDescendant } from './skeleton-world';
 

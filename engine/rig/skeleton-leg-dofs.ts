@@ -2,7 +2,7 @@
  * DOF kinds and default limits for the joints of a detected leg, from the rest pose alone.
  * Axes are in the character's rest space (+Y up, glTF 2.0 §3.4); angles in radians relative to rest.
  */
-import type { LegDofKind, LegJoint, Vec3 } from '../../schemas/characters';
+import type { LegDofKind, LegJoint, Vec3 } from './leg-mapping';
 
 const DEG = Math.PI / 180;
 

@@ -5,6 +5,8 @@
  * quaternions stored as [x, y, z, w], matrices column-major.
  */
 
+import type { DofKind } from './dof-kinds';
+
 export type Vec3Like = readonly [number, number, number] | ArrayLike<number>;
 export type QuatLike = readonly [number, number, number, number] | ArrayLike<number>;
 
@@ -23,10 +25,8 @@ export interface Skeleton {
   joints: SkeletonJoint[];
 }
 
-/** Kinds of leg joint. Number of DOFs: hinge 1, universal 2, ball 3, slider 1. */
-export type DofKind = 'hinge' | 'universal' | 'ball' | 'slider';
-
-export const DOF_COUNT: Record<DofKind, number> = { hinge: 1, universal: 2, ball: 3, slider: 1 };
+/** Kinds of leg joint and their DOF counts live in dof-kinds.ts. */
+export { DOF_COUNT, type DofKind } from './dof-kinds';
 
 /** A closed range for one DOF: radians for rotations, metres for sliders. */
 export interface DofLimit {
