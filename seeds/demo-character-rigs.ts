@@ -2,7 +2,7 @@
 import { rigFromCharacter } from '../engine/gait/character-rig';
 import type { Rig } from '../engine/gait/rig';
 import { analyseUpload } from '../server/services/gltf-import-analyse';
-import { mappingOf } from '../server/services/gltf-import-store';
+import { mappingOf } from '../engine/rig/leg-mapping';
 import { DEMO_DESIGNS } from './characters';
 import { buildCharacterGlb } from './characters/rig-builder';
 

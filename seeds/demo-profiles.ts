@@ -1,7 +1,7 @@
 import type { Db } from '../server/db';
 import { publishProfile } from '../server/services/profiles';
-import { findCharacterRow } from '../server/services/gltf-import-store';
-import { characterOfRow, rigOf, setupFor } from '../server/services/suite-runs';
+import { loadCharacterRig } from '../server/services/characters';
+import { setupFor } from '../server/services/suite-runs';
 import { DEMO_SUITE } from './demo-courses';
 
 /**
@@ -29,10 +29,9 @@ export async function seedDemoProfiles(db: Db, teamId: number, fallbackAuthorId:
     await publishProfile(db, first);
     if (c.name !== 'Wicket') continue;
     // Version 2: the same setup with more DLS damping (steadier knees near full extension).
-    const row = await findCharacterRow(db, teamId, c.id);
-    if (!row) continue;
+    const { rig } = await loadCharacterRig(db, teamId, c.id);
     const latest = await db('profile_versions as v').join('profiles as p', 'p.id', 'v.profile_id').where('p.character_id', c.id).orderBy('v.version', 'desc').first('v.document');
-    const setup = setupFor(rigOf(characterOfRow(row)), JSON.parse(latest.document).legSetup);
+    const setup = setupFor(rig, JSON.parse(latest.document).legSetup);
     const damped = { ...setup, solver: { ...setup.solver, lambda: Math.round((setup.solver.lambda * 1.5 + 0.01) * 1000) / 1000 } };
     // The note says what was changed and why; the score beside it on the profile page says how it went.
     await publishProfile(db, { ...first, legSetup: damped, notes: 'More DLS damping (λ × 1.5 + 0.01), tried for a steadier knee near full extension on the dock steps.', now: at + 30 * 60_000 });

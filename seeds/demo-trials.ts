@@ -3,7 +3,8 @@ import { defaultLegSetup, type LegSetup } from '../engine/gait/leg-setup';
 import { runTrial } from '../engine/gait/trial';
 import { encodeSeries } from '../engine/gait/series-encoding';
 import { loadCourse } from '../server/services/courses';
-import { loadWalkingCharacter, saveLegSetup } from '../server/services/leg-setups';
+import { saveLegSetup } from '../server/services/leg-setups';
+import { loadCharacterRig } from '../server/services/characters';
 import { TRIAL_SECONDS } from '../schemas/trials';
 import { DEMO_SUITE } from './demo-courses';
 import { seededSetupFor, tunedRecordFor } from './demo-setups';
@@ -27,7 +28,7 @@ export async function seedDemoTrials(db: Db, teamId: number, userId: number, now
   let tick = 0;
   for (const c of characters) {
     if (await db('leg_setups').where({ character_id: c.id }).first('id')) continue;
-    const character = await loadWalkingCharacter(db, teamId, c.id).catch(() => null);
+    const character = await loadCharacterRig(db, teamId, c.id).catch(() => null);
     if (!character) continue;
     const at = now + 60_000 * tick++;
     const defaults = defaultLegSetup(character.rig);

@@ -56,3 +56,8 @@ export const detectedLegSchema = legMappingSchema.extend({
   evidence: z.array(z.string()),
 });
 export type DetectedLeg = z.infer<typeof detectedLegSchema>;
+
+/** Strips what only detection knows (confidence, evidence) from a detected leg. */
+export function mappingOf(leg: DetectedLeg): LegMapping {
+  return { name: leg.name, side: leg.side, joints: leg.joints, end: leg.end };
+}

@@ -11,7 +11,7 @@ import { encodeCourse } from '../../engine/course/encoding';
 import { summariseOutcome, type CandidateOutcome, type CourseOutcome } from '../../engine/dialin/objective';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
 import { loadCourse, type LoadedCourse } from '../services/courses';
-import { loadWalkingCharacter } from '../services/leg-setups';
+import { loadCharacterRig } from '../services/characters';
 import { settleReservation } from '../services/billing-limits';
 import { dialInParamSchema, type DialInResult, type DialInScores } from '../../schemas/dial-ins';
 import { TRIAL_SECONDS } from '../../schemas/trials';
@@ -57,7 +57,7 @@ function plotOf(candidates: EvaluatedCandidate[]): DialInResult['history'] {
 export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
   return async (ctx) => {
     const input = dialInJobInputSchema.parse(ctx.input);
-    const character = await loadWalkingCharacter(db, ctx.teamId, input.characterId);
+    const character = await loadCharacterRig(db, ctx.teamId, input.characterId);
     const courses: LoadedCourse[] = [];
     for (const id of input.courseIds) courses.push(await loadCourse(db, ctx.teamId, id));
     const context: DialInContext = { rig: character.rig, base: input.base, params: input.params, courses: courses.map((c) => encodeCourse(c.heightfield)), options: { duration: input.duration } };

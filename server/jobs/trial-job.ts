@@ -8,7 +8,7 @@ import type { Db } from '../db';
 import { encodeCourse } from '../../engine/course/encoding';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
 import { loadCourse, type LoadedCourse } from '../services/courses';
-import { loadWalkingCharacter } from '../services/leg-setups';
+import { loadCharacterRig } from '../services/characters';
 import { TRIAL_SECONDS, type TrialJobResult } from '../../schemas/trials';
 import type { TrialTaskResult } from '../workers/trial-worker';
 import { JobCommit, type JobHandler } from './job-runner';
@@ -31,7 +31,7 @@ const SIMULATION_SHARE = 95;
 export function trialJobHandler(db: Db, clock: Clock): JobHandler {
   return async (ctx) => {
     const input = trialJobInputSchema.parse(ctx.input);
-    const character = await loadWalkingCharacter(db, ctx.teamId, input.characterId);
+    const character = await loadCharacterRig(db, ctx.teamId, input.characterId);
     const courses: LoadedCourse[] = [];
     for (const id of input.courseIds) courses.push(await loadCourse(db, ctx.teamId, id));
     const fractions = courses.map(() => 0);

@@ -8,7 +8,7 @@ import { parseWith } from '../errors';
 import { uploadParser } from '../middleware/uploads';
 import { viewerOf } from '../middleware/auth';
 import { checkFieldsSchema, versionParamSchema, type ApiCharacterList, type CheckResult } from '../../schemas/profiles';
-import { characterRows } from '../services/gltf-import-store';
+import { charactersWithProfiles } from '../services/characters';
 import { uploadCapBytes } from '../services/character-files';
 import { findVersion, profilesOfCharacter } from '../services/profiles';
 import { checkProfile } from '../services/profile-check';
@@ -36,24 +36,7 @@ export function apiV1Router(deps: AppDeps): Router {
 
   router.get('/characters', async (req, res) => {
     const { team } = viewerOf(req);
-    type Row = { id: number; name: string; sha256: string; profile_id: number | null; latest: number | null };
-    const rows = (await characterRows(deps.db, team.id)
-      .leftJoin('profiles as p', 'p.character_id', 'c.id')
-      .leftJoin('profile_versions as v', 'v.profile_id', 'p.id')
-      .groupBy('c.id')
-      .clearSelect()
-      .select('c.id', 'c.name', 'c.sha256', 'p.id as profile_id')
-      .max({ latest: 'v.version' })
-      .orderBy('c.name')
-      .orderBy('c.id')) as unknown as Row[];
-    const body: ApiCharacterList = {
-      characters: rows.map((r) => ({
-        id: r.id,
-        name: r.name,
-        sha256: r.sha256,
-        profile: r.profile_id && r.latest ? { id: r.profile_id, latestVersion: r.latest } : null,
-      })),
-    };
+    const body: ApiCharacterList = { characters: await charactersWithProfiles(deps.db, team.id) };
     res.json(body);
   });
 

@@ -1,8 +1,7 @@
-import fs from 'node:fs';
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { HttpError, notFound, parseWith } from '../errors';
+import { notFound, parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import {
   characterUploadFieldsSchema,
@@ -10,35 +9,30 @@ import {
   type CharacterDetail,
   type CharacterList,
   type CharacterUploadResult,
-  type DetectedLeg,
-  type ImportReport,
 } from '../../schemas/characters';
-import { legMappingProblems } from '../../engine/rig/skeleton-leg-check';
-import { characterFilePath, uploadCapBytes } from '../services/character-files';
-import { characterFromRow, characterRows, findCharacterRow, storeCharacterUpload, type StoredSkeleton } from '../services/gltf-import-store';
+import { uploadCapBytes } from '../services/character-files';
+import { storeCharacterUpload } from '../services/gltf-import-store';
+import { characterDetail, getCharacter, listCharacters, storedCharacterFile, updateCharacterLegs } from '../services/characters';
 import { uploadParser } from '../middleware/uploads';
 
 /** A .gltf may come with its .bin and images; more parts than this is not a character. */
 const MAX_FILES = 32;
 
 const idSchema = z.coerce.number().int().positive();
+/** A malformed id names no character of the team: the same 404 as another team's. */
+function idOf(raw: unknown): number {
+  const id = idSchema.safeParse(raw);
+  if (!id.success) throw notFound('That character');
+  return id.data;
+}
 
 /** Characters: upload, list, read, the stored file, leg mapping. */
 export function charactersRouter(deps: AppDeps): Router {
   const router = Router();
   const store = { db: deps.db, dataDir: deps.dataDir, now: () => deps.clock.now() };
 
-  async function rowOr404(teamId: number, rawId: unknown) {
-    const id = idSchema.safeParse(rawId);
-    const row = id.success ? await findCharacterRow(deps.db, teamId, id.data) : undefined;
-    if (!row) throw notFound('That character');
-    return row;
-  }
-
   router.get('/', async (req, res) => {
-    const { team } = viewerOf(req);
-    const rows = await characterRows(deps.db, team.id).orderBy('c.created_at', 'desc').orderBy('c.id', 'desc');
-    const body: CharacterList = { characters: rows.map(characterFromRow) };
+    const body: CharacterList = { characters: await listCharacters(deps.db, viewerOf(req).team.id) };
     res.json(body);
   });
 
@@ -47,54 +41,28 @@ export function charactersRouter(deps: AppDeps): Router {
     const fields = parseWith(characterUploadFieldsSchema, req.body);
     const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({ originalname: f.originalname, buffer: f.buffer }));
     const stored = await storeCharacterUpload(store, { teamId: team.id, userId: user.id, name: fields.name, files });
-    const row = await findCharacterRow(deps.db, team.id, stored.id);
-    const body: CharacterUploadResult = { character: characterFromRow(row!), report: stored.report, existing: stored.existing };
+    const body: CharacterUploadResult = { character: await getCharacter(deps.db, team.id, stored.id), report: stored.report, existing: stored.existing };
     res.status(stored.existing ? 200 : 201).json(body);
   });
 
   router.get('/:id', async (req, res) => {
-    const row = await rowOr404(viewerOf(req).team.id, req.params.id);
-    const skeleton = JSON.parse(row.skeleton_json) as StoredSkeleton;
-    const body: CharacterDetail = {
-      character: characterFromRow(row),
-      skeleton: {
-        joints: skeleton.joints.map((j, i) => ({
-          name: j.name,
-          parent: j.parent,
-          position: [skeleton.positions[3 * i], skeleton.positions[3 * i + 1], skeleton.positions[3 * i + 2]],
-        })),
-      },
-      detectedLegs: JSON.parse(row.detected_legs_json) as DetectedLeg[],
-      report: JSON.parse(row.report_json) as ImportReport,
-    };
+    const body: CharacterDetail = await characterDetail(deps.db, viewerOf(req).team.id, idOf(req.params.id));
     res.json(body);
   });
 
   router.get('/:id/file', async (req, res) => {
-    const row = await rowOr404(viewerOf(req).team.id, req.params.id);
-    const file = characterFilePath(deps.dataDir, row.sha256);
-    if (!fs.existsSync(file)) throw new HttpError(410, 'file_missing', 'The stored file of this character is missing from the server. Upload it again.');
+    const file = await storedCharacterFile(deps.db, deps.dataDir, viewerOf(req).team.id, idOf(req.params.id));
     res.setHeader('Content-Type', 'model/gltf-binary');
     res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
-    res.setHeader('ETag', `"${row.sha256}"`);
-    res.sendFile(file);
+    res.setHeader('ETag', `"${file.sha256}"`);
+    res.sendFile(file.path);
   });
 
   router.put('/:id/legs', async (req, res) => {
     const { team } = viewerOf(req);
-    const row = await rowOr404(team.id, req.params.id);
+    const id = idOf(req.params.id);
     const { legs } = parseWith(legMappingUpdateSchema, req.body);
-    const skeleton = JSON.parse(row.skeleton_json) as StoredSkeleton;
-    const problems = legMappingProblems({ joints: skeleton.joints }, legs);
-    const keys = Object.keys(problems);
-    if (keys.length) throw new HttpError(400, 'invalid_legs', problems[keys[0]], problems);
-    await deps.db.transaction(async (trx) => {
-      await trx('characters')
-        .where({ id: row.id, team_id: team.id })
-        .update({ legs_json: JSON.stringify(legs), leg_count: legs.length, legs_edited: true, updated_at: deps.clock.now() });
-    });
-    const updated = await findCharacterRow(deps.db, team.id, row.id);
-    res.json({ character: characterFromRow(updated!) });
+    res.json({ character: await updateCharacterLegs(deps.db, { teamId: team.id, id, legs, now: deps.clock.now() }) });
   });
 
   return router;

@@ -4,9 +4,9 @@ import { HttpError } from '../errors';
 import type { CompareQuery } from '../../schemas/compare';
 import type { TrialResult } from '../../engine/gait/trial';
 import type { SuiteMetrics } from '../../engine/profile/suite-metrics';
-import { findCharacterRow } from './gltf-import-store';
+import { findCharacterRow, rigOf, trialCharacterOf } from './characters';
 import { findLegSetupVersion } from './profile-leg-setups';
-import { characterOfRow, loadSuite, rigOf, runCharacterSuite, setupFor } from './suite-runs';
+import { loadSuite, runCharacterSuite, setupFor } from './suite-runs';
 
 const PLOT_POINTS = 150;
 
@@ -71,8 +71,8 @@ export async function compare(db: Db, teamId: number, q: CompareQuery) {
     }
     const row = await findCharacterRow(db, teamId, characterId);
     if (!row) throw new HttpError(404, 'not_found', `Pick ${pick}: that character was not found.`, { pick: `${pick} is not a character of your team.` });
-    const character = characterOfRow(row);
-    const setup = setupFor(rigOf(character), setupJson);
+    const character = trialCharacterOf(row);
+    const setup = setupFor(rigOf(character, 'pick'), setupJson);
     const run = runCharacterSuite(character, setup, suite);
     entries.push({
       pick,

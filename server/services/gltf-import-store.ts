@@ -1,81 +1,19 @@
 /**
  * Keeping an imported character: its file (durable at its content address first, character-files.ts) and then
- * its row (in one transaction). The seed stores its demo characters through here too, exactly like an upload.
+ * its row (in one transaction, through characters.ts). The seed stores its demo characters through here too, exactly like an upload.
  */
 import type { Db } from '../db';
-import type { Character, DetectedLeg, ImportReport, LegMapping } from '../../schemas/characters';
-import type { SkeletonJoint } from '../../engine/rig/types';
+import type { ImportReport } from '../../schemas/characters';
 import { importGltf, type UploadedFile } from './gltf-import';
 import { placeCharacterFile, removeCharacterFile, sha256Hex } from './character-files';
 import { faultPoint } from './gltf-import-faults';
 import { assertWithinLimit } from './billing-limits';
+import { fileInUse, findCharacterByFile, insertCharacter, type StoredSkeleton } from './characters';
 
 export interface StoreDeps {
   db: Db;
   dataDir: string;
   now: () => number;
-}
-
-/** What skeleton_json holds. */
-export interface StoredSkeleton {
-  joints: SkeletonJoint[];
-  /** Rest world positions, x y z per joint. */
-  positions: number[];
-  /** 16 numbers per joint, column-major. */
-  inverseBindMatrices: number[];
-}
-
-export interface CharacterRow {
-  id: number;
-  team_id: number;
-  name: string;
-  file_name: string;
-  format: 'glb' | 'gltf';
-  sha256: string;
-  byte_size: number;
-  joint_count: number;
-  leg_count: number;
-  skeleton_json: string;
-  detected_legs_json: string;
-  legs_json: string;
-  legs_edited: number | boolean;
-  report_json: string;
-  uploaded_by: number;
-  uploader_name: string;
-  created_at: number;
-  updated_at: number;
-}
-
-/** Rows with the uploader's name, always scoped to one team. */
-export function characterRows(db: Db, teamId: number) {
-  return db('characters as c').join('users as u', 'u.id', 'c.uploaded_by').where('c.team_id', teamId).select<CharacterRow[]>('c.*', 'u.name as uploader_name');
-}
-
-export async function findCharacterRow(db: Db, teamId: number, id: number): Promise<CharacterRow | undefined> {
-  return (await characterRows(db, teamId).where('c.id', id))[0];
-}
-
-/** Strips what only detection knows (confidence, evidence) from a detected leg. */
-export function mappingOf(leg: DetectedLeg): LegMapping {
-  return { name: leg.name, side: leg.side, joints: leg.joints, end: leg.end };
-}
-
-export function characterFromRow(row: CharacterRow): Character {
-  return {
-    id: row.id,
-    name: row.name,
-    fileName: row.file_name,
-    format: row.format,
-    byteSize: row.byte_size,
-    sha256: row.sha256,
-    jointCount: row.joint_count,
-    legCount: row.leg_count,
-    uploadedBy: { id: row.uploaded_by, name: row.uploader_name },
-    createdAt: Number(row.created_at),
-    updatedAt: Number(row.updated_at),
-    legs: JSON.parse(row.legs_json) as LegMapping[],
-    legsEdited: Boolean(row.legs_edited),
-  };
 }
 
 /** The first `max` characters by code point, so a cut never leaves half of a surrogate pair (an emoji, say). */
@@ -128,8 +66,8 @@ export async function storeCharacterUpload(
   const imported = await importGltf(input.files);
   const sha256 = sha256Hex(imported.glb);
   const findExisting = async (): Promise<StoredUpload | null> => {
-    const row = await deps.db('characters').where({ team_id: input.teamId, sha256 }).first('id', 'report_json');
-    return row ? { id: row.id, existing: true, report: JSON.parse(row.report_json) as ImportReport } : null;
+    const found = await findCharacterByFile(deps.db, input.teamId, sha256);
+    return found ? { ...found, existing: true } : null;
   };
   const skeleton: StoredSkeleton = {
     joints: imported.skeleton.joints,
@@ -147,26 +85,21 @@ export async function storeCharacterUpload(
     try {
       id = await deps.db.transaction(async (trx) => {
         await assertWithinLimit(trx, input.teamId, 'characters');
-        const [newId] = await trx('characters').insert({
-          team_id: input.teamId,
+        const newId = await insertCharacter(trx, {
+          teamId: input.teamId,
+          userId: input.userId,
           name: input.name?.trim() || defaultName(imported.fileName),
-          file_name: clip(imported.fileName, 255),
+          fileName: clip(imported.fileName, 255),
           format: imported.format,
           sha256,
-          byte_size: imported.glb.byteLength,
-          joint_count: imported.skeleton.joints.length,
-          leg_count: legs.length,
-          skeleton_json: JSON.stringify(skeleton),
-          detected_legs_json: JSON.stringify(legs),
-          legs_json: JSON.stringify(legs.map(mappingOf)),
-          legs_edited: false,
-          report_json: JSON.stringify(imported.report),
-          uploaded_by: input.userId,
-          created_at: now,
-          updated_at: now,
+          byteSize: imported.glb.byteLength,
+          skeleton,
+          detectedLegs: legs,
+          report: imported.report,
+          now,
         });
         await faultPoint('before-commit');
-        return newId as number;
+        return newId;
       });
     } catch (err) {
       // Two uploads of the same file racing: the other one won, and its character is the answer.
@@ -175,7 +108,7 @@ export async function storeCharacterUpload(
         if (raced) return raced;
       }
       // Refused (a plan limit, say): take the file back out unless some character, of any team, uses it.
-      if (!(await deps.db('characters').where({ sha256 }).first('id'))) await removeCharacterFile(deps.dataDir, sha256);
+      if (!(await fileInUse(deps.db, sha256))) await removeCharacterFile(deps.dataDir, sha256);
       throw err;
     }
     await faultPoint('after-commit');

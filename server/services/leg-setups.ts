@@ -1,41 +1,18 @@
 /**
- * Leg setups in the database: versions per character, the walking rig of a character, and which setup a
+ * Leg setups in the database: versions per character, and which setup a
  * trial or dial-in runs (a saved version, an unsaved one, the newest version, or the engine's defaults).
  * Every query is scoped to one team.
  */
 import type { Knex } from 'knex';
 import type { Db } from '../db';
 import { HttpError, notFound } from '../errors';
-import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
-import type { LegMapping } from '../../schemas/characters';
 import type { LegSetupSource, LegSetupVersion } from '../../schemas/leg-setups';
-import type { StoredSkeleton } from './gltf-import-store';
 import { roundProfileNumbers } from '../../engine/profile/export';
+import type { WalkingCharacter } from './characters';
 
 type Conn = Db | Knex.Transaction;
-
-export interface WalkingCharacter {
-  id: number;
-  name: string;
-  rig: Rig;
-}
-
-/** A team's character as the engine walks it; a mapping the engine cannot build a rig from is a 400 naming why. */
-export async function loadWalkingCharacter(db: Conn, teamId: number, characterId: number): Promise<WalkingCharacter> {
-  const row = await db('characters').where({ id: characterId, team_id: teamId }).first('id', 'name', 'skeleton_json', 'legs_json');
-  if (!row) throw notFound('That character');
-  const skeleton = JSON.parse(row.skeleton_json) as StoredSkeleton;
-  const legs = JSON.parse(row.legs_json) as LegMapping[];
-  try {
-    return { id: row.id, name: row.name, rig: rigFromCharacter({ joints: skeleton.joints }, legs, { name: row.name }) };
-  } catch (err) {
-    throw new HttpError(400, 'unwalkable_character', `${row.name} cannot walk yet: ${(err as Error).message}. Check its leg mapping.`, {
-      characterId: (err as Error).message,
-    });
-  }
-}
 
 interface LegSetupRow {
   id: number;
@@ -138,3 +115,6 @@ export async function resolveLegSetup(
   assertFitsRig(resolved.setup, character.rig, ask.legSetup ? 'legSetup' : 'legSetupId');
   return resolved;
 }
+
+/** The earlier name of loadCharacterRig (characters.ts), kept until its last callers move. */
+export { loadCharacterRig as loadWalkingCharacter } from './characters';

@@ -10,9 +10,9 @@ import { checkAgainstPublished, describeTolerances } from '../../engine/profile/
 import { LegProfileBindError, legMappingsFor } from '../../engine/profile/rig-mapping';
 import { sha256Hex } from './character-files';
 import { importGltf, type UploadedFile } from './gltf-import';
-import { findCharacterRow } from './gltf-import-store';
+import { findCharacterRow, rigOf, trialCharacterOf, type TrialCharacter } from './characters';
 import { documentOf, findVersion } from './profiles';
-import { characterOfRow, loadSuite, runCharacterSuite, setupFor, rigOf, type TrialCharacter } from './suite-runs';
+import { loadSuite, runCharacterSuite, setupFor } from './suite-runs';
 
 export interface CheckInput {
   teamId: number;
@@ -48,9 +48,9 @@ export async function checkProfile(db: Db, input: CheckInput): Promise<CheckResu
     const profile = await db('profiles').where({ id: input.profileId, team_id: input.teamId }).first('character_id');
     const stored = profile ? await findCharacterRow(db, input.teamId, profile.character_id) : undefined;
     if (!stored) throw new HttpError(409, 'character_missing', 'The character of this profile is gone; send the character file to check.');
-    character = characterOfRow(stored);
+    character = trialCharacterOf(stored);
   }
-  const setup = setupFor(rigOf(character), published.legSetup);
+  const setup = setupFor(rigOf(character, input.files.length ? 'file' : 'profileId'), published.legSetup);
   const run = runCharacterSuite(character, setup, suite);
   const verdict = checkAgainstPublished(published.metrics, run.metrics, input.tolerances);
   return {

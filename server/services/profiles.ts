@@ -8,8 +8,8 @@ import { exportLegProfile, parseLegProfile, roundProfileNumbers } from '../../en
 import { profileRigOf } from '../../engine/profile/rig-mapping';
 import { diffLegProfiles, type ProfileDiff } from '../../engine/profile/diff';
 import { consumeAllowance } from './billing-limits';
-import { findCharacterRow } from './gltf-import-store';
-import { characterOfRow, loadSuite, rigOf, runCharacterSuite, setupFor } from './suite-runs';
+import { findCharacterRow, getCharacterRow, rigOf, trialCharacterOf } from './characters';
+import { loadSuite, runCharacterSuite, setupFor } from './suite-runs';
 import { loadLegSetupVersion, newestLegSetupId } from './profile-leg-setups';
 
 export interface VersionRow {
@@ -50,7 +50,7 @@ export interface PublishInput {
 export async function publishProfile(db: Db, input: PublishInput): Promise<{ profileId: number; version: number }> {
   const row = await findCharacterRow(db, input.teamId, input.characterId);
   if (!row) throw new HttpError(404, 'not_found', 'That character was not found.', { characterId: 'Pick a character of your team.' });
-  const character = characterOfRow(row);
+  const character = trialCharacterOf(row);
   const rig = rigOf(character);
   // Neither a saved version nor a setup given: the character's newest saved version, else the engine's defaults.
   const legSetupId = input.legSetupId ?? (input.legSetup === undefined ? await newestLegSetupId(db, input.teamId, row.id) : undefined);
@@ -157,8 +157,7 @@ export async function listProfiles(db: Db, teamId: number): Promise<ProfileSumma
 }
 
 export async function profilesOfCharacter(db: Db, teamId: number, characterId: number): Promise<ProfileSummary[]> {
-  const character = await findCharacterRow(db, teamId, characterId);
-  if (!character) throw notFound('That character');
+  await getCharacterRow(db, teamId, characterId);
   return summaries(db, teamId, await profileRows(db, teamId).where('p.character_id', characterId));
 }
 

@@ -6,9 +6,6 @@
 import crypto from 'node:crypto';
 import type { Db } from '../db';
 import { HttpError } from '../errors';
-import type { LegMapping } from '../../schemas/characters';
-import type { Skeleton } from '../../engine/rig/types';
-import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import { runSuite, type SuiteRun } from '../../engine/profile/run-suite';
@@ -16,33 +13,12 @@ import { roundProfileNumbers } from '../../engine/profile/export';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { findSuite } from './suites';
 import { loadSuiteCourses, type LoadedCourse } from './courses';
-import type { StoredSkeleton } from './gltf-import-store';
-
-export interface TrialCharacter {
-  name: string;
-  sha256: string;
-  skeleton: Skeleton;
-  legs: LegMapping[];
-}
+import { rigOf, type TrialCharacter } from './characters';
 
 export interface LoadedSuite {
   id: number;
   name: string;
   courses: LoadedCourse[];
-}
-
-export function characterOfRow(row: { name: string; sha256: string; skeleton_json: string; legs_json: string }): TrialCharacter {
-  const stored = JSON.parse(row.skeleton_json) as StoredSkeleton;
-  return { name: row.name, sha256: row.sha256, skeleton: { joints: stored.joints }, legs: JSON.parse(row.legs_json) as LegMapping[] };
-}
-
-/** The character's walking rig; a mapping that does not fit is a 400 naming the leg. */
-export function rigOf(c: TrialCharacter): Rig {
-  try {
-    return rigFromCharacter(c.skeleton, c.legs, { name: c.name });
-  } catch (err) {
-    throw new HttpError(400, 'invalid_legs', `${c.name} cannot walk with its leg mapping: ${(err as Error).message}. Fix the legs on the character page.`);
-  }
 }
 
 /**

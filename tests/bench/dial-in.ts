@@ -16,7 +16,7 @@ import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { createPiscinaPool } from '../../server/jobs/worker-pool';
 import { importGltf } from '../../server/services/gltf-import';
-import { mappingOf } from '../../server/services/gltf-import-store';
+import { mappingOf } from '../../engine/rig/leg-mapping';
 import { runSearch, withValues, type DialInContext } from '../../server/workers/dial-in-search';
 import { burrow } from '../../seeds/characters';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';

@@ -21,7 +21,7 @@ import type { DialInJobInput } from '../../server/jobs/dial-in-job';
 import { TASK_QUEUE } from '../../server/jobs/task-queue';
 import { storeCharacterUpload } from '../../server/services/gltf-import-store';
 import { loadSuiteCourses } from '../../server/services/courses';
-import { loadWalkingCharacter } from '../../server/services/leg-setups';
+import { loadCharacterRig } from '../../server/services/characters';
 import { DEMO_SUITE, seedDemoCourses } from '../../seeds/demo-courses';
 import { seededSetupFor } from '../../seeds/demo-setups';
 import * as designs from '../../seeds/characters';
@@ -61,7 +61,7 @@ async function main(): Promise<void> {
   await seedDemoCourses(db, teamId, members.owner.id, now);
   const suite = await db('suites').where({ team_id: teamId, name: DEMO_SUITE }).first('id');
   const courses = await loadSuiteCourses(db, teamId, suite.id);
-  const character = await loadWalkingCharacter(db, teamId, stored.id);
+  const character = await loadCharacterRig(db, teamId, stored.id);
   const input: DialInJobInput = {
     characterId: stored.id,
     suiteId: suite.id,

@@ -16,7 +16,7 @@ import type { Rig } from '../../engine/gait/rig';
 import { runTrial } from '../../engine/gait/trial';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { importGltf } from '../../server/services/gltf-import';
-import { mappingOf } from '../../server/services/gltf-import-store';
+import { mappingOf } from '../../engine/rig/leg-mapping';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { DEMO_DESIGNS } from '../../seeds/characters';
 import { bindCharacter } from '../../components/viewer/character-pose';

@@ -13,7 +13,7 @@ import { runTrial } from '../../engine/gait/trial';
 import { flatCourse } from '../../engine/course';
 import type { Skeleton } from '../../engine/rig/types';
 import { importGltf } from '../../server/services/gltf-import';
-import { mappingOf } from '../../server/services/gltf-import-store';
+import { mappingOf } from '../../engine/rig/leg-mapping';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { DEMO_DESIGNS } from '../../seeds/characters';
 import type { LegMapping } from '../../schemas/characters';

@@ -10,7 +10,8 @@ import type { Skeleton, SkeletonJoint } from '../../engine/rig/types';
 import { bindLegProfile, createLegRuntime, loadLegProfile } from '../../engine/profile/runtime';
 import { exportLegProfile } from '../../engine/profile/export';
 import { LegProfileBindError } from '../../engine/profile/rig-mapping';
-import { characterOfRow, runCharacterSuite } from '../../server/services/suite-runs';
+import { runCharacterSuite } from '../../server/services/suite-runs';
+import { trialCharacterOf } from '../../server/services/characters';
 import { demoCharacter, profileOf, testCourses, type DemoCharacter } from './profile/fixtures';
 
 /** The skin's joints as a game engine lists them: from the file itself, here reversed so indices differ from Treadle's. */
@@ -48,7 +49,7 @@ describe.each([
   it('gives the same foot positions as the server trial, frame by frame', async () => {
     const file = exportLegProfile(profileOf(c));
     const course = testCourses()[1];
-    const server = runCharacterSuite(characterOfRow(storedRow(c)), loadLegProfile(file).legSetup, {
+    const server = runCharacterSuite(trialCharacterOf(storedRow(c)), loadLegProfile(file).legSetup, {
       id: 1,
       name: 'one course',
       courses: [{ id: 1, name: course.name, version: 1, heightfield: course.heightfield }],

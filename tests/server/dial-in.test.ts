@@ -11,7 +11,7 @@ import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { runTrial } from '../../engine/gait/trial';
 import { roundProfileNumbers } from '../../engine/profile/export';
 import { loadCourse } from '../../server/services/courses';
-import { loadWalkingCharacter } from '../../server/services/leg-setups';
+import { loadCharacterRig } from '../../server/services/characters';
 import { dialInResultSchema, type DialInRequest, type DialInResult } from '../../schemas/dial-ins';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { testApp, type TestApp } from '../support/test-app';
@@ -56,7 +56,7 @@ describe('dial-in on Burrow over a held suite', () => {
     first = await runDialIn();
     const { result } = first;
     // The defaults scored independently: the engine's own trial on each course of the suite.
-    const character = await loadWalkingCharacter(t.db, studio.teamId, studio.characters.burrow);
+    const character = await loadCharacterRig(t.db, studio.teamId, studio.characters.burrow);
     const defaults = defaultLegSetup(character.rig);
     const scores = [];
     for (const id of Object.values(studio.courses)) {

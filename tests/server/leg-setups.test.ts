@@ -4,7 +4,7 @@
  * issue's own (issue 7, item 2); the defaults are the engine's (engine/gait/leg-setup.ts).
  */
 import { defaultLegSetup, LegSetupSchema } from '../../engine/gait/leg-setup';
-import { loadWalkingCharacter } from '../../server/services/leg-setups';
+import { loadCharacterRig } from '../../server/services/characters';
 import { testApp, type TestApp } from '../support/test-app';
 import { signedIn } from '../support/studio';
 import { trialStudio, type TrialStudio } from './trials-helpers';
@@ -32,7 +32,7 @@ describe('leg setups', () => {
     const res = await agent.get(path(studio.characters.burrow));
     expect(res.status).toBe(200);
     expect(res.body.versions).toEqual([]);
-    const { rig } = await loadWalkingCharacter(t.db, studio.teamId, studio.characters.burrow);
+    const { rig } = await loadCharacterRig(t.db, studio.teamId, studio.characters.burrow);
     expect(res.body.defaults).toEqual(defaultLegSetup(rig));
     expect(res.body.legNames).toEqual(['Left front', 'Right front', 'Left hind', 'Right hind']);
   });

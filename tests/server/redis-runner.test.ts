@@ -18,7 +18,7 @@ import { JobCommit } from '../../server/jobs/job-runner';
 import { TASK_QUEUE } from '../../server/jobs/task-queue';
 import type { DialInJobInput } from '../../server/jobs/dial-in-job';
 import type { TrialJobInput } from '../../server/jobs/trial-job';
-import { loadWalkingCharacter } from '../../server/services/leg-setups';
+import { loadCharacterRig } from '../../server/services/characters';
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { presetRig } from '../../engine/gait/rig-presets';
 import type { Job } from '../../schemas/jobs';
@@ -70,7 +70,7 @@ beforeAll(async () => {
   db = database.db;
   dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'h17-data-'));
   studio = await trialStudio(db, dataDir, 'quarry', clock.now());
-  const burrow = await loadWalkingCharacter(db, studio.teamId, studio.characters.burrow);
+  const burrow = await loadCharacterRig(db, studio.teamId, studio.characters.burrow);
   const setup = defaultLegSetup(burrow.rig);
   const courseIds = Object.values(studio.courses);
   trialInput = { characterId: studio.characters.burrow, courseIds, setup, legSetupId: null, duration: 20 };

@@ -2,7 +2,7 @@
 import { buildCharacterGlb } from '../../../seeds/characters/rig-builder';
 import type { RigDesign } from '../../../seeds/characters/rig-builder';
 import { importGltf } from '../../../server/services/gltf-import';
-import { mappingOf } from '../../../server/services/gltf-import-store';
+import { mappingOf } from '../../../engine/rig/leg-mapping';
 import type { LegMapping } from '../../../schemas/characters';
 import type { Skeleton } from '../../../engine/rig/types';
 import { rigFromCharacter } from '../../../engine/gait/character-rig';
