@@ -8,6 +8,7 @@ import { base64DecodedLength, base64ToBytes, bytesToBase64 } from './base64';
 import { CourseError, checkGrid, heightRange, type Heightfield } from './heightfield';
 import { COURSE_LIMITS } from './limits';
 import { parseOrThrow } from './parse';
+import { WalkPathSchema, walkPathOutside } from './walk-path';
 
 export const COURSE_FORMAT = 'treadle-course';
 export const COURSE_ENCODING_VERSION = 1;
@@ -28,6 +29,8 @@ export const CourseEncodingSchema = z
     baseMm: z.number().int().min(-maxMm).max(maxMm),
     /** rows × cols uint16 little-endian: millimetres above baseMm, row-major. */
     heights: z.string().regex(/^[A-Za-z0-9+/]*={0,2}$/, 'heights must be base64 (A–Z, a–z, 0–9, +, /, = padding)'),
+    /** The line the body walks; absent: straight ahead along +Z at x = 0 (every course saved before paths). */
+    walkPath: WalkPathSchema.optional(),
   })
   .superRefine((e, ctx) => {
     if (e.cols * e.rows > COURSE_LIMITS.maxCells) {
@@ -42,6 +45,11 @@ export const CourseEncodingSchema = z
         path: ['heights'],
         message: `heights must hold rows × cols × 2 = ${expected} bytes, got ${got < 0 ? 'a length that is not a multiple of 4' : `${got} bytes`}`,
       });
+    }
+    if (e.walkPath) {
+      for (const [i, message] of walkPathOutside(e.walkPath, (e.cols - 1) * e.cellSize, (e.rows - 1) * e.cellSize)) {
+        ctx.addIssue({ code: 'custom', path: ['walkPath', 'points', i], message });
+      }
     }
   });
 
@@ -62,7 +70,7 @@ export function encodeCourse(hf: Heightfield): CourseEncoding {
     bytes[2 * i] = code & 255;
     bytes[2 * i + 1] = code >> 8;
   }
-  return {
+  const encoding: CourseEncoding = {
     format: COURSE_FORMAT,
     version: COURSE_ENCODING_VERSION,
     cols: hf.cols,
@@ -71,6 +79,8 @@ export function encodeCourse(hf: Heightfield): CourseEncoding {
     baseMm,
     heights: bytesToBase64(bytes),
   };
+  if (hf.walkPath) encoding.walkPath = hf.walkPath;
+  return encoding;
 }
 
 /** Decode and validate; throws a CourseError whose message lists every problem found. */
@@ -93,7 +103,9 @@ export function decodeCourse(input: unknown): Heightfield {
     }
     heights[i] = mm / PER_M;
   }
-  return { cols: e.cols, rows: e.rows, cellSize: e.cellSize, heights };
+  const hf: Heightfield = { cols: e.cols, rows: e.rows, cellSize: e.cellSize, heights };
+  if (e.walkPath) hf.walkPath = e.walkPath;
+  return hf;
 }
 
 /** The encoding as a JSON string (what the server stores and the app downloads). */

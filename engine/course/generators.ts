@@ -10,6 +10,7 @@ import { mulberry32 } from '../math/random';
 import { CourseError, clampHeight, columnX, createHeightfield, type Heightfield } from './heightfield';
 import { COURSE_LIMITS } from './limits';
 import { parseOrThrow } from './parse';
+import { WalkPathSchema, walkPathOutside } from './walk-path';
 
 const length = z.number().min(0.05).max(1000).describe('segment length along the walk, m');
 
@@ -68,6 +69,8 @@ export const CourseSpecSchema = z.object({
   width: z.number().min(0.2).max(50).default(2).describe('lateral width, m'),
   cellSize: z.number().min(COURSE_LIMITS.minCellSize).max(COURSE_LIMITS.maxCellSize).default(0.05),
   segments: z.array(CourseSegmentSchema).min(1).max(256),
+  /** The line the body walks (walk-path.ts); absent: straight ahead along +Z at x = 0. */
+  walkPath: WalkPathSchema.optional(),
 });
 
 export type CourseSegment = z.infer<typeof CourseSegmentSchema>;
@@ -175,6 +178,11 @@ export function generateCourse(input: CourseSpecInput): Heightfield {
     for (let c = 0; c < hf.cols; c++) {
       hf.heights[rowBase + c] = clampHeight(bases[seg] + segmentHeight(s, noises[seg], columnX(hf, c), zl));
     }
+  }
+  if (spec.walkPath) {
+    const off = walkPathOutside(spec.walkPath, (hf.cols - 1) * hf.cellSize, (hf.rows - 1) * hf.cellSize);
+    if (off.length) throw new CourseError(`invalid course spec:\n✖ ${off[0][1]}\n  → at walkPath.points[${off[0][0]}]`);
+    hf.walkPath = spec.walkPath;
   }
   return hf;
 }

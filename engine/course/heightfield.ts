@@ -6,6 +6,7 @@
  * row r at z = r·cellSize. heights[r·cols + c] is the ground height there.
  */
 import { COURSE_LIMITS } from './limits';
+import type { WalkPath } from './walk-path';
 
 export interface Heightfield {
   /** Samples across the walk (x). */
@@ -16,6 +17,8 @@ export interface Heightfield {
   cellSize: number;
   /** rows × cols heights in metres, row-major. */
   heights: Float64Array;
+  /** The line the body walks (walk-path.ts); absent: straight ahead along +Z at x = 0. */
+  walkPath?: WalkPath;
 }
 
 export class CourseError extends Error {
@@ -65,7 +68,13 @@ export function createHeightfieldGrid(cols: number, rows: number, cellSize: numb
 }
 
 export function cloneHeightfield(hf: Heightfield): Heightfield {
-  return { cols: hf.cols, rows: hf.rows, cellSize: hf.cellSize, heights: hf.heights.slice() };
+  const copy: Heightfield = { cols: hf.cols, rows: hf.rows, cellSize: hf.cellSize, heights: hf.heights.slice() };
+  if (hf.walkPath) copy.walkPath = copyWalkPath(hf.walkPath);
+  return copy;
+}
+
+function copyWalkPath(p: WalkPath): WalkPath {
+  return { points: p.points.map((q) => ({ x: q.x, z: q.z })), closed: p.closed, speed: p.speed };
 }
 
 export function checkHeight(h: number, what: string): void {

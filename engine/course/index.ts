@@ -4,3 +4,4 @@ export * from './sample';
 export * from './generators';
 export * from './brushes';
 export * from './encoding';
+export * from './walk-path';

@@ -7,4 +7,13 @@ export * from './export';
 export * from './diff';
 export * from './check';
 export * from './rig-mapping';
-export { loadLegProfile, bindLegProfile, createLegRuntime, type BoundLegProfile, type LegRuntime, type LegRuntimeOptions } from './runtime';
+export {
+  loadLegProfile,
+  bindLegProfile,
+  createLegRuntime,
+  type BoundLegProfile,
+  type GroundQuery,
+  type LegRuntime,
+  type LegRuntimeError,
+  type LegRuntimeOptions,
+} from './runtime';
