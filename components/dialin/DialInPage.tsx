@@ -160,7 +160,7 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
       )}
       <TextField label="Budget (candidates; each is a trial per course)" value={candidates} onChangeText={setCandidates} error={errors.candidates} inputMode="numeric" editable={!running} />
       {mayRun ? <DialInCost candidates={count} courses={suite?.courses.length ?? null} allowance={allowance.data ?? null} /> : null}
-      {start.error && !Object.keys(errors).length ? <Notice message={start.error.message} /> : null}
+      {start.error && !Object.keys(errors).some((k) => k === 'params' || k === 'suiteId' || k === 'candidates' || /^params\.\d+\.(min|max)$/.test(k)) ? <Notice message={start.error.message} /> : null}
       {mayRun ? (
         <>
           <Button label={running ? 'Dialling in…' : 'Start the dial-in'} onPress={onStart} busy={start.isPending} disabled={running || !!blocked} />

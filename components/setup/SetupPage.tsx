@@ -89,7 +89,7 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
       ) : (
         <>
           <Text style={styles.note}>Runs the settings in the form (saved or not) on the server.</Text>
-          <RunTrialPanel characterId={characterId} legSetup={checked.setup ?? undefined} />
+          <RunTrialPanel characterId={characterId} legSetup={checked.setup ?? undefined} onFieldErrors={(f) => setServerErrors(Object.fromEntries(Object.entries(f).map(([k, v]) => [k.replace(/^(legSetup|setup)\./, ''), v])))} />
         </>
       )}
     </Card>

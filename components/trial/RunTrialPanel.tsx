@@ -16,7 +16,20 @@ import { ProgressBar } from './ProgressBar';
  * Run a trial as a background job: pick a course or a suite, start, watch the progress bar (the job is
  * polled through React Query), then open the stored trial.
  */
-export function RunTrialPanel({ characterId, legSetupId, legSetup, initialCourseId }: { characterId: number; legSetupId?: number; legSetup?: LegSetup; initialCourseId?: number | null }) {
+export function RunTrialPanel({
+  characterId,
+  legSetupId,
+  legSetup,
+  initialCourseId,
+  onFieldErrors,
+}: {
+  characterId: number;
+  legSetupId?: number;
+  legSetup?: LegSetup;
+  initialCourseId?: number | null;
+  /** A refusal's field messages (a setting that stops the trial), for the form to show beside its fields. */
+  onFieldErrors?: (fields: Record<string, string>) => void;
+}) {
   const router = useRouter();
   const courses = useCourses();
   const suites = useSuites();
@@ -38,7 +51,10 @@ export function RunTrialPanel({ characterId, legSetupId, legSetup, initialCourse
     if (!target) return;
     const [kind, id] = target.split(':');
     const body = { characterId, ...(kind === 'course' ? { courseId: Number(id) } : { suiteId: Number(id) }), ...(legSetup ? { legSetup } : legSetupId ? { legSetupId } : {}) };
-    const accepted = await run.mutateAsync(body).catch(() => null);
+    const accepted = await run.mutateAsync(body).catch((err) => {
+      onFieldErrors?.((err as { fields?: Record<string, string> }).fields ?? {});
+      return null;
+    });
     if (accepted) setJobId(accepted.job.id);
   }
 

@@ -5,11 +5,11 @@
  */
 import { z } from 'zod';
 import { parseOrThrow } from '../course/parse';
-import { SOLVER_METHODS, type SolverMethod, type SolverOptions } from '../ik/types';
-import { DEFAULT_OPTIONS, dofCount } from '../ik/workspace';
+import { DEFAULT_OPTIONS, SOLVER_METHODS, type SolverMethod, type SolverOptions } from '../ik/options';
+import { dofCount } from '../ik/workspace';
 import { GAIT_PATTERNS, PRESET_GAITS, defaultPatternFor, evenPhaseOffsets } from './patterns';
 import type { Rig } from './rig';
-import { DEFAULT_FROUDE, speedForFroude } from './stride';
+import { DEFAULT_FROUDE, alexanderStride, speedForFroude } from './stride';
 
 export const LEG_SETUP_VERSION = 1;
 
@@ -177,6 +177,8 @@ export const TRIAL_TOLERANCE = 5e-4;
  */
 export const TRIAL_ORIENTATION_TOLERANCE = 0.02;
 export const TRIAL_ORIENTATION_WEIGHT = 0.03;
+/** Leg reach at which the orientation weight is TRIAL_ORIENTATION_WEIGHT; it scales with reach (a little over the preset biped's 1.07 m: its tuned rows are kept). */
+export const ORIENTATION_WEIGHT_REACH = 1.1;
 
 /** Default step height as a fraction of hip height (common practice, no source). */
 export const DEFAULT_STEP_HEIGHT_RATIO = 0.1;
@@ -207,8 +209,8 @@ export function defaultSolverSettings(footOrientation: boolean): SolverSettings 
   };
 }
 
-/** The engine's default leg setup for a rig. */
-export function defaultLegSetup(rig: Rig): LegSetup {
+/** The defaults before they are fitted to the rig's size (defaultLegSetup does that). */
+function baseLegSetup(rig: Rig): LegSetup {
   const pattern = defaultPatternFor(rig.legs.length);
   const preset = pattern === 'custom' ? null : PRESET_GAITS[pattern];
   const orient = rig.legs.every((l) => dofCount(l.chain) >= MIN_DOFS_FOR_ORIENTATION);
@@ -269,23 +271,55 @@ export function checkLegSetupForRig(setup: LegSetup, rig: Rig): void {
   const offsets = setup.gait.phaseOffsets;
   const pattern = setup.gait.pattern;
   if (offsets && offsets.length !== rig.legs.length) {
-    throw new LegSetupError(`gait.phaseOffsets: rig ${rig.name} has ${rig.legs.length} legs, got ${offsets.length} offsets`);
+    throw new LegSetupError(`gait.phaseOffsets: rig ${rig.name} has ${rig.legs.length} legs, got ${offsets.length} offsets; give one offset per leg, or none to use the pattern's`);
   }
   if (!offsets && pattern !== 'custom' && PRESET_GAITS[pattern].legs !== rig.legs.length) {
     throw new LegSetupError(
-      `gait.pattern: ${pattern} is for ${PRESET_GAITS[pattern].legs} legs, rig ${rig.name} has ${rig.legs.length}; give phaseOffsets`,
+      `gait.pattern: ${pattern} is for ${PRESET_GAITS[pattern].legs} legs, rig ${rig.name} has ${rig.legs.length}; pick a pattern for ${rig.legs.length} legs, or give one phase offset per leg`,
     );
   }
   setup.legs.forEach((o, i) => {
     const leg = rig.legs.find((l) => l.name === o.leg);
-    if (!leg) throw new LegSetupError(`legs[${i}].leg: rig ${rig.name} has no leg named ${o.leg}`);
+    if (!leg) throw new LegSetupError(`legs[${i}].leg: rig ${rig.name} has no leg named ${o.leg} (its legs: ${rig.legs.map((l) => l.name).join(', ')}); rename or remove this override`);
     o.limits.forEach((lim, k) => {
       const joint = leg.chain.joints.find((j) => j.name === lim.joint);
       const where = `legs[${i}].limits[${k}]`;
-      if (!joint) throw new LegSetupError(`${where}.joint: leg ${o.leg} has no joint named ${lim.joint}`);
+      if (!joint) throw new LegSetupError(`${where}.joint: leg ${o.leg} has no joint named ${lim.joint} (its joints: ${leg.chain.joints.map((j) => j.name).join(', ')}); rename or remove this limit`);
       if (joint.kind === 'ball') throw new LegSetupError(`${where}.joint: ${lim.joint} is a ball joint; only hinge, universal and slider limits can be overridden`);
       const dofs = joint.kind === 'universal' ? 2 : 1;
       if (lim.dof >= dofs) throw new LegSetupError(`${where}.dof: ${lim.joint} has ${dofs} DOF(s), got dof ${lim.dof}`);
     });
   });
+}
+
+/**
+ * Largest joint speed the derived defaults plan a swing for, °/s: well under the default joint speed limit
+ * (700 °/s), since a knee folds faster than the hip sweeps (common practice, no source).
+ */
+export const PLANNED_SWING_SPEED = 300;
+/** Peak over mean speed of a minimum-jerk move (Flash & Hogan 1985): 15/8. */
+const MIN_JERK_PEAK = 15 / 8;
+
+/**
+ * The defaults of a rig, scaled to its own size and proportions. Step height is a share of hip height, speed
+ * a Froude number (dynamically similar walking), slowed where a small rig's swings would ask its joints for
+ * more than PLANNED_SWING_SPEED (the joint speed limit is in °/s whatever the size, so a mouse-sized leg that
+ * walked at the Froude speed would lag its targets and drag its toes).
+ */
+export function defaultLegSetup(rig: Rig): LegSetup {
+  const setup = baseLegSetup(rig);
+  const reach = Math.min(...rig.legs.map((l) => l.chain.reach));
+  // Orientation rows weigh metres per radian: a big leg's sole would otherwise be turned by ever less (and
+  // bought with a knee flip); below the reference the weight stays, as a smaller one leaves solves unconverged.
+  setup.solver.orientationWeight = TRIAL_ORIENTATION_WEIGHT * Math.max(1, reach / ORIENTATION_WEIGHT_REACH);
+  const g = setup.gait;
+  if (g.timing.mode !== 'speed') return setup;
+  const speed = g.timing.speed;
+  const stride = alexanderStride(rig.hipHeight, speed);
+  const cycle = stride / speed;
+  const sweep = (g.dutyFactor * stride) / reach;
+  const peak = (MIN_JERK_PEAK * sweep * (180 / Math.PI)) / ((1 - g.dutyFactor) * cycle);
+  // The peak joint speed goes with the walking speed (stride ∝ v^0.6 and cycle ∝ v^-0.4 under Alexander's relation).
+  if (peak > PLANNED_SWING_SPEED) setup.gait.timing = { mode: 'speed', speed: (speed * PLANNED_SWING_SPEED) / peak };
+  return setup;
 }

@@ -7,6 +7,7 @@ import { setMaxListeners } from 'node:events';
 import type { Clock } from '../clock';
 import type { Db } from '../db';
 import { HttpError } from '../errors';
+import { readableJobFailure } from '../services/submission-checks';
 import type { Job, JobKind } from '../../schemas/jobs';
 import type { QueueStatus } from '../../schemas/queue';
 import { JobCommit, type EnqueueRequest, type JobContext, type JobHandler, type JobRunner } from './job-runner';
@@ -129,7 +130,7 @@ export function createInProcessRunner(o: InProcessRunnerOptions): JobRunner & { 
       } else if (signal.aborted) {
         await db('jobs').where({ id: row.id, status: 'running' }).update({ status: 'cancelled', finished_at: t, updated_at: t });
       } else {
-        const message = err instanceof HttpError || err instanceof Error ? err.message : String(err);
+        const message = readableJobFailure(err, ctx.input);
         await db('jobs').where({ id: row.id, status: 'running' }).update({ status: 'failed', error: message, finished_at: t, updated_at: t });
       }
     }

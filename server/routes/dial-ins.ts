@@ -12,6 +12,8 @@ import { assertFitsRig, findLegSetup, loadWalkingCharacter, resolveLegSetup, sav
 import { findJobRow } from '../jobs/job-rows';
 import type { DialInJobInput } from '../jobs/dial-in-job';
 import { jobRunnerOf } from './job-runner-of';
+import { assertRunnable } from '../services/submission-checks';
+import { trialStartProblems } from '../../engine/gait/setup-problems';
 
 const idSchema = z.coerce.number().int().positive();
 
@@ -26,6 +28,18 @@ export function dialInsRouter(deps: AppDeps): Router {
     const resolved = await resolveLegSetup(deps.db, team.id, character, { legSetupId: ask.legSetupId });
     const courses = await loadSuiteCourses(deps.db, team.id, ask.suiteId);
     if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    // Whatever the job would fail on is refused now (before any allowance is held), naming the setting and the fix.
+    assertRunnable(character.rig, resolved.setup, courses, { field: 'setup', courseField: 'suiteId', options: { duration: TRIAL_SECONDS } });
+    // A longer stance needs more course ahead: the longest the search may try must fit too.
+    const duty = ask.params.findIndex((p) => p.key === 'gait.dutyFactor');
+    if (duty >= 0 && ask.params[duty].max > resolved.setup.gait.dutyFactor) {
+      const longest = { ...resolved.setup, gait: { ...resolved.setup.gait, dutyFactor: ask.params[duty].max } };
+      const [problem] = trialStartProblems(character.rig, longest, courses, { duration: TRIAL_SECONDS });
+      if (problem) {
+        const message = `At duty factor ${ask.params[duty].max}, ${problem.message.charAt(0).toLowerCase()}${problem.message.slice(1)} Or lower the upper bound of the duty factor.`;
+        throw new HttpError(400, 'cannot_run', message, { [`params.${duty}.max`]: message });
+      }
+    }
     // The candidates are held against the month's allowance now (refused when they would not fit); what the job does not run is given back when it ends.
     const jobs = jobRunnerOf(deps);
     const held = await reserveAllowance(deps.db, team.id, 'dialInCandidates', ask.candidates, deps.clock.now());

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { HttpError, notFound, parseWith } from '../errors';
+import { assertRunnable, parseSubmission } from '../services/submission-checks';
 import { viewerOf } from '../middleware/auth';
 import { trialRequestSchema, TRIAL_SECONDS, type TrialList } from '../../schemas/trials';
 import type { JobAccepted } from '../../schemas/jobs';
@@ -20,12 +21,14 @@ export function trialsRouter(deps: AppDeps): Router {
 
   router.post('/', async (req, res) => {
     const { team, user } = viewerOf(req);
-    const ask = parseWith(trialRequestSchema, req.body);
+    const ask = parseSubmission(trialRequestSchema, req.body);
     const character = await loadWalkingCharacter(deps.db, team.id, ask.characterId);
     const resolved = await resolveLegSetup(deps.db, team.id, character, ask);
-    const courseIds =
-      ask.courseId !== undefined ? [(await loadCourse(deps.db, team.id, ask.courseId)).id] : (await loadSuiteCourses(deps.db, team.id, ask.suiteId!)).map((c) => c.id);
-    if (courseIds.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    const courses = ask.courseId !== undefined ? [await loadCourse(deps.db, team.id, ask.courseId)] : await loadSuiteCourses(deps.db, team.id, ask.suiteId!);
+    if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    // Whatever the job would fail on is refused now, naming the setting and the fix.
+    assertRunnable(character.rig, resolved.setup, courses, { field: ask.legSetup ? 'legSetup' : 'setup', courseField: ask.courseId !== undefined ? 'courseId' : 'suiteId', options: { duration: TRIAL_SECONDS } });
+    const courseIds = courses.map((c) => c.id);
     const input: TrialJobInput = { characterId: character.id, courseIds, setup: resolved.setup, legSetupId: resolved.legSetupId, duration: TRIAL_SECONDS };
     const body: JobAccepted = { job: await jobRunnerOf(deps).enqueue({ teamId: team.id, userId: user.id, kind: 'trial', input }) };
     res.status(202).json(body);
