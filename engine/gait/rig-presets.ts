@@ -67,3 +67,29 @@ export function presetRig(name: PresetRigName): Rig {
       throw new Error(`unknown preset rig: ${String(name)} (expected one of ${PRESET_RIG_NAMES.join(', ')})`);
   }
 }
+
+/** The same rig `factor` times its size (lengths scale, angles keep): how a character authored at another size arrives. */
+export function scaledRig(rig: Rig, factor: number): Rig {
+  const v = (a: readonly number[]) => [a[0] * factor, a[1] * factor, a[2] * factor] as [number, number, number];
+  return {
+    ...rig,
+    name: `${rig.name} ×${factor}`,
+    hipHeight: rig.hipHeight * factor,
+    legs: rig.legs.map((l) => ({
+      ...l,
+      hip: v(l.hip),
+      neutralFoot: [l.neutralFoot[0] * factor, l.neutralFoot[1] * factor],
+      chain: {
+        ...l.chain,
+        reach: l.chain.reach * factor,
+        sole: v(l.chain.sole),
+        toe: l.chain.toe ? { ...l.chain.toe, offset: v(l.chain.toe.offset) } : undefined,
+        joints: l.chain.joints.map((j) => ({
+          ...j,
+          offset: v(j.offset),
+          limits: j.kind === 'slider' && j.limits ? j.limits.map((x) => ({ min: x.min * factor, max: x.max * factor })) : j.limits,
+        })),
+      },
+    })),
+  };
+}
