@@ -14,6 +14,12 @@ const DEG = Math.PI / 180;
 export const DEFAULT_LIMITS = {
   hipSwing: 90 * DEG,
   hipTwist: 35 * DEG,
+  /**
+   * A sprawled hip (its first bone more than 45° from straight down: insect and lizard legs) turns the leg
+   * fore and aft about the vertical, and part of that turn is a twist about the bone itself; ±35° left such
+   * legs stuck at the limit mid-swing on ramps and stairs. Measured on the demo hexapod (common practice, no source).
+   */
+  sprawledHipTwist: 60 * DEG,
   kneeFlexMax: 150 * DEG,
   ankleFlex: { min: -20 * DEG, max: 45 * DEG },
   /**
@@ -101,13 +107,22 @@ function footAxes(positions: ArrayLike<number>, path: readonly number[], k: numb
   return [unit(cross(UP, forward), LATERAL), forward];
 }
 
+/** Whether the segment after joint k points more than 45° away from straight down. */
+function isSprawled(positions: ArrayLike<number>, path: readonly number[], k: number): boolean {
+  const d = sub(positions, path[k + 1], path[k]);
+  const n = norm(d);
+  return n > 1e-9 && -d[1] / n < Math.SQRT1_2;
+}
+
 /** A moving joint of the given kind with default axes and limits, for joint k of a path hip → end. */
 export function defaultLegJoint(positions: ArrayLike<number>, path: readonly number[], k: number, kind: LegDofKind): LegJoint {
   const joint = path[k];
   const ankle = findAnkle(positions, path);
   switch (kind) {
-    case 'ball':
-      return { joint, dof: 'ball', axes: [], limits: [{ min: 0, max: DEFAULT_LIMITS.hipSwing }, { min: -DEFAULT_LIMITS.hipTwist, max: DEFAULT_LIMITS.hipTwist }] };
+    case 'ball': {
+      const twist = isSprawled(positions, path, k) ? DEFAULT_LIMITS.sprawledHipTwist : DEFAULT_LIMITS.hipTwist;
+      return { joint, dof: 'ball', axes: [], limits: [{ min: 0, max: DEFAULT_LIMITS.hipSwing }, { min: -twist, max: twist }] };
+    }
     case 'universal': {
       const [lateral, forward] = footAxes(positions, path, k);
       const toeEnded = k === path.length - 2;

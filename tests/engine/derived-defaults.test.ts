@@ -15,6 +15,7 @@ import { froudeNumber } from '../../engine/gait/stride';
 import { runTrial } from '../../engine/gait/trial';
 import { STUMBLE_KINDS } from '../../engine/metrics/stumble-thresholds';
 import { demoCharacterRigs } from '../../seeds/demo-character-rigs';
+import { GAUNTLET } from '../../engine/course/gauntlet';
 
 jest.setTimeout(300_000);
 
@@ -73,5 +74,20 @@ describe('defaults fitted to the character', () => {
     }
     expect(failures).toEqual([]);
     expect([...legCounts].sort()).toEqual([2, 4, 6]);
+  });
+
+  it('give a sprawled hip room to twist, so the demo hexapod climbs a 20° ramp and code stairs without a stumble', () => {
+    const twistOf = (rig: Rig) => rig.legs.map((l) => l.chain.joints.find((j) => j.kind === 'ball')?.ball?.twistMax);
+    const byName = Object.fromEntries(rigs.map((r) => [r.name, r.rig]));
+    // Human hip rotation about ±35° (from memory); a hip whose first bone points out sideways gets ±60°.
+    for (const t of twistOf(byName.Wicket)) expect(t).toBeCloseTo((35 * Math.PI) / 180, 9);
+    for (const t of twistOf(byName.Skitter)) expect(t).toBeCloseTo((60 * Math.PI) / 180, 9);
+    // With ±35° the hexapod's front legs stuck at the twist limit mid-swing: 9 snaps and 7 scuffs on the ramp, 5 and 5 on the stairs.
+    // The stairs are IBC 2021 §1011.5.2 geometry (engine/course/gauntlet.ts).
+    for (const name of ['ramp 20° up and down', 'code stairs up']) {
+      const course = generateCourse(GAUNTLET.find((g) => g.name === name)!.recipe);
+      const m = runTrial(byName.Skitter, defaultLegSetup(byName.Skitter), course, { duration: 60 }).metrics;
+      expect({ name, stumbles: STUMBLE_KINDS.map((k) => m.stumbles[k].count) }).toEqual({ name, stumbles: STUMBLE_KINDS.map(() => 0) });
+    }
   });
 });
