@@ -8,11 +8,12 @@ const DEG = Math.PI / 180;
 
 /**
  * Default ranges. Human joint ranges of motion, rounded (common practice, from memory):
- * hip swing about 90° with ±35° twist, knee flexion to about 150°, ankle plantarflexion 45° /
+ * hip flexion about 120° (the swing cone's half-angle: a fore leg folding forward over a step needs it all;
+ * 90° clamped it mid-swing and the clamp jumped) with ±35° twist, knee flexion to about 150°, ankle plantarflexion 45° /
  * dorsiflexion 20°, inversion/eversion about 20°, toe ±40°.
  */
 export const DEFAULT_LIMITS = {
-  hipSwing: 90 * DEG,
+  hipSwing: 120 * DEG,
   hipTwist: 35 * DEG,
   /**
    * A sprawled hip (its first bone more than 45° from straight down: insect and lizard legs) turns the leg

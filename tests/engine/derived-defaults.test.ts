@@ -90,4 +90,14 @@ describe('defaults fitted to the character', () => {
       expect({ name, stumbles: STUMBLE_KINDS.map((k) => m.stumbles[k].count) }).toEqual({ name, stumbles: STUMBLE_KINDS.map(() => 0) });
     }
   });
+
+  it('give a hip the human 120° of flexion, so the demo quadruped folds its fore legs over the mixed course without a snap', () => {
+    const burrow = rigs.find((r) => r.name === 'Burrow')!.rig;
+    // Hip flexion about 120° (from memory, the usual range of motion of a human hip).
+    for (const l of burrow.legs) expect(l.chain.joints[0].ball?.swing).toBeCloseTo((120 * Math.PI) / 180, 9);
+    // At 90° the fore legs met the cone's edge mid-swing and the clamp jumped: one snap, one skid and one reach-miss here.
+    const course = generateCourse(GAUNTLET.find((g) => g.name === 'mixed')!.recipe);
+    const m = runTrial(burrow, defaultLegSetup(burrow), course, { duration: 60 }).metrics;
+    expect({ snap: m.stumbles.snap.count, skid: m.stumbles.skid.count, reachMiss: m.stumbles['reach-miss'].count }).toEqual({ snap: 0, skid: 0, reachMiss: 0 });
+  });
 });
