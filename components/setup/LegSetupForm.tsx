@@ -1,6 +1,6 @@
 import { StyleSheet, Text, View } from 'react-native';
 import { GAIT_PATTERNS } from '../../engine/gait/patterns';
-import { SOLVER_METHODS } from '../../engine/ik/types';
+import { SOLVER_METHODS } from '../../engine/ik/options';
 import { colors, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
 import { ChoiceChips } from '../ui/ChoiceChips';

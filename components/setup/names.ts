@@ -2,7 +2,7 @@
  * What people read instead of the engine's codes: solver methods by their published names, gait patterns by
  * names of our own. The codes stay in the leg setup and the exported profile; only the screens use these.
  */
-import type { SolverMethod } from '../../engine/ik/types';
+import type { SolverMethod } from '../../engine/ik/options';
 
 export const SOLVER_METHOD_NAMES: Record<SolverMethod, string> = {
   dls: 'DLS',

@@ -3,7 +3,7 @@
  * that the one LegSetupSchema validates (so the form and the server give the same field messages).
  */
 import { LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
-import type { SolverMethod } from '../../engine/ik/types';
+import type { SolverMethod } from '../../engine/ik/options';
 import { fieldMessages } from '../../schemas/errors';
 
 export interface NumberField {
@@ -25,7 +25,7 @@ export interface NumberField {
 
 const JACOBIAN: readonly SolverMethod[] = ['dls', 'sdls', 'transpose', 'pseudoinverse', 'adaptive'];
 
-/** Which methods read which setting: engine/ik/solve.ts (methodStep, jacobianIteration, ccdSweep). */
+/** Which methods read which setting: engine/ik/solve.ts (methodStep, jacobianIteration) and engine/ik/ccd.ts. */
 export const SOLVER_FIELDS: NumberField[] = [
   { path: 'solver.maxIterations', label: 'Iteration budget', integer: true },
   { path: 'solver.tolerance', label: 'Position tolerance', unit: 'm' },

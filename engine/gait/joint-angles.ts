@@ -7,12 +7,12 @@
  * quantized to int16 steps of ANGLE_STEP rad (about 0.1 mrad: under 0.1 mm at the sole of a 1 m leg) or
  * SLIDE_STEP m. The arrays are made on the first sample; later samples only write into them.
  */
-import * as ikWorkspace from '../ik/workspace';
+import * as ikLayout from '../ik/layout';
 import type { IKWorkspace } from '../ik/workspace';
 import type { TrialSeries } from './series';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
-const { DOF_SLIDE } = ikWorkspace;
+const { DOF_SLIDE } = ikLayout;
 
 /** Rotations span ±π in int16. */
 export const ANGLE_STEP = Math.PI / 32767;

@@ -13,13 +13,15 @@
  *   setup's joint speed limit; the pose is re-posed when either applies.
  */
 import * as ikKinematics from '../ik/kinematics';
-import * as ikWorkspace from '../ik/workspace';
+import * as ikLayout from '../ik/layout';
+import * as ikPose from '../ik/pose';
 import { pullInsideReach, pushOutsideFold, TARGET_MAX } from './reach';
 import type { IKWorkspace } from '../ik/workspace';
 import type { Trial } from './trial-state';
 
 const { forwardKinematics } = ikKinematics;
-const { setPose, DOF_BALL, DOF_SLIDE } = ikWorkspace;
+const { setPose } = ikPose;
+const { DOF_BALL, DOF_SLIDE } = ikLayout;
 
 /** Share of the stance after which the heel comes up and the sole rolls onto its point. */
 const HEEL_OFF = 0.5;

@@ -18,6 +18,8 @@ import type { Heightfield } from '../course/heightfield';
 import { courseLength } from '../course/heightfield';
 import { parseOrThrow } from '../course/parse';
 import * as ikSolve from '../ik/solve';
+import * as ikLayout from '../ik/layout';
+import * as ikPose from '../ik/pose';
 import * as ikWorkspace from '../ik/workspace';
 import type { LegChain } from '../rig/types';
 import { ResponseSummary, ResponseWindow } from '../metrics/response-window';
@@ -56,7 +58,9 @@ export * from './trial-options';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { solve } = ikSolve;
-const { createWorkspace, resetPose, setRootTransform, DOF_BALL, DOF_SLIDE } = ikWorkspace;
+const { createWorkspace, setRootTransform } = ikWorkspace;
+const { resetPose } = ikPose;
+const { DOF_BALL, DOF_SLIDE } = ikLayout;
 const ORIGIN = new Float64Array(3);
 const IDENTITY_QUAT = new Float64Array([0, 0, 0, 1]);
 const UP = new Float64Array([0, 1, 0]);

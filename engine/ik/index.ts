@@ -7,34 +7,17 @@
  *   const r = solve(ws, footTarget, groundNormal); // warm-started from the last pose
  *   footPosition(ws, out); r.pose; r.iterations; r.positionError; r.limitHits
  */
+import { vec3 } from 'gl-matrix';
 import type { IKWorkspace } from './workspace';
 
 export type { IKWorkspace } from './workspace';
-export type { SolverOptions, SolveResult, SolverMethod, AdaptiveMode, NullSpaceBias } from './types';
-export { SOLVER_METHODS } from './types';
-export {
-  DEFAULT_OPTIONS,
-  createWorkspace,
-  setOptions,
-  setRootTransform,
-  setRootMatrix,
-  resetPose,
-  setPose,
-  getPose,
-  setBallQuaternion,
-  dofCount,
-  expRotationVector,
-  logQuaternion,
-} from './workspace';
-export {
-  forwardKinematics,
-  jacobian,
-  finiteDifferenceJacobian,
-  jointPosition,
-  jointWorldMatrix,
-  footRotation,
-  toePosition,
-} from './kinematics';
+export type { SolverOptions, SolverMethod, AdaptiveMode, NullSpaceBias } from './options';
+export type { SolveResult } from './solve';
+export { SOLVER_METHODS, DEFAULT_OPTIONS } from './options';
+export { createWorkspace, setOptions, setRootTransform, setRootMatrix, dofCount } from './workspace';
+export { resetPose, setPose, getPose, setBallQuaternion, expRotationVector, logQuaternion } from './pose';
+export { forwardKinematics, jointPosition, jointWorldMatrix, footRotation, toePosition } from './kinematics';
+export { jacobian, finiteDifferenceJacobian } from './jacobian';
 export { solve } from './solve';
 export { dlsStep, transposeStep, pseudoinverseStep, sdlsStep, manipulability } from './steps';
 
@@ -44,16 +27,12 @@ export const createLegSolver = createWorkspace;
 
 /** Sole (end effector) world position after the last FK / solve. */
 export function footPosition(ws: IKWorkspace, out: Float64Array | number[] = new Float64Array(3)) {
-  out[0] = ws.foot[0];
-  out[1] = ws.foot[1];
-  out[2] = ws.foot[2];
+  vec3.copy(out as vec3, ws.foot as unknown as vec3);
   return out;
 }
 
 /** Sole normal (world) after the last FK / solve. */
 export function footNormal(ws: IKWorkspace, out: Float64Array | number[] = new Float64Array(3)) {
-  out[0] = ws.footUp[0];
-  out[1] = ws.footUp[1];
-  out[2] = ws.footUp[2];
+  vec3.copy(out as vec3, ws.footUp as unknown as vec3);
   return out;
 }

@@ -1,22 +1,29 @@
 /**
- * Forward kinematics and Jacobians of a leg chain in a workspace.
+ * Forward kinematics of a leg chain in a workspace, and what can be read off it.
  *
  * W_j = W_{j−1} · T(offset_j) · R(rest_j) · D_j(q), W_{−1} = root (hip socket).
  * Matrices are row-major 3×3 in Float64Array (R[r*3+c]).
  */
+import * as M3 from '../math/mat3';
+import * as Q from '../math/quat';
+import * as L from './layout';
 import type { IKWorkspace } from './workspace';
-import { expRotationVector as expRotationVectorImport } from './workspace';
 
-// Local copies of workspace constants and imports: transpiled ES module imports
-// become getter calls on every access, which costs more than the arithmetic here.
-const DOF_BALL = 1;
-const DOF_SLIDE = 2;
-const JOINT_HINGE = 0;
-const JOINT_UNIVERSAL = 1;
-const JOINT_BALL = 2;
-const expRotationVector = expRotationVectorImport;
+// Local bindings: transpiled ES module imports become getter calls on every
+// access, which costs more than the arithmetic here.
+const fromAxisCosSin = M3.fromAxisCosSin;
+const quatFromMat3 = Q.fromMat3;
+const JOINT_HINGE = L.JOINT_HINGE;
+const JOINT_UNIVERSAL = L.JOINT_UNIVERSAL;
+const JOINT_BALL = L.JOINT_BALL;
+const JOINT_SLIDER = L.JOINT_SLIDER;
+const AXIS_NEGATIVE = L.AXIS_NEGATIVE;
+const AXIS_GENERAL = L.AXIS_GENERAL;
+
 /** Incremental cos/sin updates before an exact recompute. */
 const TRIG_REFRESH = 64;
+/** Angle changes below this (rad) advance the cached cos/sin by angle addition. */
+const TRIG_SMALL_STEP = 0.05;
 
 /**
  * Forward kinematics from the current pose: joint world frames, per-DOF world
@@ -24,8 +31,10 @@ const TRIG_REFRESH = 64;
  * DOF's pivot is its joint's position (ws.jPos).
  * `from` > 0 recomputes only joints from that index on (the earlier ones must be current).
  *
- * The running frame lives in locals (p, R row-major r00..r22); each joint's
- * frame is stored once at its end.
+ * Per joint: T(offset), R(rest), each DOF's motion, then the frame is
+ * stored. The running frame lives in locals (p, R row-major r00..r22) from
+ * joint to joint: split into functions passing it through a typed array,
+ * this function measured 1.2–2.3× slower, so its steps are sections here.
  */
 export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
   const nJ = ws.nJoints;
@@ -44,6 +53,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
   const trigCos = ws.trigCos;
   const trigSin = ws.trigSin;
   const trigCount = ws.trigCount;
+  const localRot = ws.localRot;
   let px: number, py: number, pz: number;
   let r00: number, r01: number, r02: number, r10: number, r11: number, r12: number, r20: number, r21: number, r22: number;
   if (from === 0) {
@@ -78,6 +88,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
     r22 = jRot[o + 8];
   }
   for (let j = from; j < nJ; j++) {
+    // T(offset): p ← p + R·offset.
     const ox = jOffset[3 * j];
     const oy = jOffset[3 * j + 1];
     const oz = jOffset[3 * j + 2];
@@ -85,6 +96,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
     py += r10 * ox + r11 * oy + r12 * oz;
     pz += r20 * ox + r21 * oy + r22 * oz;
     const o = 9 * j;
+    // R(rest): R ← R·rest.
     if (!ws.jRestIdentity[j]) {
       const m00 = jRest[o], m01 = jRest[o + 1], m02 = jRest[o + 2];
       const m10 = jRest[o + 3], m11 = jRest[o + 4], m12 = jRest[o + 5];
@@ -124,7 +136,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
         } else {
           const dd = th - prev;
           const cnt = trigCount[d];
-          if (dd > -0.05 && dd < 0.05 && cnt < TRIG_REFRESH) {
+          if (dd > -TRIG_SMALL_STEP && dd < TRIG_SMALL_STEP && cnt < TRIG_REFRESH) {
             const d2 = dd * dd;
             const sd = dd * (1 - d2 * (1 / 6 - d2 * (1 / 120 - d2 * (1 / 5040 - d2 / 362880))));
             const cd = 1 - d2 * (0.5 - d2 * (1 / 24 - d2 * (1 / 720 - d2 * (1 / 40320 - d2 / 3628800))));
@@ -143,11 +155,12 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
           trigSin[d] = sn;
         }
         const code = dAxisCode[d];
-        if (code < 6) {
+        if (code !== AXIS_GENERAL) {
           // Axis-aligned (±X, ±Y, ±Z): the world axis is a column of R; rotate two columns.
-          const sg = code < 3 ? sn : -sn;
-          const sgn = code < 3 ? 1 : -1;
-          const ax = code % 3;
+          const negative = code >= AXIS_NEGATIVE;
+          const sg = negative ? -sn : sn;
+          const sgn = negative ? -1 : 1;
+          const ax = negative ? code - AXIS_NEGATIVE : code;
           if (ax === 0) {
             dAxisW[3 * d] = sgn * r00;
             dAxisW[3 * d + 1] = sgn * r10;
@@ -202,16 +215,10 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
           dAxisW[3 * d + 1] = r10 * ax + r11 * ay + r12 * az;
           dAxisW[3 * d + 2] = r20 * ax + r21 * ay + r22 * az;
           // Rodrigues M = cI + s[a]× + (1−c)aaᵀ, R ← R·M.
-          const t = 1 - c;
-          const m00 = c + t * ax * ax;
-          const m01 = t * ax * ay - sn * az;
-          const m02 = t * ax * az + sn * ay;
-          const m10 = t * ax * ay + sn * az;
-          const m11 = c + t * ay * ay;
-          const m12 = t * ay * az - sn * ax;
-          const m20 = t * ax * az - sn * ay;
-          const m21 = t * ay * az + sn * ax;
-          const m22 = c + t * az * az;
+          fromAxisCosSin(localRot, 0, dAxis, 3 * d, trigCos, trigSin, d);
+          const m00 = localRot[0], m01 = localRot[1], m02 = localRot[2];
+          const m10 = localRot[3], m11 = localRot[4], m12 = localRot[5];
+          const m20 = localRot[6], m21 = localRot[7], m22 = localRot[8];
           let a0 = r00, a1 = r01, a2 = r02;
           r00 = a0 * m00 + a1 * m10 + a2 * m20;
           r01 = a0 * m01 + a1 * m11 + a2 * m21;
@@ -241,6 +248,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
       dAxisW[3 * d + 6] = r02;
       dAxisW[3 * d + 7] = r12;
       dAxisW[3 * d + 8] = r22;
+      // mat3.fromUnitQuat, written out: through memory it cost a ball leg's FK a fifth more.
       const qo = 4 * ws.jBall[j];
       const x = quat[qo];
       const y = quat[qo + 1];
@@ -278,7 +286,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
       r21 = a0 * m01 + a1 * m11 + a2 * m21;
       r22 = a0 * m02 + a1 * m12 + a2 * m22;
     } else {
-      // Slider: translate along its axis.
+      // Slider: p ← p + q·(R·axis).
       const ax = dAxis[3 * d];
       const ay = dAxis[3 * d + 1];
       const az = dAxis[3 * d + 2];
@@ -293,6 +301,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
       py += wy * sl;
       pz += wz * sl;
     }
+    // Store the joint's frame.
     jPos[3 * j] = px;
     jPos[3 * j + 1] = py;
     jPos[3 * j + 2] = pz;
@@ -323,149 +332,6 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
   return foot;
 }
 
-/**
- * Analytic geometric Jacobian at the current FK (call forwardKinematics first).
- * Column i (stride 6 in `out`): rotation DOF → [ω × (p_sole − p_pivot); w_o·ω],
- * slider → [axis; 0]. `rows` 3 (position) or 6 (position + orientation, the
- * orientation rows scaled by `orientationWeight`, metres per radian).
- */
-export function jacobian(
-  ws: IKWorkspace,
-  rows: 3 | 6 = 3,
-  out: Float64Array = ws.J,
-  orientationWeight = ws.options.orientationWeight,
-): Float64Array {
-  const n = ws.nDof;
-  const fx = ws.foot[0];
-  const fy = ws.foot[1];
-  const fz = ws.foot[2];
-  const A = ws.dAxisW;
-  const P = ws.jPos;
-  const DJ = ws.dJoint;
-  const K = ws.dKind;
-  for (let i = 0; i < n; i++) {
-    const ax = A[3 * i];
-    const ay = A[3 * i + 1];
-    const az = A[3 * i + 2];
-    const c = 6 * i;
-    if (K[i] === DOF_SLIDE) {
-      out[c] = ax;
-      out[c + 1] = ay;
-      out[c + 2] = az;
-      if (rows === 6) {
-        out[c + 3] = 0;
-        out[c + 4] = 0;
-        out[c + 5] = 0;
-      }
-    } else {
-      const pj = 3 * DJ[i];
-      const rx = fx - P[pj];
-      const ry = fy - P[pj + 1];
-      const rz = fz - P[pj + 2];
-      out[c] = ay * rz - az * ry;
-      out[c + 1] = az * rx - ax * rz;
-      out[c + 2] = ax * ry - ay * rx;
-      if (rows === 6) {
-        out[c + 3] = orientationWeight * ax;
-        out[c + 4] = orientationWeight * ay;
-        out[c + 5] = orientationWeight * az;
-      }
-    }
-  }
-  return out;
-}
-
-/**
- * Finite-difference Jacobian (central differences, step h), for checking the
- * analytic one. Same layout as `jacobian`. Ball columns perturb the quaternion
- * by exp(±h·e_k) pre-multiplied in the rest frame, matching the solver's
- * update. Orientation rows: the change of the sole frame as a rotation vector.
- * Restores the pose and the FK afterwards. Allocates (checking only).
- */
-export function finiteDifferenceJacobian(
-  ws: IKWorkspace,
-  rows: 3 | 6 = 3,
-  h = 1e-6,
-  out: Float64Array = new Float64Array(6 * ws.nDof),
-  orientationWeight = ws.options.orientationWeight,
-): Float64Array {
-  const n = ws.nDof;
-  const pose0 = Float64Array.from(ws.pose);
-  const quat0 = Float64Array.from(ws.quat);
-  const footP = new Float64Array(3);
-  const footM = new Float64Array(3);
-  const rotP = new Float64Array(9);
-  const rotM = new Float64Array(9);
-  const last = 9 * (ws.nJoints - 1);
-  const dq = new Float64Array(4);
-  const perturb = (i: number, s: number): void => {
-    ws.pose.set(pose0);
-    ws.quat.set(quat0);
-    if (ws.dKind[i] === DOF_BALL) {
-      const j = ws.dJoint[i];
-      const k = i - ws.jDof0[j];
-      const b = ws.jBall[j];
-      expRotationVector(k === 0 ? s : 0, k === 1 ? s : 0, k === 2 ? s : 0, dq, 0);
-      premultiplyQuat(dq, ws.quat, 4 * b);
-    } else {
-      ws.pose[i] += s;
-    }
-    forwardKinematics(ws);
-  };
-  for (let i = 0; i < n; i++) {
-    perturb(i, h);
-    footP.set(ws.foot);
-    rotP.set(ws.jRot.subarray(last, last + 9));
-    perturb(i, -h);
-    footM.set(ws.foot);
-    rotM.set(ws.jRot.subarray(last, last + 9));
-    const c = 6 * i;
-    for (let r = 0; r < 3; r++) out[c + r] = (footP[r] - footM[r]) / (2 * h);
-    if (rows === 6) {
-      // ω ≈ vee(Rp·Rmᵀ) / (2h) for small rotations: Rp·Rmᵀ ≈ I + [2h·ω]×.
-      const m = new Float64Array(9);
-      for (let r = 0; r < 3; r++)
-        for (let q = 0; q < 3; q++) {
-          let acc = 0;
-          for (let k = 0; k < 3; k++) acc += rotP[r * 3 + k] * rotM[q * 3 + k];
-          m[r * 3 + q] = acc;
-        }
-      out[c + 3] = (orientationWeight * (m[7] - m[5])) / 2 / (2 * h);
-      out[c + 4] = (orientationWeight * (m[2] - m[6])) / 2 / (2 * h);
-      out[c + 5] = (orientationWeight * (m[3] - m[1])) / 2 / (2 * h);
-    }
-  }
-  ws.pose.set(pose0);
-  ws.quat.set(quat0);
-  forwardKinematics(ws);
-  return out;
-}
-
-/** q[o..o+3] ← d ⊗ q[o..o+3] (d a unit quaternion), renormalised. */
-export function premultiplyQuat(d: ArrayLike<number>, q: Float64Array, o: number): void {
-  const ax = d[0];
-  const ay = d[1];
-  const az = d[2];
-  const aw = d[3];
-  const bx = q[o];
-  const by = q[o + 1];
-  const bz = q[o + 2];
-  const bw = q[o + 3];
-  const x = aw * bx + ax * bw + ay * bz - az * by;
-  const y = aw * by - ax * bz + ay * bw + az * bx;
-  const z = aw * bz + ax * by - ay * bx + az * bw;
-  const w = aw * bw - ax * bx - ay * by - az * bz;
-  // Both factors are unit, so |q|² = 1 + ε with ε at rounding level: the
-  // first-order renormalisation 1/√(1+ε) ≈ 1 − ε/2 is exact to O(ε²) without
-  // a square root or a division; fall back to the exact one if ever far off.
-  const n2 = x * x + y * y + z * z + w * w;
-  const k = n2 > 0.999 && n2 < 1.001 ? 1.5 - 0.5 * n2 : 1 / Math.sqrt(n2);
-  q[o] = x * k;
-  q[o + 1] = y * k;
-  q[o + 2] = z * k;
-  q[o + 3] = w * k;
-}
-
 /** World position of joint j (after forwardKinematics). */
 export function jointPosition(ws: IKWorkspace, j: number, out: Float64Array | number[] = new Float64Array(3)) {
   out[0] = ws.jPos[3 * j];
@@ -476,19 +342,19 @@ export function jointPosition(ws: IKWorkspace, j: number, out: Float64Array | nu
 
 /** World 4×4 column-major matrix of joint j (after forwardKinematics). */
 export function jointWorldMatrix(ws: IKWorkspace, j: number, out: Float64Array | number[] = new Float64Array(16)) {
-  const R = ws.jRot;
+  const Rj = ws.jRot;
   const o = 9 * j;
-  out[0] = R[o];
-  out[1] = R[o + 3];
-  out[2] = R[o + 6];
+  out[0] = Rj[o];
+  out[1] = Rj[o + 3];
+  out[2] = Rj[o + 6];
   out[3] = 0;
-  out[4] = R[o + 1];
-  out[5] = R[o + 4];
-  out[6] = R[o + 7];
+  out[4] = Rj[o + 1];
+  out[5] = Rj[o + 4];
+  out[6] = Rj[o + 7];
   out[7] = 0;
-  out[8] = R[o + 2];
-  out[9] = R[o + 5];
-  out[10] = R[o + 8];
+  out[8] = Rj[o + 2];
+  out[9] = Rj[o + 5];
+  out[10] = Rj[o + 8];
   out[11] = 0;
   out[12] = ws.jPos[3 * j];
   out[13] = ws.jPos[3 * j + 1];
@@ -499,54 +365,19 @@ export function jointWorldMatrix(ws: IKWorkspace, j: number, out: Float64Array |
 
 /** World rotation of the foot (last joint) as a quaternion [x, y, z, w] (after forwardKinematics). */
 export function footRotation(ws: IKWorkspace, out: Float64Array | number[] = new Float64Array(4)) {
-  const R = ws.jRot;
-  const o = 9 * (ws.nJoints - 1);
-  const m00 = R[o];
-  const m11 = R[o + 4];
-  const m22 = R[o + 8];
-  const tr = m00 + m11 + m22;
-  let x: number, y: number, z: number, w: number;
-  if (tr > 0) {
-    const s = 0.5 / Math.sqrt(tr + 1);
-    w = 0.25 / s;
-    x = (R[o + 7] - R[o + 5]) * s;
-    y = (R[o + 2] - R[o + 6]) * s;
-    z = (R[o + 3] - R[o + 1]) * s;
-  } else if (m00 > m11 && m00 > m22) {
-    const s = 2 * Math.sqrt(1 + m00 - m11 - m22);
-    w = (R[o + 7] - R[o + 5]) / s;
-    x = 0.25 * s;
-    y = (R[o + 1] + R[o + 3]) / s;
-    z = (R[o + 2] + R[o + 6]) / s;
-  } else if (m11 > m22) {
-    const s = 2 * Math.sqrt(1 + m11 - m00 - m22);
-    w = (R[o + 2] - R[o + 6]) / s;
-    x = (R[o + 1] + R[o + 3]) / s;
-    y = 0.25 * s;
-    z = (R[o + 5] + R[o + 7]) / s;
-  } else {
-    const s = 2 * Math.sqrt(1 + m22 - m00 - m11);
-    w = (R[o + 3] - R[o + 1]) / s;
-    x = (R[o + 2] + R[o + 6]) / s;
-    y = (R[o + 5] + R[o + 7]) / s;
-    z = 0.25 * s;
-  }
-  out[0] = x;
-  out[1] = y;
-  out[2] = z;
-  out[3] = w;
+  quatFromMat3(out, 0, ws.jRot, 9 * (ws.nJoints - 1));
   return out;
 }
 
 /** Toe tip in world coordinates (after forwardKinematics); null if the chain has no toe. */
 export function toePosition(ws: IKWorkspace, out: Float64Array | number[] = new Float64Array(3)) {
   if (!ws.toe) return null;
-  const R = ws.jRot;
+  const Rj = ws.jRot;
   const o = 9 * (ws.nJoints - 1);
   const lp = 3 * (ws.nJoints - 1);
   const t = ws.toe;
-  out[0] = ws.jPos[lp] + R[o] * t[0] + R[o + 1] * t[1] + R[o + 2] * t[2];
-  out[1] = ws.jPos[lp + 1] + R[o + 3] * t[0] + R[o + 4] * t[1] + R[o + 5] * t[2];
-  out[2] = ws.jPos[lp + 2] + R[o + 6] * t[0] + R[o + 7] * t[1] + R[o + 8] * t[2];
+  out[0] = ws.jPos[lp] + Rj[o] * t[0] + Rj[o + 1] * t[1] + Rj[o + 2] * t[2];
+  out[1] = ws.jPos[lp + 1] + Rj[o + 3] * t[0] + Rj[o + 4] * t[1] + Rj[o + 5] * t[2];
+  out[2] = ws.jPos[lp + 2] + Rj[o + 6] * t[0] + Rj[o + 7] * t[1] + Rj[o + 8] * t[2];
   return out;
 }

@@ -2,17 +2,27 @@
  * The solve loop: warm start, iterate (FK → error → Jacobian → step → limits)
  * until the foot is within tolerance, the step stalls or the iteration cap.
  */
+import * as Q from '../math/quat';
+import * as CCD from './ccd';
+import * as JAC from './jacobian';
 import * as K from './kinematics';
+import * as L from './layout';
+import * as LIM from './limits';
+import * as NS from './null-space';
+import type { SolverOptions } from './options';
+import * as P from './pose';
 import * as S from './steps';
-import type { SolveResult, SolverOptions } from './types';
 import type { IKWorkspace } from './workspace';
 import * as W from './workspace';
 
 // Local bindings: transpiled ES module imports turn every use into a getter
 // call, which in this loop costs more than the arithmetic.
 const forwardKinematics = K.forwardKinematics;
-const jacobian = K.jacobian;
-const premultiplyQuat = K.premultiplyQuat;
+const jacobian = JAC.jacobian;
+const ccdSweep = CCD.ccdSweep;
+const nullSpaceBias = NS.nullSpaceBias;
+const premultiplyUnit = Q.premultiplyUnit;
+const fromRotationVector = Q.fromRotationVector;
 const dlsStepS = S.dlsStepS;
 const jacobianDlsStep3 = S.jacobianDlsStep3;
 const manipulability = S.manipulability;
@@ -21,17 +31,42 @@ const sdlsStep = S.sdlsStep;
 const transposeStep = S.transposeStep;
 const applyClamp = W.applyClamp;
 const applyWeights = W.applyWeights;
-const clampBall = W.clampBall;
-const expRotationVector = W.expRotationVector;
-const expRotationVectorAt = W.expRotationVectorAt;
-const logQuaternion = W.logQuaternion;
-const resetPose = W.resetPose;
-const setPose = W.setPose;
-const syncBallPose = W.syncBallPose;
-const DOF_BALL = 1;
-const DOF_SLIDE = 2;
-const JOINT_BALL = 2;
-const JOINT_SLIDER = 3;
+const clampBall = LIM.clampBall;
+const stepLeavesLimits = LIM.stepLeavesLimits;
+const resetPose = P.resetPose;
+const setPose = P.setPose;
+const syncBallPose = P.syncBallPose;
+const DOF_BALL = L.DOF_BALL;
+const DOF_SLIDE = L.DOF_SLIDE;
+const S_LAMBDA2 = L.S_LAMBDA2;
+const S_ANGLE = L.S_ANGLE;
+const S_CHANGE = L.S_CHANGE;
+const S_POSITION_ERROR2 = L.S_POSITION_ERROR2;
+const S_BIAS_SCALE = L.S_BIAS_SCALE;
+
+/** λ² of a DLS retry when the undamped (λ = 0) matrix is singular, m². */
+const DLS_RETRY_DAMPING2 = 1e-12;
+/** Adaptive λ² floor (keeps the damped matrix positive definite at λ = 0), and its retry, m². */
+const ADAPTIVE_MIN_DAMPING2 = 1e-14;
+const ADAPTIVE_RETRY_DAMPING2 = 1e-10;
+
+export interface SolveResult {
+  /** DOF values after the solve (view onto the workspace's pose; copy it to keep it). */
+  pose: Float64Array;
+  /** Steps taken. */
+  iterations: number;
+  /** Final |foot − target|, metres. */
+  positionError: number;
+  /** Final angle between the sole normal and the target normal, radians (0 without an orientation target). */
+  orientationError: number;
+  converged: boolean;
+  /** Number of DOF clamps against joint limits during the solve. */
+  limitHits: number;
+  /** Error after each iteration (index 0 = before the first step), when recordErrors; else null. */
+  errorHistory: Float64Array | null;
+  /** Length of the meaningful part of errorHistory (iterations + 1). */
+  errorHistoryLength: number;
+}
 
 const METHOD_TRANSPOSE = 0;
 const METHOD_PINV = 1;
@@ -59,14 +94,17 @@ function methodCode(m: SolverOptions['method']): number {
   }
 }
 
-/** Scratch for the orientation error (module-level, no allocation per solve). */
+/** A ball's step as a quaternion (module-level, no allocation per solve). */
 const quatScratch = new Float64Array(4);
+
+/** Below this |u × n| the sole normal u and the target normal n are taken as parallel (or antiparallel). */
+const NORMALS_PARALLEL_BELOW = 1e-12;
 
 /**
  * Task error at the current FK into ws.e (rows 0–2 position, 3–5 weighted
- * orientation when `orient`). Returns |e_p|; the orientation angle goes to errState[0].
+ * orientation when `orient`). The squared position error goes to
+ * ws.scalars[S_POSITION_ERROR2], the orientation angle to ws.scalars[S_ANGLE].
  */
-const errState = new Float64Array(3);
 function taskError(ws: IKWorkspace, orient: boolean): void {
   const e = ws.e;
   const t = ws.target;
@@ -87,7 +125,7 @@ function taskError(ws: IKWorkspace, orient: boolean): void {
     const cs = u[0] * nn[0] + u[1] * nn[1] + u[2] * nn[2];
     const ang = Math.atan2(sn, cs);
     const wo = ws.options.orientationWeight;
-    if (sn > 1e-12) {
+    if (sn > NORMALS_PARALLEL_BELOW) {
       const k = (wo * ang) / sn;
       e[3] = cx * k;
       e[4] = cy * k;
@@ -113,78 +151,11 @@ function taskError(ws: IKWorkspace, orient: boolean): void {
       e[4] = 0;
       e[5] = 0;
     }
-    errState[0] = ang;
+    ws.scalars[S_ANGLE] = ang;
   } else {
-    errState[0] = 0;
+    ws.scalars[S_ANGLE] = 0;
   }
-  errState[2] = ex * ex + ey * ey + ez * ez; // squared: the loop compares squares
-}
-
-/** Secondary-task joint velocity z (null-space bias); returns false when there is none. */
-function nullSpaceBias(ws: IKWorkspace, w: Float64Array): boolean {
-  const ns = ws.options.nullSpace;
-  if (!ns || ns.kind === 'none') return false;
-  const n = ws.nDof;
-  const z = ws.z;
-  if (ns.kind === 'rest') {
-    const g = ns.gain;
-    for (let i = 0; i < n; i++) z[i] = ws.dKind[i] === DOF_BALL ? 0 : g * w[i] * (ws.restPose[i] - ws.pose[i]);
-    for (let j = 0; j < ws.nJoints; j++) {
-      const b = ws.jBall[j];
-      if (b < 0) continue;
-      const d = ws.jDof0[j];
-      logQuaternion(ws.quat, 4 * b, ws.tmpN, d);
-      for (let k = 0; k < 3; k++) z[d + k] = -g * w[d + k] * ws.tmpN[d + k];
-    }
-    return true;
-  }
-  // Pole: move the knee toward the pole, sideways to the hip→foot line.
-  const k = Math.min(Math.max(ws.knee, 0), ws.nJoints - 1);
-  const kx = ws.jPos[3 * k];
-  const ky = ws.jPos[3 * k + 1];
-  const kz = ws.jPos[3 * k + 2];
-  let dx = ns.pole[0] - kx;
-  let dy = ns.pole[1] - ky;
-  let dz = ns.pole[2] - kz;
-  let ux = ws.foot[0] - ws.jPos[0];
-  let uy = ws.foot[1] - ws.jPos[1];
-  let uz = ws.foot[2] - ws.jPos[2];
-  const ul = Math.sqrt(ux * ux + uy * uy + uz * uz);
-  if (ul > 1e-12) {
-    ux /= ul;
-    uy /= ul;
-    uz /= ul;
-    const p = dx * ux + dy * uy + dz * uz;
-    dx -= p * ux;
-    dy -= p * uy;
-    dz -= p * uz;
-  }
-  const g = ns.gain;
-  for (let i = 0; i < n; i++) {
-    if (ws.dJoint[i] >= k) {
-      z[i] = 0;
-      continue;
-    }
-    const ax = ws.dAxisW[3 * i];
-    const ay = ws.dAxisW[3 * i + 1];
-    const az = ws.dAxisW[3 * i + 2];
-    let cx: number, cy: number, cz: number;
-    if (ws.dKind[i] === DOF_SLIDE) {
-      cx = ax;
-      cy = ay;
-      cz = az;
-    } else {
-      const pj = 3 * ws.dJoint[i];
-      const rx = kx - ws.jPos[pj];
-      const ry = ky - ws.jPos[pj + 1];
-      const rz = kz - ws.jPos[pj + 2];
-      cx = ay * rz - az * ry;
-      cy = az * rx - ax * rz;
-      cz = ax * ry - ay * rx;
-    }
-    z[i] = g * w[i] * (cx * dx + cy * dy + cz * dz);
-  }
-  return true;
+  ws.scalars[S_POSITION_ERROR2] = ex * ex + ey * ey + ez * ez; // squared: the loop compares squares
 }
 
 /** dq ← S(e) for the method, with the current effective weights. */
@@ -202,9 +173,9 @@ function methodStep(
     case METHOD_DLS: {
       const sc = ws.scalars;
       const l2 = o.lambda * o.lambda;
-      sc[0] = l2;
+      sc[S_LAMBDA2] = l2;
       if (!dlsStepS(ws, w, m, e, dq)) {
-        sc[0] = l2 + 1e-12;
+        sc[S_LAMBDA2] = l2 + DLS_RETRY_DAMPING2;
         dlsStepS(ws, w, m, e, dq);
       }
       return;
@@ -221,9 +192,9 @@ function methodStep(
         l2 = 0.5 * E + o.lmBias;
       }
       const sc = ws.scalars;
-      sc[0] = l2 + 1e-14;
+      sc[S_LAMBDA2] = l2 + ADAPTIVE_MIN_DAMPING2;
       if (!dlsStepS(ws, w, m, e, dq)) {
-        sc[0] = l2 + 1e-10;
+        sc[S_LAMBDA2] = l2 + ADAPTIVE_RETRY_DAMPING2;
         dlsStepS(ws, w, m, e, dq);
       }
       return;
@@ -273,7 +244,7 @@ function biasedStep(
     for (let r = 0; r < m; r++) jz[r] += J[6 * i + r] * zi;
   }
   const p = ws.tmpN;
-  ws.scalars[0] = NULL_EPS2;
+  ws.scalars[S_LAMBDA2] = NULL_EPS2;
   if (!dlsStepS(ws, w, m, jz, p)) return;
   for (let i = 0; i < n; i++) dq[i] += z[i] - p[i];
 }
@@ -298,17 +269,6 @@ function limitStepSize(ws: IKWorkspace): void {
     }
   }
   if (k < 1) for (let i = 0; i < n; i++) dq[i] *= k;
-}
-
-/** Does pose + dq leave the limits on some free scalar DOF? */
-function violates(ws: IKWorkspace): boolean {
-  const n = ws.nDof;
-  for (let i = 0; i < n; i++) {
-    if (ws.locked[i] || ws.dKind[i] === DOF_BALL) continue;
-    const v = ws.pose[i] + ws.dq[i];
-    if (v < ws.lo[i] || v > ws.hi[i]) return true;
-  }
-  return false;
 }
 
 /** Apply dq to the pose, clamping every DOF to its limits. Returns the number of clamps. */
@@ -338,12 +298,12 @@ function applyStep(ws: IKWorkspace): number {
       const b = ws.jBall[j];
       if (b < 0) continue;
       const d = ws.jDof0[j];
-      expRotationVectorAt(dq, d, quatScratch, 0);
-      premultiplyQuat(quatScratch, ws.quat, 4 * b);
+      fromRotationVector(quatScratch, 0, dq, d);
+      premultiplyUnit(ws.quat, 4 * b, quatScratch, 0);
       if (clampBall(ws, b)) hits++;
     }
   }
-  errState[1] = mx;
+  ws.scalars[S_CHANGE] = mx;
   return hits;
 }
 
@@ -386,16 +346,16 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   // clamp keeps pulling the foot off the target).
   const hasBias = nullSpaceBias(ws, ws.weight);
   if (hasBias) {
-    const g = ws.scalars[7];
+    const g = ws.scalars[S_BIAS_SCALE];
     if (g !== 1) for (let i = 0; i < n; i++) ws.z[i] *= g;
   }
   if (code === METHOD_DLS && m === 3 && !hasBias) {
     // The common case (position task, fixed damping): Jacobian and step fused.
     const sc = ws.scalars;
     const l2 = o.lambda * o.lambda;
-    sc[0] = l2;
+    sc[S_LAMBDA2] = l2;
     if (!jacobianDlsStep3(ws, ws.weight, e, ws.dq)) {
-      sc[0] = l2 + 1e-12;
+      sc[S_LAMBDA2] = l2 + DLS_RETRY_DAMPING2;
       dlsStepS(ws, ws.weight, 3, e, ws.dq);
     }
   } else {
@@ -404,7 +364,7 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   }
   limitStepSize(ws);
   let hits = 0;
-  if (o.resolveSaturated && violates(ws)) {
+  if (o.resolveSaturated && stepLeavesLimits(ws)) {
     const locked = ws.locked;
     const dql = ws.dqLocked;
     const J = ws.J;
@@ -466,110 +426,14 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
       for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = 0;
       limitStepSize(ws);
       for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = dql[i];
-      if (!violates(ws)) break;
+      if (!stepLeavesLimits(ws)) break;
     }
     locked.fill(0); // `violates` reads the mask: leave it clear for the next iteration
     // Candidate 2 (re-solved without the saturated DOFs) only where it reaches the target better.
     if (resPlain < predictedResidual2(ws, m, e, ws.dq)) for (let i = 0; i < n; i++) ws.dq[i] = plain[i];
   }
   hits += applyStep(ws);
-  if (hasBias && hits > 0) ws.scalars[7] *= 0.5;
-  return hits;
-}
-
-/**
- * One CCD sweep, foot → hip: each DOF in turn moves the sole toward the target
- * (hinge: the angle between the projections on the plane ⟂ axis; ball: the
- * shortest rotation; slider: the projection on its axis), clamped to its limits.
- * Returns limit hits; the largest change goes to errState[1].
- */
-function ccdSweep(ws: IKWorkspace): number {
-  const t = ws.target;
-  let hits = 0;
-  let change = 0;
-  for (let j = ws.nJoints - 1; j >= 0; j--) {
-    const kind = ws.jKind[j];
-    const d0 = ws.jDof0[j];
-    if (kind === JOINT_BALL) {
-      const px = ws.jPos[3 * j];
-      const py = ws.jPos[3 * j + 1];
-      const pz = ws.jPos[3 * j + 2];
-      const r1x = ws.foot[0] - px;
-      const r1y = ws.foot[1] - py;
-      const r1z = ws.foot[2] - pz;
-      const r2x = t[0] - px;
-      const r2y = t[1] - py;
-      const r2z = t[2] - pz;
-      const cx = r1y * r2z - r1z * r2y;
-      const cy = r1z * r2x - r1x * r2z;
-      const cz = r1x * r2y - r1y * r2x;
-      const sn = Math.sqrt(cx * cx + cy * cy + cz * cz);
-      if (sn < 1e-14) continue;
-      const ang = Math.atan2(sn, r1x * r2x + r1y * r2y + r1z * r2z);
-      const k = ang / sn;
-      const wx = cx * k;
-      const wy = cy * k;
-      const wz = cz * k;
-      const A = ws.dAxisW;
-      const dx = A[3 * d0] * wx + A[3 * d0 + 1] * wy + A[3 * d0 + 2] * wz;
-      const dy = A[3 * d0 + 3] * wx + A[3 * d0 + 4] * wy + A[3 * d0 + 5] * wz;
-      const dz = A[3 * d0 + 6] * wx + A[3 * d0 + 7] * wy + A[3 * d0 + 8] * wz;
-      expRotationVector(dx, dy, dz, quatScratch, 0);
-      premultiplyQuat(quatScratch, ws.quat, 4 * ws.jBall[j]);
-      if (clampBall(ws, ws.jBall[j])) hits++;
-      if (ang > change) change = ang;
-      forwardKinematics(ws, j);
-      continue;
-    }
-    const nd = kind === JOINT_SLIDER || kind === 0 ? 1 : 2;
-    for (let d = d0 + nd - 1; d >= d0; d--) {
-      const ax = ws.dAxisW[3 * d];
-      const ay = ws.dAxisW[3 * d + 1];
-      const az = ws.dAxisW[3 * d + 2];
-      let delta: number;
-      if (kind === JOINT_SLIDER) {
-        delta = ax * (t[0] - ws.foot[0]) + ay * (t[1] - ws.foot[1]) + az * (t[2] - ws.foot[2]);
-      } else {
-        const px = ws.jPos[3 * j];
-        const py = ws.jPos[3 * j + 1];
-        const pz = ws.jPos[3 * j + 2];
-        let r1x = ws.foot[0] - px;
-        let r1y = ws.foot[1] - py;
-        let r1z = ws.foot[2] - pz;
-        let r2x = t[0] - px;
-        let r2y = t[1] - py;
-        let r2z = t[2] - pz;
-        const p1 = r1x * ax + r1y * ay + r1z * az;
-        const p2 = r2x * ax + r2y * ay + r2z * az;
-        r1x -= p1 * ax;
-        r1y -= p1 * ay;
-        r1z -= p1 * az;
-        r2x -= p2 * ax;
-        r2y -= p2 * ay;
-        r2z -= p2 * az;
-        const cx = r1y * r2z - r1z * r2y;
-        const cy = r1z * r2x - r1x * r2z;
-        const cz = r1x * r2y - r1y * r2x;
-        const s = ax * cx + ay * cy + az * cz;
-        const c = r1x * r2x + r1y * r2y + r1z * r2z;
-        if (Math.abs(s) < 1e-15 && c >= 0) continue;
-        delta = Math.atan2(s, c);
-      }
-      let v = ws.pose[d] + delta;
-      if (v < ws.lo[d]) {
-        v = ws.lo[d];
-        hits++;
-      } else if (v > ws.hi[d]) {
-        v = ws.hi[d];
-        hits++;
-      }
-      const ch = Math.abs(v - ws.pose[d]);
-      if (ch > change) change = ch;
-      ws.pose[d] = v;
-      forwardKinematics(ws, j);
-    }
-  }
-  errState[1] = change;
+  if (hasBias && hits > 0) ws.scalars[S_BIAS_SCALE] *= 0.5;
   return hits;
 }
 
@@ -629,13 +493,13 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
   if (ws0 === 'rest') resetPose(ws);
   else if (ws0 !== 'current' && ws0 != null) setPose(ws, ws0 as ArrayLike<number>);
   const maxIt = o.maxIterations;
-  ws.scalars[7] = 1; // null-space bias scale (see jacobianIteration)
+  ws.scalars[S_BIAS_SCALE] = 1; // null-space bias scale (see jacobianIteration)
   const hist = o.recordErrors ? ws.errorHistory : null;
   const wo = o.orientationWeight;
   forwardKinematics(ws);
   taskError(ws, orient);
-  let posErr2 = errState[2];
-  let ang = errState[0];
+  let posErr2 = ws.scalars[S_POSITION_ERROR2];
+  let ang = ws.scalars[S_ANGLE];
   if (hist) hist[0] = Math.sqrt(posErr2 + (orient ? wo * wo * ang * ang : 0));
   let it = 0;
   let hits = 0;
@@ -653,16 +517,16 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
     let change: number;
     if (code === METHOD_CCD) {
       hits += ccdSweep(ws);
-      change = errState[1];
+      change = ws.scalars[S_CHANGE];
     } else {
       hits += jacobianIteration(ws, code, m);
-      change = errState[1];
+      change = ws.scalars[S_CHANGE];
       forwardKinematics(ws);
     }
     it++;
     taskError(ws, orient);
-    posErr2 = errState[2];
-    ang = errState[0];
+    posErr2 = ws.scalars[S_POSITION_ERROR2];
+    ang = ws.scalars[S_ANGLE];
     if (hist) hist[it] = Math.sqrt(posErr2 + (orient ? wo * wo * ang * ang : 0));
     if (change < minStep) {
       converged = posErr2 <= tol2 && (!orient || ang <= otol);

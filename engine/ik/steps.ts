@@ -7,12 +7,15 @@
  */
 import * as C from '../math/cholesky';
 import * as SV from '../math/svd';
+import * as L from './layout';
 import type { IKWorkspace } from './workspace';
 
 // Local bindings (transpiled imports are getter calls on every use).
 const choleskyDecompose = C.choleskyDecompose;
 const choleskySolve = C.choleskySolve;
 const svdJacobi = SV.svdJacobi;
+const DOF_SLIDE = L.DOF_SLIDE;
+const S_LAMBDA2 = L.S_LAMBDA2;
 
 /** A ← Σ w_i·j_i·j_iᵀ (m×m row-major). */
 export function weightedGram(J: Float64Array, w: Float64Array, n: number, m: number, A: Float64Array): void {
@@ -43,7 +46,7 @@ export function dlsStep3(
 ): boolean {
   // Doubles travel in typed arrays: passing them as arguments to a call that
   // is not inlined boxes each one (a heap allocation per call).
-  const lambda2 = lambda2Arr[0];
+  const lambda2 = lambda2Arr[S_LAMBDA2];
   const e0 = e[0];
   const e1 = e[1];
   const e2 = e[2];
@@ -92,7 +95,8 @@ export function dlsStep3(
 
 /**
  * The position Jacobian (3 rows, into ws.J) and the DLS step in one pass: the
- * columns are accumulated into JWJᵀ as they are made. λ² from ws.scalars[0].
+ * columns are accumulated into JWJᵀ as they are made (the column formula of
+ * jacobian.ts, fused here for speed). λ² from ws.scalars[S_LAMBDA2].
  * Same result as jacobian(ws, 3) followed by dlsStepS(ws, w, 3, e, dq).
  */
 export function jacobianDlsStep3(ws: IKWorkspace, w: Float64Array, e: Float64Array, dq: Float64Array): boolean {
@@ -105,7 +109,7 @@ export function jacobianDlsStep3(ws: IKWorkspace, w: Float64Array, e: Float64Arr
   const fx = ws.foot[0];
   const fy = ws.foot[1];
   const fz = ws.foot[2];
-  const lambda2 = ws.scalars[0];
+  const lambda2 = ws.scalars[S_LAMBDA2];
   let a00 = lambda2;
   let a01 = 0;
   let a02 = 0;
@@ -117,7 +121,7 @@ export function jacobianDlsStep3(ws: IKWorkspace, w: Float64Array, e: Float64Arr
     const ay = AX[3 * i + 1];
     const az = AX[3 * i + 2];
     let x: number, y: number, z: number;
-    if (K[i] === 2) {
+    if (K[i] === DOF_SLIDE) {
       x = ax;
       y = ay;
       z = az;
@@ -168,16 +172,16 @@ export function jacobianDlsStep3(ws: IKWorkspace, w: Float64Array, e: Float64Arr
 
 /** DLS for any m (3 or 6) with damping λ²: dq = W·Jᵀ·(JWJᵀ + λ²I)⁻¹·e. */
 export function dlsStep(ws: IKWorkspace, w: Float64Array, m: number, lambda2: number, e: Float64Array, dq: Float64Array): boolean {
-  ws.scalars[0] = lambda2;
+  ws.scalars[S_LAMBDA2] = lambda2;
   return dlsStepS(ws, w, m, e, dq);
 }
 
-/** dlsStep with λ² taken from ws.scalars[0] (the solver's allocation-free path). */
+/** dlsStep with λ² taken from ws.scalars[S_LAMBDA2] (the solver's allocation-free path). */
 export function dlsStepS(ws: IKWorkspace, w: Float64Array, m: number, e: Float64Array, dq: Float64Array): boolean {
   const n = ws.nDof;
   const J = ws.J;
   if (m === 3) return dlsStep3(J, w, n, ws.scalars, e, dq);
-  const lambda2 = ws.scalars[0];
+  const lambda2 = ws.scalars[S_LAMBDA2];
   const A = ws.A;
   weightedGram(J, w, n, m, A);
   for (let r = 0; r < m; r++) A[r * m + r] += lambda2;

@@ -1,6 +1,6 @@
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { bipedRig } from '../../engine/gait/rig-presets';
-import { SOLVER_METHODS } from '../../engine/ik/types';
+import { SOLVER_METHODS } from '../../engine/ik/options';
 import { checkDraft, draftOf, inDegrees, roundedText, solverFieldsFor } from '../../components/setup/setup-draft';
 import { gaitName, solverMethodName } from '../../components/setup/names';
 import { formatLocalMoment } from '../../components/setup/local-dates';

@@ -11,7 +11,8 @@ import { Matrix, inverse } from 'ml-matrix';
 import { Bone, Euler, Quaternion, Skeleton, Vector3 } from 'three';
 import { CCDIKSolver } from 'three/examples/jsm/animation/CCDIKSolver.js';
 import { createWorkspace } from '../../engine/ik';
-import { clampBall, expRotationVector, logQuaternion } from '../../engine/ik/workspace';
+import { clampBall } from '../../engine/ik/limits';
+import { expRotationVector, logQuaternion } from '../../engine/ik/pose';
 import type { LegChain } from '../../engine/rig/types';
 
 export interface PeerOptions {

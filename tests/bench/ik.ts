@@ -14,7 +14,7 @@
  */
 import { createWorkspace, dlsStep, forwardKinematics, jacobian, resetPose, setPose, solve, SOLVER_METHODS } from '../../engine/ik';
 import type { IKWorkspace, SolverMethod } from '../../engine/ik';
-import { DEFAULT_OPTIONS } from '../../engine/ik/workspace';
+import { DEFAULT_OPTIONS } from '../../engine/ik/options';
 import { mulberry32 } from '../../engine/math/random';
 import { presetLeg, PRESET_NAMES } from '../../engine/rig/presets';
 import type { PresetName } from '../../engine/rig/presets';

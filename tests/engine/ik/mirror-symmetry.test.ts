@@ -8,7 +8,7 @@
 import { SOLVER_METHODS, createWorkspace, setRootTransform, solve } from '../../../engine/ik';
 import { digitigradeLeg, humanLeg, insectLeg, mirrorChain } from '../../../engine/rig/presets';
 import type { LegChain } from '../../../engine/rig/types';
-import { DOF_BALL } from '../../../engine/ik/workspace';
+import { DOF_BALL } from '../../../engine/ik/layout';
 
 const LEGS: [string, LegChain, boolean][] = [
   ['human', humanLeg({ thigh: 0.5, shin: 0.48 }), true],

@@ -1,4 +1,8 @@
-/** Public types of the leg IK engine. */
+/**
+ * The solver's options: every one, its meaning and its default, in this one
+ * file. A leg setup stores a subset of them (engine/gait/leg-setup.ts keys its
+ * table by this interface, so the type checker finds any option it forgets).
+ */
 
 export type SolverMethod = 'transpose' | 'pseudoinverse' | 'dls' | 'sdls' | 'adaptive' | 'ccd';
 
@@ -70,20 +74,28 @@ export interface SolverOptions {
   warmStart: 'current' | 'rest' | ArrayLike<number>;
 }
 
-export interface SolveResult {
-  /** DOF values after the solve (view onto the workspace's pose; copy it to keep it). */
-  pose: Float64Array;
-  /** Steps taken. */
-  iterations: number;
-  /** Final |foot − target|, metres. */
-  positionError: number;
-  /** Final angle between the sole normal and the target normal, radians (0 without an orientation target). */
-  orientationError: number;
-  converged: boolean;
-  /** Number of DOF clamps against joint limits during the solve. */
-  limitHits: number;
-  /** Error after each iteration (index 0 = before the first step), when recordErrors; else null. */
-  errorHistory: Float64Array | null;
-  /** Length of the meaningful part of errorHistory (iterations + 1). */
-  errorHistoryLength: number;
-}
+/** Default target clamp as a fraction of the chain's reach (clampDistance = 0). */
+export const CLAMP_REACH_FRACTION = 0.1;
+
+export const DEFAULT_OPTIONS: SolverOptions = {
+  method: 'dls',
+  maxIterations: 32,
+  tolerance: 5e-4,
+  orientationTolerance: 1e-3,
+  maxStepAngle: 0.6,
+  maxStepLength: 0.1,
+  clampDistance: 0,
+  orientationWeight: 0.1,
+  lambda: 0.05,
+  svdThreshold: 1e-4,
+  gammaMax: Math.PI / 4,
+  adaptiveMode: 'error',
+  manipulabilityThreshold: 1e-2,
+  lmBias: 1e-4,
+  weights: null,
+  nullSpace: { kind: 'none' },
+  minStep: 1e-9,
+  resolveSaturated: true,
+  recordErrors: false,
+  warmStart: 'current',
+};
