@@ -1,6 +1,6 @@
 import path from 'node:path';
 import fs from 'node:fs';
-import express, { type Express } from 'express';
+import express, { type Express, type Router } from 'express';
 import helmet from 'helmet';
 import pinoHttp from 'pino-http';
 import type { AppDeps } from './deps';
@@ -10,30 +10,73 @@ import { loadApiToken } from './middleware/api-token';
 import { rejectCrossSiteWrites } from './middleware/csrf';
 import { allowOnlyKnownHosts } from './middleware/allowed-hosts';
 import { noStoreApi, securityHeaders } from './middleware/security-headers';
-import { enforceRouteTable } from './permissions';
+import { enforceRouteTable, RouteTable, UNDECLARED_RULES } from './permissions';
+import type { RouteRule } from './routes/declare';
 import { enforcePlanReadOnly } from './middleware/plan-read-only';
 import { apiNotFound, errorHandler } from './middleware/errors';
-import { authRouter } from './routes/auth';
-import { meRouter } from './routes/me';
-import { cliRouter } from './routes/cli';
-import { permissionsRouter, teamRouter } from './routes/team';
-import { invitesRouter } from './routes/invites';
-import { appConfigRouter } from './routes/app-config';
-import { healthRouter } from './routes/health';
+import { authRoutes } from './routes/auth';
+import { meRoutes } from './routes/me';
+import { cliRoutes } from './routes/cli';
+import { permissionsRoutes, teamRoutes } from './routes/team';
+import { invitesRoutes } from './routes/invites';
+import { appConfigRoutes } from './routes/app-config';
+import { healthRoutes } from './routes/health';
 import { charactersRouter } from './routes/characters';
-import { legSetupsRouter } from './routes/leg-setups';
+import { characterLegSetupsRoutes, legSetupsRoutes } from './routes/leg-setups';
 import { trialsRouter } from './routes/trials';
-import { jobsRouter } from './routes/jobs';
-import { queueRouter } from './routes/queue';
+import { jobsRoutes } from './routes/jobs';
+import { queueRoutes } from './routes/queue';
 import { dialInsRouter } from './routes/dial-ins';
-import { dialInAllowanceRouter } from './routes/dial-in-allowance';
-import { coursesRouter } from './routes/courses';
-import { suitesRouter } from './routes/suites';
-import { billingRouter, billingWebhookRouter } from './routes/billing';
-import { legProfileSchemaRouter, profilesRouter } from './routes/profiles';
-import { tokensRouter } from './routes/tokens';
-import { compareRouter } from './routes/compare';
-import { apiV1Router } from './routes/api-v1';
+import { dialInAllowanceRoutes } from './routes/dial-in-allowance';
+import { coursesRoutes } from './routes/courses';
+import { suitesRoutes } from './routes/suites';
+import { billingRoutes, billingWebhookRoutes, plansRoutes } from './routes/billing';
+import { legProfileSchemaRoutes, profilesRoutes } from './routes/profiles';
+import { tokensRoutes } from './routes/tokens';
+import { compareRoutes } from './routes/compare';
+import { apiV1CharactersRoutes, apiV1ProfilesRoutes } from './routes/api-v1';
+
+/** A router and where it is mounted under /api, with the permission of each of its routes. */
+interface Mounted {
+  base: string;
+  router: Router;
+  rules: RouteRule[];
+}
+
+/** A router that does not declare its routes' permissions yet: UNDECLARED_RULES lists them. */
+const undeclared = (base: string, router: Router): Mounted => ({ base, router, rules: [] });
+
+/** Every API router in mount order (a base that another one's `/:id` would also match comes first). */
+function apiRoutes(deps: AppDeps): Mounted[] {
+  return [
+    healthRoutes(deps),
+    authRoutes(deps),
+    appConfigRoutes(deps),
+    meRoutes(deps),
+    cliRoutes(),
+    permissionsRoutes(),
+    teamRoutes(deps),
+    invitesRoutes(deps),
+    undeclared('/characters', charactersRouter(deps)),
+    characterLegSetupsRoutes(deps),
+    legSetupsRoutes(deps),
+    undeclared('/trials', trialsRouter(deps)),
+    jobsRoutes(deps),
+    queueRoutes(deps),
+    dialInAllowanceRoutes(deps),
+    undeclared('/dial-ins', dialInsRouter(deps)),
+    coursesRoutes(deps),
+    suitesRoutes(deps),
+    legProfileSchemaRoutes(),
+    profilesRoutes(deps),
+    tokensRoutes(deps),
+    compareRoutes(deps),
+    apiV1CharactersRoutes(deps),
+    apiV1ProfilesRoutes(deps),
+    plansRoutes(deps),
+    billingRoutes(deps),
+  ];
+}
 
 export function createApp(deps: AppDeps): Express {
   const app = express();
@@ -63,39 +106,23 @@ export function createApp(deps: AppDeps): Express {
   app.use(securityHeaders);
   if (deps.logRequests) app.use(pinoHttp({ autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
 
+  const webhook = billingWebhookRoutes(deps);
+  const routes = apiRoutes(deps);
+  // The one permission table, from the routes' own declarations; /api/permissions and /api/me read it from here.
+  const table = new RouteTable([...UNDECLARED_RULES, ...webhook.rules, ...routes.flatMap((r) => r.rules)]);
+  app.locals.routeTable = table;
+
   const api = express.Router();
   api.use(noStoreApi);
-  api.use('/billing/webhook', billingWebhookRouter(deps));
+  api.use(webhook.base, webhook.router);
   api.use(express.json({ limit: '2mb' }));
   api.use(sessionMiddleware(deps));
   api.use(rejectCrossSiteWrites(deps.publicUrl));
   api.use(loadViewer(deps.db));
   api.use(loadApiToken(deps.db, deps.clock));
-  api.use(enforceRouteTable);
+  api.use(enforceRouteTable(table));
   api.use(enforcePlanReadOnly(deps.db));
-  api.use('/health', healthRouter(deps));
-  api.use('/auth', authRouter(deps));
-  api.use('/app-config', appConfigRouter(deps));
-  api.use('/me', meRouter(deps));
-  api.use('/cli', cliRouter());
-  api.use('/permissions', permissionsRouter());
-  api.use('/team', teamRouter(deps));
-  api.use('/invites', invitesRouter(deps));
-  api.use('/characters', charactersRouter(deps));
-  api.use(legSetupsRouter(deps));
-  api.use('/trials', trialsRouter(deps));
-  api.use('/jobs', jobsRouter(deps));
-  api.use('/queue', queueRouter(deps));
-  api.use('/dial-ins/allowance', dialInAllowanceRouter(deps));
-  api.use('/dial-ins', dialInsRouter(deps));
-  api.use('/courses', coursesRouter(deps));
-  api.use('/suites', suitesRouter(deps));
-  api.use('/schema', legProfileSchemaRouter());
-  api.use('/profiles', profilesRouter(deps));
-  api.use('/tokens', tokensRouter(deps));
-  api.use('/compare', compareRouter(deps));
-  api.use('/v1', apiV1Router(deps));
-  api.use(billingRouter(deps));
+  for (const r of routes) api.use(r.base, r.router);
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -2,7 +2,7 @@
  * The API for build scripts and the app alike: `Authorization: Bearer …` (read-only) or a signed-in session.
  * Files carry a strong ETag (the sha256 of the exact bytes), so If-None-Match answers 304.
  */
-import { Router } from 'express';
+import type { RequestHandler } from 'express';
 import type { AppDeps } from '../deps';
 import { parseWith } from '../errors';
 import { uploadParser } from '../middleware/uploads';
@@ -12,7 +12,17 @@ import { charactersWithProfiles } from '../services/characters';
 import { uploadCapBytes } from '../services/character-files';
 import { findVersion, profilesOfCharacter } from '../services/profiles';
 import { checkProfile } from '../services/profile-check';
-import { parseId } from './profiles';
+import { declareRoutes, idOf, permission } from './declare';
+
+/** A session works on these too. */
+const READ = permission('api.read', 'Read characters and leg profiles through the API', 'member');
+/** A POST that changes nothing: it only re-runs trials and answers with a verdict. */
+const CHECK = permission('api.check', 'Check a character build against a leg profile', 'member');
+
+const revalidate: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'private, no-cache');
+  next();
+};
 
 /** The character to check may come as a .gltf with its parts, like an upload. */
 const MAX_FILES = 32;
@@ -27,27 +37,35 @@ function matchesNoneMatch(header: string | undefined, etag: string): boolean {
 /** A file's download name: the character, the version, and what it is. */
 const fileName = (character: string, version: number) => `${character.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'character'}-v${version}.leg-profile.json`;
 
-export function apiV1Router(deps: AppDeps): Router {
-  const router = Router();
-  router.use((_req, res, next) => {
-    res.setHeader('Cache-Control', 'private, no-cache');
-    next();
-  });
+/** /api/v1/characters: the team's characters with their profiles, for build scripts. */
+export function apiV1CharactersRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/v1/characters');
+  routes.router.use(revalidate);
+  routes.id('id', 'That character');
 
-  router.get('/characters', async (req, res) => {
+  routes.get('/', READ, async (req, res) => {
     const { team } = viewerOf(req);
     const body: ApiCharacterList = { characters: await charactersWithProfiles(deps.db, team.id) };
     res.json(body);
   });
 
-  router.get('/characters/:id/profiles', async (req, res) => {
+  routes.get('/:id/profiles', READ, async (req, res) => {
     const { team } = viewerOf(req);
-    res.json({ profiles: await profilesOfCharacter(deps.db, team.id, parseId(req.params.id, 'That character')) });
+    res.json({ profiles: await profilesOfCharacter(deps.db, team.id, idOf(req)) });
   });
 
-  router.get('/profiles/:id/versions/:version', async (req, res) => {
+  return routes;
+}
+
+/** /api/v1/profiles: a published version's file (with its ETag) and the regression check of a build. */
+export function apiV1ProfilesRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/v1/profiles');
+  routes.router.use(revalidate);
+  routes.id('id', 'That leg profile');
+
+  routes.get('/:id/versions/:version', READ, async (req, res) => {
     const { team } = viewerOf(req);
-    const id = parseId(req.params.id, 'That leg profile');
+    const id = idOf(req);
     const version = parseWith(versionParamSchema, req.params.version);
     const row = await findVersion(deps.db, team.id, id, version);
     const etag = `"${row.sha256}"`;
@@ -66,9 +84,9 @@ export function apiV1Router(deps: AppDeps): Router {
     res.send(row.document);
   });
 
-  router.post('/profiles/:id/check', uploadParser({ maxBytes: uploadCapBytes(), maxFiles: MAX_FILES, maxFields: 8, maxFieldBytes: 256, optional: true }), async (req, res) => {
+  routes.post('/:id/check', CHECK, uploadParser({ maxBytes: uploadCapBytes(), maxFiles: MAX_FILES, maxFields: 8, maxFieldBytes: 256, optional: true }), async (req, res) => {
     const { team } = viewerOf(req);
-    const id = parseId(req.params.id, 'That leg profile');
+    const id = idOf(req);
     const fields = parseWith(checkFieldsSchema, req.body);
     const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({ originalname: f.originalname, buffer: f.buffer }));
     const body: CheckResult = await checkProfile(deps.db, {
@@ -81,5 +99,5 @@ export function apiV1Router(deps: AppDeps): Router {
     res.json(body);
   });
 
-  return router;
+  return routes;
 }

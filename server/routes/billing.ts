@@ -1,57 +1,72 @@
-import express, { Router } from 'express';
+import express from 'express';
 import type { AppDeps } from '../deps';
 import { parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import { choosePlanSchema, type CheckoutResponse } from '../../schemas/billing';
 import { billingViewFor, changePlan, plansList, setCancelAtPeriodEnd, startCheckout } from '../services/billing';
 import { handleWebhook } from '../services/billing-webhooks';
+import { OWNER } from '../role-sets';
+import { declareRoutes, permission } from './declare';
 
-/** Plans, checkout, subscription changes, invoices (JSON routes under /api; who may call each is in billing.rules.ts). */
-export function billingRouter(deps: AppDeps): Router {
-  const router = Router();
+/** Plans and prices are what a studio reads before it signs up, and hold nothing of any team's. */
+const PLANS = permission('plans.read', 'See the plans', 'public');
+/** Every member may ask; the answer is shaped by role (the owner sees usage and invoices, others the plan's name). */
+const READ = permission('billing.read', 'See the studio’s plan', 'member');
+const MANAGE = permission('billing.manage', 'Change the plan and subscription', OWNER);
+/** The provider calls this; the signature on the raw body is its authentication (checked in the route). */
+const WEBHOOK = permission('billing.webhook', 'Receive payment news', 'public');
 
-  router.get('/plans', (_req, res) => {
+/** GET /api/plans. */
+export function plansRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/plans');
+  routes.get('/', PLANS, (_req, res) => {
     res.json(plansList(deps));
   });
+  return routes;
+}
 
-  router.get('/billing', async (req, res) => {
+/** The studio's plan: checkout, subscription changes, invoices. */
+export function billingRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/billing');
+
+  routes.get('/', READ, async (req, res) => {
     res.json(await billingViewFor(deps, viewerOf(req)));
   });
 
-  router.post('/billing/checkout', async (req, res) => {
+  routes.post('/checkout', MANAGE, async (req, res) => {
     const { plan } = parseWith(choosePlanSchema, req.body);
     const answer: CheckoutResponse = { url: await startCheckout(deps, viewerOf(req), plan) };
     res.json(answer);
   });
 
-  router.post('/billing/plan', async (req, res) => {
+  routes.post('/plan', MANAGE, async (req, res) => {
     const { plan } = parseWith(choosePlanSchema, req.body);
     const viewer = viewerOf(req);
     await changePlan(deps, viewer, plan);
     res.json(await billingViewFor(deps, viewer));
   });
 
-  router.post('/billing/cancel', async (req, res) => {
+  routes.post('/cancel', MANAGE, async (req, res) => {
     const viewer = viewerOf(req);
     await setCancelAtPeriodEnd(deps, viewer, true);
     res.json(await billingViewFor(deps, viewer));
   });
 
-  router.post('/billing/resume', async (req, res) => {
+  routes.post('/resume', MANAGE, async (req, res) => {
     const viewer = viewerOf(req);
     await setCancelAtPeriodEnd(deps, viewer, false);
     res.json(await billingViewFor(deps, viewer));
   });
 
-  return router;
+  return routes;
 }
 
 /** The payment service's webhook: mounted before the JSON parser, since its signature covers the raw body. */
-export function billingWebhookRouter(deps: AppDeps): Router {
-  const router = Router();
-  router.post('/', express.raw({ type: () => true, limit: '512kb' }), async (req, res) => {
+export function billingWebhookRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/billing/webhook');
+  routes.post('/', WEBHOOK, express.raw({ type: () => true, limit: '512kb' }), async (req, res) => {
     const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
     res.json({ received: true, ...(await handleWebhook(deps, body, req.get('stripe-signature'))) });
   });
-  return router;
+  return routes;
 }

@@ -1,7 +1,5 @@
-import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { notFound, parseWith } from '../errors';
+import { parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import { courseCreateSchema, courseUpdateSchema, type CourseDetail, type CourseList } from '../../schemas/courses';
 import {
@@ -16,30 +14,29 @@ import {
 } from '../services/courses';
 import { addStarterCourses } from '../services/starter-courses';
 import type { StarterCoursesResponse } from '../../schemas/starter-courses';
+import { EDITORS } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
 
-const idSchema = z.coerce.number().int().positive();
-
-function courseId(raw: unknown): number {
-  const id = idSchema.safeParse(raw);
-  if (!id.success) throw notFound('That course');
-  return id.data;
-}
+/** Editors shape the ground, everyone reads it; suites (routes/suites.ts) are read under the same action. */
+export const READ_COURSES = permission('courses.read', 'See courses and suites', 'member');
+const EDIT = permission('courses.edit', 'Make and edit courses', EDITORS);
 
 /** Courses: list, read (with the encoding), create from a recipe or an encoding, add the starter set, save with a version check, delete. */
-export function coursesRouter(deps: AppDeps): Router {
-  const router = Router();
+export function coursesRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/courses');
+  routes.id('id', 'That course');
 
-  router.get('/', async (req, res) => {
+  routes.get('/', READ_COURSES, async (req, res) => {
     const body: CourseList = { courses: await listCourses(deps.db, viewerOf(req).team.id) };
     res.json(body);
   });
 
-  router.get('/:id', async (req, res) => {
-    const body: CourseDetail = await courseDetail(deps.db, viewerOf(req).team.id, courseId(req.params.id));
+  routes.get('/:id', READ_COURSES, async (req, res) => {
+    const body: CourseDetail = await courseDetail(deps.db, viewerOf(req).team.id, idOf(req));
     res.json(body);
   });
 
-  router.post('/', async (req, res) => {
+  routes.post('/', EDIT, async (req, res) => {
     const { team, user } = viewerOf(req);
     const input = parseWith(courseCreateSchema, req.body);
     const heightfield = input.generator ? generateFromRecipe(input.generator) : decodeRequestEncoding(input.encoding);
@@ -55,15 +52,15 @@ export function coursesRouter(deps: AppDeps): Router {
   });
 
   // One tap for a new studio: the starter courses and suite it is missing (nothing of its own is touched).
-  router.post('/starter', async (req, res) => {
+  routes.post('/starter', EDIT, async (req, res) => {
     const { team, user } = viewerOf(req);
     const body: StarterCoursesResponse = await addStarterCourses(deps.db, team.id, user.id, deps.clock.now());
     res.status(body.added.length || body.suiteAdded ? 201 : 200).json(body);
   });
 
-  router.put('/:id', async (req, res) => {
+  routes.put('/:id', EDIT, async (req, res) => {
     const { team, user } = viewerOf(req);
-    const id = courseId(req.params.id);
+    const id = idOf(req);
     // 404 before 400: another team's course is not there at all.
     await courseSummary(deps.db, team.id, id);
     const input = parseWith(courseUpdateSchema, req.body);
@@ -72,10 +69,10 @@ export function coursesRouter(deps: AppDeps): Router {
     res.json(await courseDetail(deps.db, team.id, id));
   });
 
-  router.delete('/:id', async (req, res) => {
-    await deleteCourse(deps.db, viewerOf(req).team.id, courseId(req.params.id));
+  routes.delete('/:id', EDIT, async (req, res) => {
+    await deleteCourse(deps.db, viewerOf(req).team.id, idOf(req));
     res.status(204).end();
   });
 
-  return router;
+  return routes;
 }

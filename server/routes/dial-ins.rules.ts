@@ -4,7 +4,6 @@ const EDITORS: RouteRule['access'] = ['owner', 'designer'];
 
 /** Permission rules of the dial-in routes (server/routes/dial-ins.ts). */
 export const dialInRules: RouteRule[] = [
-  { method: 'GET', path: '/dial-ins/allowance', action: 'dial-ins.run', label: 'Start dial-ins', access: EDITORS },
   { method: 'POST', path: '/dial-ins', action: 'dial-ins.run', label: 'Start dial-ins', access: EDITORS },
   { method: 'POST', path: '/dial-ins/:id/accept', action: 'dial-ins.accept', label: 'Accept dial-in results', access: EDITORS },
 ];

@@ -1,9 +1,11 @@
-import { Router } from 'express';
 import type { AppDeps } from '../deps';
+import { declareRoutes, permission } from './declare';
 
-export function healthRouter(deps: AppDeps): Router {
-  const router = Router();
-  router.get('/', async (_req, res) => {
+const HEALTH = permission('health', 'Check the server is up', 'public');
+
+export function healthRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/health');
+  routes.get('/', HEALTH, async (_req, res) => {
     let db = 'ok';
     try {
       await deps.db.raw('select 1');
@@ -12,5 +14,5 @@ export function healthRouter(deps: AppDeps): Router {
     }
     res.status(db === 'ok' ? 200 : 503).json({ ok: db === 'ok', version: deps.version, db });
   });
-  return router;
+  return routes;
 }

@@ -1,26 +1,21 @@
-import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { notFound } from '../errors';
 import { viewerOf } from '../middleware/auth';
+import { EDITORS } from '../role-sets';
 import { jobRunnerOf } from './job-runner-of';
+import { declareRoutes, idOf, permission } from './declare';
 
-const idSchema = z.coerce.number().int().positive();
-
-function jobId(raw: unknown): number {
-  const id = idSchema.safeParse(raw);
-  if (!id.success) throw notFound('That job');
-  return id.data;
-}
+const READ = permission('jobs.read', 'See running trials and dial-ins', 'member');
+const CANCEL = permission('jobs.cancel', 'Cancel trials and dial-ins', EDITORS);
 
 /** Jobs: status (polled by the app) and cancel. */
-export function jobsRouter(deps: AppDeps): Router {
-  const router = Router();
-  router.get('/:id', async (req, res) => {
-    res.json(await jobRunnerOf(deps).status(viewerOf(req).team.id, jobId(req.params.id)));
+export function jobsRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/jobs');
+  routes.id('id', 'That job');
+  routes.get('/:id', READ, async (req, res) => {
+    res.json(await jobRunnerOf(deps).status(viewerOf(req).team.id, idOf(req)));
   });
-  router.post('/:id/cancel', async (req, res) => {
-    res.json(await jobRunnerOf(deps).cancel(viewerOf(req).team.id, jobId(req.params.id)));
+  routes.post('/:id/cancel', CANCEL, async (req, res) => {
+    res.json(await jobRunnerOf(deps).cancel(viewerOf(req).team.id, idOf(req)));
   });
-  return router;
+  return routes;
 }

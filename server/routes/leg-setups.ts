@@ -1,27 +1,24 @@
-import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { notFound, parseWith } from '../errors';
+import { parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { legSetupCreateSchema, type LegSetupList } from '../../schemas/leg-setups';
-import { assertFitsRig, findLegSetup, listLegSetups, loadWalkingCharacter, saveLegSetup } from '../services/leg-setups';
+import { assertFitsRig, findLegSetup, listLegSetups, saveLegSetup } from '../services/leg-setups';
+import { loadCharacterRig } from '../services/characters';
+import { EDITORS } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
 
-const idSchema = z.coerce.number().int().positive();
+const READ = permission('leg-setups.read', 'See leg setups', 'member');
+const SAVE = permission('leg-setups.save', 'Save leg setups', EDITORS);
 
-function idOr404(raw: unknown, what: string): number {
-  const id = idSchema.safeParse(raw);
-  if (!id.success) throw notFound(what);
-  return id.data;
-}
+/** A character's leg setup versions, under /api/characters/:id/leg-setups. */
+export function characterLegSetupsRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/characters');
+  routes.id('id', 'That character');
 
-/** Leg setups: versions per character (mounted at /api, paths in full). */
-export function legSetupsRouter(deps: AppDeps): Router {
-  const router = Router();
-
-  router.get('/characters/:id/leg-setups', async (req, res) => {
+  routes.get('/:id/leg-setups', READ, async (req, res) => {
     const { team } = viewerOf(req);
-    const character = await loadWalkingCharacter(deps.db, team.id, idOr404(req.params.id, 'That character'));
+    const character = await loadCharacterRig(deps.db, team.id, idOf(req));
     const body: LegSetupList = {
       versions: await listLegSetups(deps.db, team.id, character.id),
       defaults: defaultLegSetup(character.rig),
@@ -31,19 +28,24 @@ export function legSetupsRouter(deps: AppDeps): Router {
     res.json(body);
   });
 
-  router.post('/characters/:id/leg-setups', async (req, res) => {
+  routes.post('/:id/leg-setups', SAVE, async (req, res) => {
     const { team, user } = viewerOf(req);
-    const character = await loadWalkingCharacter(deps.db, team.id, idOr404(req.params.id, 'That character'));
+    const character = await loadCharacterRig(deps.db, team.id, idOf(req));
     const input = parseWith(legSetupCreateSchema, req.body);
     assertFitsRig(input.setup, character.rig);
     const id = await saveLegSetup(deps.db, { teamId: team.id, characterId: character.id, userId: user.id, setup: input.setup, note: input.note, source: 'form', now: deps.clock.now() });
     res.status(201).json({ legSetup: await findLegSetup(deps.db, team.id, id) });
   });
 
-  router.get('/leg-setups/:id', async (req, res) => {
-    const { team } = viewerOf(req);
-    res.json({ legSetup: await findLegSetup(deps.db, team.id, idOr404(req.params.id, 'That leg setup')) });
-  });
+  return routes;
+}
 
-  return router;
+/** One leg setup version by its id. */
+export function legSetupsRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/leg-setups');
+  routes.id('id', 'That leg setup');
+  routes.get('/:id', READ, async (req, res) => {
+    res.json({ legSetup: await findLegSetup(deps.db, viewerOf(req).team.id, idOf(req)) });
+  });
+  return routes;
 }

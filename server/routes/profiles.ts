@@ -1,53 +1,51 @@
-import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { HttpError, notFound, parseWith } from '../errors';
+import { HttpError, parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import { profileDiffQuerySchema, publishProfileSchema, type ProfileDetail, type ProfileList } from '../../schemas/profiles';
 import { legProfileJsonSchemaText } from '../../engine/profile/export';
 import { diffVersions, listProfiles, profileDetail, publishProfile } from '../services/profiles';
+import { PUBLISHERS } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
 
-const idSchema = z.coerce.number().int().positive();
-export const parseId = (raw: unknown, what: string) => {
-  const id = idSchema.safeParse(raw);
-  if (!id.success) throw notFound(what);
-  return id.data;
-};
+const SCHEMA = permission('profiles.schema', 'Read the leg profile JSON Schema', 'public');
+const READ = permission('profiles.read', 'See leg profiles and their versions', 'member');
+const PUBLISH = permission('profiles.publish', 'Publish leg profile versions', PUBLISHERS);
 
 /** GET /api/schema/leg-profile.json: public, generated from the zod schema (the repository keeps the same text). */
-export function legProfileSchemaRouter(): Router {
-  const router = Router();
+export function legProfileSchemaRoutes() {
+  const routes = declareRoutes('/schema');
   const text = legProfileJsonSchemaText();
-  router.get('/leg-profile.json', (_req, res) => {
+  routes.get('/leg-profile.json', SCHEMA, (_req, res) => {
     res.setHeader('Content-Type', 'application/schema+json; charset=utf-8');
     res.setHeader('Cache-Control', 'public, max-age=300');
     res.send(text);
   });
-  return router;
+  return routes;
 }
 
 /** Leg profiles for the app: list, versions, diffs, publish. Published versions are never changed. */
-export function profilesRouter(deps: AppDeps): Router {
-  const router = Router();
+export function profilesRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/profiles');
+  routes.id('id', 'That leg profile');
 
-  router.get('/', async (req, res) => {
+  routes.get('/', READ, async (req, res) => {
     const body: ProfileList = { profiles: await listProfiles(deps.db, viewerOf(req).team.id) };
     res.json(body);
   });
 
-  router.get('/:id', async (req, res) => {
-    const body: ProfileDetail = await profileDetail(deps.db, viewerOf(req).team.id, parseId(req.params.id, 'That leg profile'));
+  routes.get('/:id', READ, async (req, res) => {
+    const body: ProfileDetail = await profileDetail(deps.db, viewerOf(req).team.id, idOf(req));
     res.json(body);
   });
 
-  router.get('/:id/diff', async (req, res) => {
+  routes.get('/:id/diff', READ, async (req, res) => {
     const { team } = viewerOf(req);
-    const id = parseId(req.params.id, 'That leg profile');
+    const id = idOf(req);
     const q = parseWith(profileDiffQuerySchema, req.query);
     res.json({ diff: await diffVersions(deps.db, team.id, id, q.from, q.to) });
   });
 
-  router.post('/', async (req, res) => {
+  routes.post('/', PUBLISH, async (req, res) => {
     const { team, user } = viewerOf(req);
     const input = parseWith(publishProfileSchema, req.body);
     const published = await publishProfile(deps.db, { ...input, teamId: team.id, author: { id: user.id, name: user.name }, now: deps.clock.now() });
@@ -57,9 +55,10 @@ export function profilesRouter(deps: AppDeps): Router {
   const immutable = () => {
     throw new HttpError(409, 'immutable', 'Published leg profile versions cannot be changed or deleted: game builds may depend on them. Publish a new version instead.');
   };
-  router.put('/:id/versions/:version', immutable);
-  router.patch('/:id/versions/:version', immutable);
-  router.delete('/:id/versions/:version', immutable);
+  // Published versions never change: these answer 409 for everyone, so the refusal says why.
+  routes.put('/:id/versions/:version', READ, immutable);
+  routes.patch('/:id/versions/:version', READ, immutable);
+  routes.delete('/:id/versions/:version', READ, immutable);
 
-  return router;
+  return routes;
 }

@@ -1,61 +1,65 @@
-import { Router } from 'express';
 import { changeRoleSchema, createInviteSchema, type AuditEntry, type TeamOverview } from '../../schemas/team';
 import type { AppDeps } from '../deps';
 import { viewerOf } from '../middleware/auth';
-import { HttpError, parseWith } from '../errors';
+import { parseWith } from '../errors';
 import { changeRole, listMembers, removeMember } from '../services/members';
 import { createInvite, pendingInvites, resendInvite, revokeInvite } from '../services/invites';
-import { permissionRows } from '../permissions';
+import { routeTableOf } from '../permissions';
+import { OWNER } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
 
-const idParam = (raw: string | string[] | undefined, what: string): number => {
-  const n = Number(raw);
-  if (!Number.isInteger(n) || n <= 0) throw new HttpError(404, 'not_found', `${what} was not found.`);
-  return n;
-};
+const READ = permission('team.read', 'See the members', 'member');
+const CHANGE_ROLE = permission('team.change-role', "Change a member's role", OWNER);
+const REMOVE_MEMBER = permission('team.remove-member', 'Remove a member', OWNER);
+const INVITE = permission('team.invite', 'Invite people', OWNER);
+const AUDIT = permission('team.audit', 'Read the team log', OWNER);
+const PERMISSIONS = permission('permissions.read', 'See who may do what', 'member');
 
-export function teamRouter(deps: AppDeps): Router {
-  const router = Router();
+export function teamRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/team');
+  routes.id('userId', 'That member');
+  routes.id('id', 'That invite');
 
-  router.get('/', async (req, res) => {
+  routes.get('/', READ, async (req, res) => {
     const { team, role } = viewerOf(req);
     const overview: TeamOverview = { members: await listMembers(deps.db, team.id) };
     if (role === 'owner') overview.invites = await pendingInvites(deps.db, team.id, deps.clock.now());
     res.json(overview);
   });
 
-  router.patch('/members/:userId', async (req, res) => {
+  routes.patch('/members/:userId', CHANGE_ROLE, async (req, res) => {
     const { team, user } = viewerOf(req);
     const { role } = parseWith(changeRoleSchema, req.body);
-    await changeRole(deps.db, team.id, user.id, idParam(req.params.userId, 'That member'), role, deps.clock.now());
+    await changeRole(deps.db, team.id, user.id, idOf(req, 'userId'), role, deps.clock.now());
     res.json({ ok: true });
   });
 
-  router.delete('/members/:userId', async (req, res) => {
+  routes.delete('/members/:userId', REMOVE_MEMBER, async (req, res) => {
     const { team, user } = viewerOf(req);
-    await removeMember(deps.db, team.id, user.id, idParam(req.params.userId, 'That member'), deps.clock.now());
+    await removeMember(deps.db, team.id, user.id, idOf(req, 'userId'), deps.clock.now());
     res.json({ ok: true });
   });
 
-  router.post('/invites', async (req, res) => {
+  routes.post('/invites', INVITE, async (req, res) => {
     const { team, user } = viewerOf(req);
     const input = parseWith(createInviteSchema, req.body);
     await createInvite(deps, team.id, user, team.name, input);
     res.status(201).json({ ok: true });
   });
 
-  router.post('/invites/:id/resend', async (req, res) => {
+  routes.post('/invites/:id/resend', INVITE, async (req, res) => {
     const { team, user } = viewerOf(req);
-    await resendInvite(deps, team.id, user, team.name, idParam(req.params.id, 'That invite'));
+    await resendInvite(deps, team.id, user, team.name, idOf(req));
     res.json({ ok: true });
   });
 
-  router.delete('/invites/:id', async (req, res) => {
+  routes.delete('/invites/:id', INVITE, async (req, res) => {
     const { team, user } = viewerOf(req);
-    await revokeInvite(deps, team.id, user.id, idParam(req.params.id, 'That invite'));
+    await revokeInvite(deps, team.id, user.id, idOf(req));
     res.json({ ok: true });
   });
 
-  router.get('/audit', async (req, res) => {
+  routes.get('/audit', AUDIT, async (req, res) => {
     const { team } = viewerOf(req);
     const rows = await deps.db('audit_log as a')
       .leftJoin('users as u', 'u.id', 'a.actor_user_id')
@@ -67,13 +71,14 @@ export function teamRouter(deps: AppDeps): Router {
     res.json({ entries });
   });
 
-  return router;
+  return routes;
 }
 
-export function permissionsRouter(): Router {
-  const router = Router();
-  router.get('/', (_req, res) => {
-    res.json({ actions: permissionRows() });
+/** GET /api/permissions: the app's permission table as roles × actions. */
+export function permissionsRoutes() {
+  const routes = declareRoutes('/permissions');
+  routes.get('/', PERMISSIONS, (req, res) => {
+    res.json({ actions: routeTableOf(req.app).rows() });
   });
-  return router;
+  return routes;
 }

@@ -1,21 +1,24 @@
-import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import { createTokenSchema, type ApiTokenList, type CreatedToken } from '../../schemas/tokens';
 import { createToken, listTokens, revokeToken } from '../services/api-tokens';
-import { parseId } from './profiles';
+import { TOKEN_KEEPERS } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
+
+const MANAGE = permission('tokens.manage', 'Create and revoke API tokens', TOKEN_KEEPERS);
 
 /** API tokens of the team: list, create (the secret is in this one answer only), revoke. */
-export function tokensRouter(deps: AppDeps): Router {
-  const router = Router();
+export function tokensRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/tokens');
+  routes.id('id', 'That token');
 
-  router.get('/', async (req, res) => {
+  routes.get('/', MANAGE, async (req, res) => {
     const body: ApiTokenList = { tokens: await listTokens(deps.db, viewerOf(req).team.id) };
     res.json(body);
   });
 
-  router.post('/', async (req, res) => {
+  routes.post('/', MANAGE, async (req, res) => {
     const { team, user } = viewerOf(req);
     const { name } = parseWith(createTokenSchema, req.body);
     const body: CreatedToken = await createToken(deps.db, { teamId: team.id, userId: user.id, name, now: deps.clock.now() });
@@ -23,10 +26,10 @@ export function tokensRouter(deps: AppDeps): Router {
     res.status(201).json(body);
   });
 
-  router.delete('/:id', async (req, res) => {
+  routes.delete('/:id', MANAGE, async (req, res) => {
     const { team } = viewerOf(req);
-    res.json({ token: await revokeToken(deps.db, team.id, parseId(req.params.id, 'That token'), deps.clock.now()) });
+    res.json({ token: await revokeToken(deps.db, team.id, idOf(req), deps.clock.now()) });
   });
 
-  return router;
+  return routes;
 }
