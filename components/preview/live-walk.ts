@@ -50,7 +50,7 @@ export function createLiveWalk(rig: Rig, setup: LegSetup, course: Heightfield): 
       };
     },
     counts() {
-      return Object.fromEntries(STUMBLE_KINDS.map((k, i) => [k, trial.detector.counts[i]])) as Record<StumbleKind, number>;
+      return Object.fromEntries(STUMBLE_KINDS.map((k, i) => [k, trial.record.detector.counts[i]])) as Record<StumbleKind, number>;
     },
   };
   return walk;

@@ -201,7 +201,7 @@ export function startReplay(rig: Rig, setup: LegSetup, course: Heightfield, stor
   const replay = emptyReplay(rig, stored);
   // The trial records its starting pose (sample 0) when it is created.
   const catchUp = () => {
-    while (replay.length < t.series.length && replay.length < n) {
+    while (replay.length < t.record.series.length && replay.length < n) {
       captureInto(replay, replay.length, t.solvers, t.bodyPos, t.bodyRot, stored);
       replay.length++;
     }

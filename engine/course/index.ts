@@ -1,6 +1,7 @@
 export * from './limits';
 export * from './heightfield';
 export * from './sample';
+export * from './ground';
 export * from './generators';
 export * from './brushes';
 export * from './encoding';

@@ -1,7 +1,7 @@
 /**
- * Ground queries on a heightfield: bilinear height, its normal, and tests of a
- * segment against the ground (used to check swing paths). Outside the grid the
- * edge heights continue. Nothing here allocates.
+ * Ground queries on a heightfield: bilinear height and its normal (segment
+ * tests over any ground are in ground.ts). Outside the grid the edge heights
+ * continue. Nothing here allocates.
  */
 import type { Heightfield } from './heightfield';
 
@@ -71,61 +71,4 @@ export function normalAt<T extends { [i: number]: number }>(hf: Heightfield, x: 
   out[offset + 1] = n;
   out[offset + 2] = -dz * n;
   return out;
-}
-
-/** Samples per cell used by the segment tests: enough to catch every bilinear ridge within a few mm. */
-const SAMPLES_PER_CELL = 2;
-
-function sampleCount(hf: Heightfield, ax: number, az: number, bx: number, bz: number): number {
-  const d = Math.sqrt((bx - ax) * (bx - ax) + (bz - az) * (bz - az));
-  return Math.max(1, Math.ceil((d / hf.cellSize) * SAMPLES_PER_CELL));
-}
-
-/** Highest ground under the straight line from (ax, az) to (bx, bz), ends included. */
-export function maxHeightAlong(hf: Heightfield, ax: number, az: number, bx: number, bz: number): number {
-  const n = sampleCount(hf, ax, az, bx, bz);
-  let best = -Infinity;
-  for (let k = 0; k <= n; k++) {
-    const t = k / n;
-    const g = heightAt(hf, ax + (bx - ax) * t, az + (bz - az) * t);
-    if (g > best) best = g;
-  }
-  return best;
-}
-
-/**
- * Smallest height of the 3D segment a→b above the ground along it (negative:
- * the segment dips below the ground by that much).
- */
-export function segmentClearance(
-  hf: Heightfield,
-  ax: number,
-  ay: number,
-  az: number,
-  bx: number,
-  by: number,
-  bz: number,
-): number {
-  const n = sampleCount(hf, ax, az, bx, bz);
-  let least = Infinity;
-  for (let k = 0; k <= n; k++) {
-    const t = k / n;
-    const c = ay + (by - ay) * t - heightAt(hf, ax + (bx - ax) * t, az + (bz - az) * t);
-    if (c < least) least = c;
-  }
-  return least;
-}
-
-/** True when the segment a→b stays at least `margin` metres above the ground. */
-export function segmentClears(
-  hf: Heightfield,
-  ax: number,
-  ay: number,
-  az: number,
-  bx: number,
-  by: number,
-  bz: number,
-  margin = 0,
-): boolean {
-  return segmentClearance(hf, ax, ay, az, bx, by, bz) >= margin;
 }

@@ -3,22 +3,22 @@
  * feet, its rotation, and the hip sockets placed from the body pose.
  */
 import { quat, vec3 } from 'gl-matrix';
-import * as sample from '../course/sample';
-import * as ikWorkspace from '../ik/workspace';
+import * as ik from '../ik';
 import * as bodyFilter from './body-filter';
 import { COMFORT_MAX, STANCE_FOLD_MIN } from './reach';
 import { minimumJerk } from './swing-path';
-import type { Trial } from './trial-state';
+import type { Walk } from './walk-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
-const { heightAt } = sample;
-const { setRootTransform } = ikWorkspace;
+const { setRootTransform } = ik;
 const { stepCritical } = bodyFilter;
 const { setAxisAngle: quatSetAxisAngle, multiply: quatMultiply } = quat;
 const { transformQuat } = vec3;
 
 const X_AXIS = new Float64Array([1, 0, 0]);
+const Y_AXIS = new Float64Array([0, 1, 0]);
 const Z_AXIS = new Float64Array([0, 0, 1]);
+const yawRot = new Float64Array(4);
 const hipLocal = new Float64Array(3);
 const hipWorld = new Float64Array(3);
 const hipRot = new Float64Array(4);
@@ -36,13 +36,13 @@ export const bodyTargets = new Float64Array(3);
  * where they will land, so the body rises before a step-up and lowers before
  * a step-down. The height follows their mean (blended with the ground under
  * the body by followHeight); pitch and roll follow the least-squares slope of
- * those heights along and across the walk; the body crouches on slopes by
+ * those heights along and across the body's heading; the body crouches on slopes by
  * slopeCrouch. The height is then capped so that every stance leg stays
  * inside its comfortable reach (reach.ts): no leg is driven straight.
  * `landed`: as if every swinging foot had already landed (the height a new
  * foothold asks for, which body step-ups are measured against).
  */
-export function computeBodyTargets(t: Trial, landed = false): void {
+export function computeBodyTargets(t: Walk, landed = false): void {
   const L = t.legs;
   const b = t.setup.body;
   let mh = 0;
@@ -72,9 +72,14 @@ export function computeBodyTargets(t: Trial, landed = false): void {
   let szz = 0;
   let sxh = 0;
   let szh = 0;
+  // Across (body +X) and along (body +Z, the heading) the walk.
+  const c = Math.cos(t.heading);
+  const s = Math.sin(t.heading);
   for (let i = 0; i < L; i++) {
-    const dx = footX[i] - mx;
-    const dz = footZ[i] - mz;
+    const wx = footX[i] - mx;
+    const wz = footZ[i] - mz;
+    const dx = c * wx - s * wz;
+    const dz = s * wx + c * wz;
     const dh = footH[i] - mh;
     sxx += dx * dx;
     szz += dz * dz;
@@ -87,8 +92,7 @@ export function computeBodyTargets(t: Trial, landed = false): void {
   const slopeX = sxx > minSpread * minSpread ? sxh / sxx : 0;
   const pitchRaw = Math.atan(slopeZ);
   const rollRaw = Math.atan(slopeX);
-  const bz = t.bodyPos[2];
-  const under = heightAt(t.course, 0, bz);
+  const under = t.ground.height(t.bodyPos[0], t.bodyPos[2]);
   const ground = under + (mh - under) * b.followHeight;
   const crouch = b.slopeCrouch * t.walkHeight * Math.sqrt(pitchRaw * pitchRaw + rollRaw * rollRaw);
   const wanted = ground + t.walkHeight + b.heightOffset - crouch;
@@ -111,7 +115,7 @@ const FOLD_TO_STANCE = 0.1;
  * The body height at which stance leg i's hip is `r` from its planted foot (the hip turned by the body's
  * present rotation); NaN when the foot lies further than r from the hip horizontally.
  */
-function heightAtDistance(t: Trial, i: number, r: number): number {
+function heightAtDistance(t: Walk, i: number, r: number): number {
   const leg = t.rig.legs[i];
   hipLocal[0] = leg.hip[0];
   hipLocal[1] = leg.hip[1];
@@ -125,7 +129,7 @@ function heightAtDistance(t: Trial, i: number, r: number): number {
 }
 
 /** Highest body height at which every stance leg's hip is within `share` of its reach from its planted foot. */
-function stanceHeightCap(t: Trial, share: number): number {
+function stanceHeightCap(t: Walk, share: number): number {
   let cap = Infinity;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
@@ -138,7 +142,7 @@ function stanceHeightCap(t: Trial, share: number): number {
 }
 
 /** Lowest body height at which every stance leg's hip is at least `share` of its reach (and clear of its fold limit) from its planted foot. */
-function stanceHeightFloor(t: Trial, share: number): number {
+function stanceHeightFloor(t: Walk, share: number): number {
   let floor = -Infinity;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
@@ -150,7 +154,7 @@ function stanceHeightFloor(t: Trial, share: number): number {
 }
 
 /** One filter step of the body height, pitch and roll toward bodyTargets; the height never passes the stance cap. */
-export function followBodyTargets(t: Trial): void {
+export function followBodyTargets(t: Walk): void {
   stepCritical(t.height, bodyTargets[0], t.filter);
   stepCritical(t.pitch, bodyTargets[1], t.filter);
   stepCritical(t.roll, bodyTargets[2], t.filter);
@@ -161,15 +165,18 @@ export function followBodyTargets(t: Trial): void {
   t.bodyPos[1] = t.height.value;
 }
 
-export function updateBodyRotation(t: Trial): void {
-  // Nose up is a negative turn about +X (+Z forward, +Y up); left side up is a positive turn about +Z.
+export function updateBodyRotation(t: Walk): void {
+  // Heading about +Y, then in the body's frame: nose up is a negative turn about +X (+Z forward, +Y up);
+  // left side up is a positive turn about +Z.
   quatSetAxisAngle(pitchRot as unknown as quat, X_AXIS as unknown as vec3, -t.pitch.value);
   quatSetAxisAngle(t.bodyRot as unknown as quat, Z_AXIS as unknown as vec3, t.roll.value);
   quatMultiply(t.bodyRot as unknown as quat, t.bodyRot as unknown as quat, pitchRot as unknown as quat);
+  quatSetAxisAngle(yawRot as unknown as quat, Y_AXIS as unknown as vec3, t.heading);
+  quatMultiply(t.bodyRot as unknown as quat, yawRot as unknown as quat, t.bodyRot as unknown as quat);
 }
 
 /** Hip sockets (the chains' roots) from the body pose. */
-export function placeHips(t: Trial): void {
+export function placeHips(t: Walk): void {
   for (let i = 0; i < t.legs; i++) {
     const leg = t.rig.legs[i];
     hipLocal[0] = leg.hip[0];

@@ -1,24 +1,25 @@
 /**
  * Foot planner: where each foot lands and how it gets there. At liftoff the
- * touchdown spot is chosen from candidates around the nominal spot (ahead of
- * the leg's neutral spot by half the stance travel) by the foothold cost
- * (foothold.ts), rejecting what the leg cannot reach from the hip as it will
- * be; the swing starts from where the foot really is, so after a stumble the
- * next step is planned from the truth. A planted foot stays locked; a
- * swinging foot follows its planned path (swing-path.ts).
+ * touchdown spot is chosen from candidates around the nominal spot (the leg's
+ * neutral spot as it will be half a stance after touchdown, Raibert's neutral
+ * point, turned with the body on a turn) by the foothold cost (foothold.ts),
+ * rejecting what the leg cannot reach from the hip as it will be; the swing
+ * starts from where the foot really is, so after a stumble the next step is
+ * planned from the truth. A planted foot stays locked; a swinging foot follows
+ * its planned path (swing-path.ts).
  */
 import { quat, vec3 } from 'gl-matrix';
-import * as sample from '../course/sample';
+import * as walkPath from '../course/walk-path';
 import { terrainCost } from './foothold';
 import { CANDIDATE_PATTERN, CANDIDATE_COUNT } from './foothold';
 import { CANDIDATE_MAX, REACH_COST_START } from './reach';
 import * as swingPath from './swing-path';
-import type { Trial } from './trial-state';
+import { DRIVE_PATH, type Walk } from './walk-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
-const { heightAt, normalAt } = sample;
 const { minimumJerk, planSwing, swingPoint } = swingPath;
 const { transformQuat } = vec3;
+const { trackPoint } = walkPath;
 
 /** Winter (1992): minimum toe clearance in swing about 1.29 cm; no swing plans less. */
 export const MIN_TOE_CLEARANCE = 0.0129;
@@ -29,32 +30,92 @@ const SEARCH_WIDENINGS = 2;
 const terrain = new Float64Array(1);
 const hipLocal = new Float64Array(3);
 const hipOffset = new Float64Array(3);
+const predicted = new Float64Array(3);
 
-/** Where the body will be along the walk at `time`, at its present pace. */
-export function bodyZAt(t: Trial, time: number): number {
-  return t.bodyPos[2] + t.gait.speed * t.pace.value * (time - t.frame * t.options.timeStep);
+/** The body moves at a constant velocity (no path to follow, no turn): the plain arithmetic of a straight walk. */
+function steadyVelocity(t: Walk): boolean {
+  const m = t.motion;
+  return !(m.mode === DRIVE_PATH && m.track) && m.turnRate === 0;
 }
 
-/** The nominal touchdown spot of leg i at `time`: ahead of its neutral spot by half the stance travel. */
-export function touchdownPoint(t: Trial, i: number, time: number, out: Float64Array, o: number): void {
+/**
+ * Where the body will be at walk time `time` at its present pace, into out (x, z, heading): along its path,
+ * or carried on at its velocity and turn rate (the velocity turning with the body: constant turn rate and velocity).
+ */
+export function bodyAt(t: Walk, time: number, out: Float64Array): void {
+  const tau = time - t.frame * t.timeStep;
+  const m = t.motion;
+  if (m.mode === DRIVE_PATH && m.track) {
+    trackPoint(m.track, m.s + m.pathSpeed * t.pace.value * tau, out);
+    return;
+  }
+  const w = m.turnRate;
+  if (w === 0) {
+    out[0] = t.bodyPos[0] + m.vx * t.pace.value * tau;
+    out[1] = t.bodyPos[2] + m.vz * t.pace.value * tau;
+    out[2] = t.heading;
+    return;
+  }
+  const a = w * tau;
+  const A = Math.sin(a) / w;
+  const B = (1 - Math.cos(a)) / w;
+  const vx = m.vx * t.pace.value;
+  const vz = m.vz * t.pace.value;
+  out[0] = t.bodyPos[0] + vx * A + vz * B;
+  out[1] = t.bodyPos[2] - vx * B + vz * A;
+  out[2] = t.heading + a;
+}
+
+/** The nominal touchdown spot of leg i at `time`: its neutral spot as the body will be half a stance later. */
+export function touchdownPoint(t: Walk, i: number, time: number, out: Float64Array, o: number): void {
   const leg = t.rig.legs[i];
-  const x = leg.neutralFoot[0];
-  const zz = bodyZAt(t, time) + leg.neutralFoot[1] + (t.gait.dutyFactor * t.gait.stride * t.pace.value) / 2;
+  const nx = leg.neutralFoot[0];
+  const nz = leg.neutralFoot[1];
+  let x: number;
+  let zz: number;
+  if (steadyVelocity(t)) {
+    bodyAt(t, time, predicted);
+    const c = Math.cos(predicted[2]);
+    const s = Math.sin(predicted[2]);
+    const m = t.motion;
+    const v = Math.sqrt(m.vx * m.vx + m.vz * m.vz);
+    const ux = v > 0 ? m.vx / v : 0;
+    const uz = v > 0 ? m.vz / v : 0;
+    const half = (t.gait.dutyFactor * t.stride * t.pace.value) / 2;
+    x = predicted[0] + (c * nx + s * nz) + ux * half;
+    zz = predicted[1] + (c * nz - s * nx) + uz * half;
+  } else {
+    bodyAt(t, time + (t.gait.dutyFactor * t.cycleTime) / 2, predicted);
+    const c = Math.cos(predicted[2]);
+    const s = Math.sin(predicted[2]);
+    x = predicted[0] + c * nx + s * nz;
+    zz = predicted[1] + c * nz - s * nx;
+  }
   out[o] = x;
-  out[o + 1] = heightAt(t.course, x, zz);
+  out[o + 1] = t.ground.height(x, zz);
   out[o + 2] = zz;
 }
 
-export function plantAt(t: Trial, i: number, x: number, y: number, zz: number): void {
+export function plantAt(t: Walk, i: number, x: number, y: number, zz: number): void {
   t.plant[3 * i] = x;
   t.plant[3 * i + 1] = y;
   t.plant[3 * i + 2] = zz;
-  normalAt(t.course, x, zz, t.plantNormal, 3 * i);
+  t.ground.normal(x, zz, t.plantNormal, 3 * i);
   t.support[i] = y;
 }
 
+/** A stopping walk's leg i need not step: its planted foot is already within a tenth of a stride of where the step would land (common practice, no source). */
+export function restsWhereItStands(t: Walk, i: number, landTime: number): boolean {
+  touchdownPoint(t, i, landTime, landing, 0);
+  const o = 3 * i;
+  const dx = t.plant[o] - landing[0];
+  const dz = t.plant[o + 2] - landing[2];
+  const tolerance = 0.1 * t.gait.stride;
+  return dx * dx + dz * dz <= tolerance * tolerance;
+}
+
 /** Height leg i's support will have once it has landed: planted legs where they stand, swinging ones where they land. */
-function nextSupportHeight(t: Trial, j: number): number {
+function nextSupportHeight(t: Walk, j: number): number {
   return t.stance[j] ? t.support[j] : t.swings[j].y1;
 }
 
@@ -63,13 +124,14 @@ function nextSupportHeight(t: Trial, j: number): number {
  * the cheapest reachable candidate around the nominal spot, widening the
  * search twice when none is; failing that, the one that over-reaches least.
  */
-export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float64Array): void {
+export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float64Array): void {
   touchdownPoint(t, i, landTime, landing, 0);
   const w = t.setup.footholds;
   const leg = t.rig.legs[i];
   const reach = leg.chain.reach;
+  const beta = t.gait.dutyFactor;
   // Legs with short strides for their reach (insects) still search far enough to step past a gap.
-  const radius0 = w.searchRadius * Math.max(t.gait.stride, reach);
+  const radius0 = w.searchRadius * Math.max(t.stride, reach);
   // The hip at touchdown and at the following liftoff, the body at the height these footholds will give it.
   hipLocal[0] = leg.hip[0];
   hipLocal[1] = leg.hip[1];
@@ -78,9 +140,38 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
   let others = 0;
   for (let j = 0; j < t.legs; j++) if (j !== i) others += nextSupportHeight(t, j);
   const lift = t.walkHeight + t.setup.body.heightOffset + hipOffset[1];
-  const hx = t.bodyPos[0] + hipOffset[0];
-  const hzDown = bodyZAt(t, landTime) + hipOffset[2];
-  const hzUp = hzDown + t.gait.speed * t.pace.value * t.gait.dutyFactor * t.gait.cycleTime;
+  let hx: number;
+  let hzDown: number;
+  let hxUp: number;
+  let hzUp: number;
+  // The candidate pattern (its line along the walk) turns with the body.
+  let c = 1;
+  let s = 0;
+  bodyAt(t, landTime, predicted);
+  if (steadyVelocity(t)) {
+    const m = t.motion;
+    hx = predicted[0] + hipOffset[0];
+    hzDown = predicted[1] + hipOffset[2];
+    hxUp = hx + m.vx * t.pace.value * beta * t.cycleTime;
+    hzUp = hzDown + m.vz * t.pace.value * beta * t.cycleTime;
+    c = Math.cos(t.heading);
+    s = Math.sin(t.heading);
+  } else {
+    // The hip offset as the body has turned by then.
+    let turn = predicted[2] - t.heading;
+    let ct = Math.cos(turn);
+    let st = Math.sin(turn);
+    hx = predicted[0] + ct * hipOffset[0] + st * hipOffset[2];
+    hzDown = predicted[1] - st * hipOffset[0] + ct * hipOffset[2];
+    c = Math.cos(predicted[2]);
+    s = Math.sin(predicted[2]);
+    bodyAt(t, landTime + beta * t.cycleTime, predicted);
+    turn = predicted[2] - t.heading;
+    ct = Math.cos(turn);
+    st = Math.sin(turn);
+    hxUp = predicted[0] + ct * hipOffset[0] + st * hipOffset[2];
+    hzUp = predicted[1] - st * hipOffset[0] + ct * hipOffset[2];
+  }
   const limit = CANDIDATE_MAX * reach;
   const soleHalf = t.soleHalf[i];
 
@@ -93,15 +184,18 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
   // When nothing within the radius is reachable (the nominal spot lies in a gap), the search widens.
   for (let widen = 0, radius = radius0; widen <= SEARCH_WIDENINGS && !found; widen++, radius *= 2) {
     for (let k = 0; k < CANDIDATE_COUNT; k++) {
-      const cx = landing[0] + CANDIDATE_PATTERN[2 * k] * radius;
-      const cz = landing[2] + CANDIDATE_PATTERN[2 * k + 1] * radius;
-      const cost = terrainCost(t.course, cx, cz, soleHalf, w, terrain);
+      const px = CANDIDATE_PATTERN[2 * k];
+      const pz = CANDIDATE_PATTERN[2 * k + 1];
+      const cx = landing[0] + (c * px + s * pz) * radius;
+      const cz = landing[2] + (c * pz - s * px) * radius;
+      const cost = terrainCost(t.ground, cx, cz, soleHalf, w, terrain);
       const cy = terrain[0];
       const hy = (others + cy) / t.legs + lift;
       const dx = cx - hx;
+      const dxUp = cx - hxUp;
       const dy = cy - hy;
       const dDown = Math.sqrt(dx * dx + dy * dy + (cz - hzDown) * (cz - hzDown));
-      const dUp = Math.sqrt(dx * dx + dy * dy + (cz - hzUp) * (cz - hzUp));
+      const dUp = Math.sqrt(dxUp * dxUp + dy * dy + (cz - hzUp) * (cz - hzUp));
       const d = dDown > dUp ? dDown : dUp;
       if (d > limit) {
         if (!found && d < bestOver) {
@@ -131,19 +225,19 @@ export function chooseFoothold(t: Trial, i: number, landTime: number, out: Float
 }
 
 /** Plan leg i's swing from where its foot is to the foothold chosen for the touchdown at `landTime`. */
-export function startSwing(t: Trial, i: number, landTime: number): void {
+export function startSwing(t: Walk, i: number, landTime: number): void {
   chooseFoothold(t, i, landTime, landing);
   // After a stumble (the foot is not where it was planted) the swing starts from where the foot really is.
   const foot = t.solvers[i].foot;
   const p = t.plant;
   const o = 3 * i;
   const off = Math.sqrt((foot[0] - p[o]) ** 2 + (foot[1] - p[o + 1]) ** 2 + (foot[2] - p[o + 2]) ** 2);
-  const fromTruth = t.started && off > t.options.thresholds.reachMissResidual;
+  const fromTruth = t.started && off > t.replanDistance;
   const fromX = fromTruth ? foot[0] : p[o];
   const fromZ = fromTruth ? foot[2] : p[o + 2];
-  const fromY = fromTruth ? Math.max(foot[1], heightAt(t.course, fromX, fromZ)) : p[o + 1];
+  const fromY = fromTruth ? Math.max(foot[1], t.ground.height(fromX, fromZ)) : p[o + 1];
   planSwing(
-    t.course,
+    t.ground,
     t.swings[i],
     fromX,
     fromY,
@@ -155,16 +249,16 @@ export function startSwing(t: Trial, i: number, landTime: number): void {
     MIN_TOE_CLEARANCE,
   );
   for (let k = 0; k < 3; k++) t.liftNormal[3 * i + k] = t.plantNormal[3 * i + k];
-  normalAt(t.course, landing[0], landing[2], t.landNormal, 3 * i);
+  t.ground.normal(landing[0], landing[2], t.landNormal, 3 * i);
 }
 
 /** Targets for the current phase of every leg. */
-export function updateTargets(t: Trial): void {
+export function updateTargets(t: Walk): void {
   const beta = t.gait.dutyFactor;
   for (let i = 0; i < t.legs; i++) {
     const phase = t.phase[i];
     const o = 3 * i;
-    if (phase < beta) {
+    if (t.stance[i]) {
       for (let k = 0; k < 3; k++) {
         t.target[o + k] = t.plant[o + k];
         t.targetNormal[o + k] = t.plantNormal[o + k];

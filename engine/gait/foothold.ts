@@ -17,10 +17,7 @@
  * The choice is made once per swing, at liftoff, so it never flickers.
  * Nothing here allocates.
  */
-import type { Heightfield } from '../course/heightfield';
-import * as sample from '../course/sample';
-
-const { heightAt, normalAt } = sample;
+import type { Ground } from '../course/ground';
 
 /** Settings of the foothold search (part of the leg setup). */
 export interface FootholdWeights {
@@ -72,19 +69,19 @@ for (let r = 0; r < FOOT_RADII.length; r++) {
 const normalScratch = new Float64Array(3);
 
 /** The terrain part of a candidate's cost (slope, roughness, edges); the candidate's height goes to out[0]. */
-export function terrainCost(hf: Heightfield, x: number, z: number, soleHalf: number, w: FootholdWeights, out: Float64Array): number {
-  const hc = heightAt(hf, x, z);
+export function terrainCost(ground: Ground, x: number, z: number, soleHalf: number, w: FootholdWeights, out: Float64Array): number {
+  const hc = ground.height(x, z);
   out[0] = hc;
   let edge = 0;
   let spread = 0;
   const n = footDx.length;
   for (let k = 0; k < n; k++) {
-    const d = Math.abs(heightAt(hf, x + footDx[k] * soleHalf, z + footDz[k] * soleHalf) - hc);
+    const d = Math.abs(ground.height(x + footDx[k] * soleHalf, z + footDz[k] * soleHalf) - hc);
     spread += d;
     const e = d * footCloseness[k];
     if (e > edge) edge = e;
   }
-  normalAt(hf, x, z, normalScratch, 0);
+  ground.normal(x, z, normalScratch, 0);
   const ny = normalScratch[1];
   const slope = Math.acos(ny > 1 ? 1 : ny);
   return w.slopeWeight * slope + w.roughnessWeight * (spread / n) + w.edgeWeight * edge;

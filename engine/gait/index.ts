@@ -9,4 +9,6 @@ export * from './rig-presets';
 export * from './leg-setup';
 export * from './series';
 export * from './trial';
+export * from './walk';
+export * from './walk-speed';
 export * from './series-encoding';

@@ -17,7 +17,7 @@ import * as ikLayout from '../ik/layout';
 import * as ikPose from '../ik/pose';
 import { pullInsideReach, pushOutsideFold, TARGET_MAX } from './reach';
 import type { IKWorkspace } from '../ik/workspace';
-import type { Trial } from './trial-state';
+import type { Walk } from './walk-state';
 
 const { forwardKinematics } = ikKinematics;
 const { setPose } = ikPose;
@@ -54,7 +54,7 @@ export function orientationShare(phase: number, dutyFactor: number): number {
 }
 
 /** Fill aim (and aimNormal) for leg i; returns the normal to solve with, or null for position only. */
-export function aimLeg(t: Trial, i: number, aim: Float64Array, aimNormal: Float64Array): Float64Array | null {
+export function aimLeg(t: Walk, i: number, aim: Float64Array, aimNormal: Float64Array): Float64Array | null {
   const ws = t.solvers[i];
   const o = 3 * i;
   aim[0] = t.target[o];
@@ -74,7 +74,7 @@ export function aimLeg(t: Trial, i: number, aim: Float64Array, aimNormal: Float6
 }
 
 /** Recovery toward rest and the joint speed limit, applied to leg i's solved pose (prevPose holds last frame's). */
-export function limitLegMotion(t: Trial, i: number, aim: Float64Array): void {
+export function limitLegMotion(t: Walk, i: number, aim: Float64Array): void {
   const ws = t.solvers[i];
   const prev = t.prevPose[i];
   const reach = t.rig.legs[i].chain.reach;
@@ -144,7 +144,7 @@ const KNEE_NEAR_STRAIGHT = 0.15;
  * the knee; at full extension the knee's Jacobian column has no component
  * along the leg at all, so a straight knee never bends by itself.
  */
-export function preshapeKnee(t: Trial, i: number, aim: Float64Array): void {
+export function preshapeKnee(t: Walk, i: number, aim: Float64Array): void {
   const d = t.kneeDof[i];
   if (d < 0) return;
   const ws = t.solvers[i];

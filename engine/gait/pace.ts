@@ -13,10 +13,7 @@
  * The rule of thumb behind RISE_PER_SWING: people climb code stairs one tread
  * a step, two risers a swing (common practice, no source).
  */
-import * as sample from '../course/sample';
-import type { Trial } from './trial-state';
-
-const { heightAt } = sample;
+import type { Walk } from './walk-state';
 
 /** Largest height change one swing may climb or descend, as a share of the shortest leg's reach. */
 export const RISE_PER_SWING = 0.33;
@@ -40,7 +37,7 @@ const edgeAt = new Float64Array(MAX_SAMPLES);
 const edgeRise = new Float64Array(MAX_SAMPLES);
 
 /** The pace the ground ahead asks for, between the rearmost hip and a stride and a half past the front feet. */
-export function terrainPace(t: Trial): number {
+export function terrainPace(t: Walk): number {
   const stride = t.gait.stride;
   let rear = Infinity;
   let front = -Infinity;
@@ -50,11 +47,19 @@ export function terrainPace(t: Trial): number {
     if (leg.neutralFoot[1] > front) front = leg.neutralFoot[1];
     if (leg.chain.reach < reach) reach = leg.chain.reach;
   }
-  const z0 = t.bodyPos[2] + rear - stride / 2;
-  const z1 = t.bodyPos[2] + front + 1.5 * stride;
-  const n = Math.min(MAX_SAMPLES, Math.max(2, Math.ceil((z1 - z0) / SAMPLE_STEP) + 1));
-  const step = (z1 - z0) / (n - 1);
-  for (let k = 0; k < n; k++) profile[k] = heightAt(t.course, 0, z0 + k * step);
+  // Along the body's heading (c, s: its cosine and sine).
+  const c = Math.cos(t.heading);
+  const s = Math.sin(t.heading);
+  const x0 = t.bodyPos[0] + s * rear - (s * stride) / 2;
+  const z0 = t.bodyPos[2] + c * rear - (c * stride) / 2;
+  const x1 = t.bodyPos[0] + s * front + s * 1.5 * stride;
+  const z1 = t.bodyPos[2] + c * front + c * 1.5 * stride;
+  const length = c * (z1 - z0) + s * (x1 - x0);
+  const n = Math.min(MAX_SAMPLES, Math.max(2, Math.ceil(length / SAMPLE_STEP) + 1));
+  const step = length / (n - 1);
+  const stepX = s * step;
+  const stepZ = c * step;
+  for (let k = 0; k < n; k++) profile[k] = t.ground.height(x0 + k * stepX, z0 + k * stepZ);
   const allowed = RISE_PER_SWING * reach;
 
   const stairs = stairPace(n, step, stride, allowed);

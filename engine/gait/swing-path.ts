@@ -8,10 +8,11 @@
  * a trial reuses one per leg without allocating.
  */
 import type { Heightfield } from '../course/heightfield';
-import * as sample from '../course/sample';
+import * as groundQueries from '../course/ground';
+import type { Ground } from '../course/ground';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
-const { heightAt, maxHeightAlong, segmentClearance } = sample;
+const { asGround, maxHeightAlong, segmentClearance } = groundQueries;
 
 export interface SwingPlan {
   x0: number;
@@ -75,7 +76,7 @@ const BOXINESS_TRIES = [0, 0.5, 1] as const;
 const scratchA = new Float64Array(3);
 const scratchB = new Float64Array(3);
 
-function pathClearance(hf: Heightfield, p: SwingPlan): number {
+function pathClearance(hf: Ground, p: SwingPlan): number {
   let least = Infinity;
   swingPoint(p, 0, scratchA);
   for (let i = 1; i <= CHECK_PIECES; i++) {
@@ -91,7 +92,7 @@ function pathClearance(hf: Heightfield, p: SwingPlan): number {
 const END_ZONE = 0.03;
 
 /** Smallest height above the ground of the path's points away from its ends (the sole over nosings, lips and rims). */
-function interiorClearance(hf: Heightfield, p: SwingPlan): number {
+function interiorClearance(hf: Ground, p: SwingPlan): number {
   let least = Infinity;
   const lower = p.y0 < p.y1 ? p.y0 : p.y1;
   for (let i = 1; i < INTERIOR_SAMPLES; i++) {
@@ -102,7 +103,7 @@ function interiorClearance(hf: Heightfield, p: SwingPlan): number {
     const d1 = Math.hypot(x - p.x1, z - p.z1);
     if (d0 < END_ZONE || d1 < END_ZONE) continue;
     // Only where the ground stands above the lower end: a nosing, a lip, a bump; not the ground the foot leaves.
-    const g = heightAt(hf, x, z);
+    const g = hf.height(x, z);
     if (g <= lower + OBSTACLE_RISE) continue;
     const c = scratchA[1] - g;
     if (c < least) least = c;
@@ -121,7 +122,7 @@ const APEX_RAISES = 3;
  * at least minClearance above the ground; returns the plan (filled in place).
  */
 export function planSwing(
-  hf: Heightfield,
+  ground: Heightfield | Ground,
   p: SwingPlan,
   x0: number,
   y0: number,
@@ -138,10 +139,11 @@ export function planSwing(
   p.x1 = x1;
   p.y1 = y1;
   p.z1 = z1;
-  const ground = maxHeightAlong(hf, x0, z0, x1, z1);
-  p.apex = Math.max(ground, y0, y1) + stepHeight;
+  const hf = asGround(ground);
+  const highest = maxHeightAlong(hf, x0, z0, x1, z1);
+  p.apex = Math.max(highest, y0, y1) + stepHeight;
   // The ends sit on the ground; measure clearance against the lower of the path and the ground there.
-  const endSlack = Math.min(0, y0 - heightAt(hf, x0, z0), y1 - heightAt(hf, x1, z1));
+  const endSlack = Math.min(0, y0 - hf.height(x0, z0), y1 - hf.height(x1, z1));
   const apex = p.apex;
   for (let raise = 0; raise <= APEX_RAISES; raise++) {
     let deficit = 0;

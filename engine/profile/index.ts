@@ -11,6 +11,8 @@ export {
   loadLegProfile,
   bindLegProfile,
   createLegRuntime,
+  createRigRuntime,
+  RUNTIME_STUMBLE_KINDS,
   type BoundLegProfile,
   type GroundQuery,
   type LegRuntime,

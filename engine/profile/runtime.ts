@@ -41,10 +41,12 @@ import type { Heightfield } from '../course/heightfield';
 import { rigFromCharacter, type CharacterRigOptions } from '../gait/character-rig';
 import type { Rig } from '../gait/rig';
 import type { LegMapping } from '../rig/leg-mapping';
+import type { Skeleton } from '../rig/types';
 import { LegProfileError, parseLegProfile } from './export';
 import { legMappingsFor } from './rig-mapping';
 import type { LegProfile } from './schema';
 import { createDrivenWalk, type DrivenWalk } from './runtime-drive';
+import { STUMBLE_KINDS } from '../metrics/stumble-thresholds';
 
 export { LegProfileBindError } from './rig-mapping';
 export { LegProfileError } from './export';
@@ -73,7 +75,7 @@ export interface BoundLegProfile {
 }
 
 /** Binds the profile to the game's skeleton by joint names; throws a LegProfileBindError naming every missing joint. */
-export function bindLegProfile(profile: LegProfile, skeleton: import('../rig/types').Skeleton, options: CharacterRigOptions = {}): BoundLegProfile {
+export function bindLegProfile(profile: LegProfile, skeleton: Skeleton, options: CharacterRigOptions = {}): BoundLegProfile {
   const legs = legMappingsFor(skeleton, profile.rig);
   return { profile, legs, rig: rigFromCharacter(skeleton, legs, { name: profile.character.name, ...options }) };
 }
@@ -125,7 +127,12 @@ export interface LegRuntime {
   bodyPosition(out?: Float64Array): Float64Array;
   /** Body rotation [x, y, z, w]: heading, then roll and pitch from the feet. */
   bodyRotation(out?: Float64Array): Float64Array;
+  /** Stumbles seen so far per kind, in the order of RUNTIME_STUMBLE_KINDS (all 0 unless options.watchStumbles). */
+  stumbleCounts(out?: Int32Array): Int32Array;
 }
+
+/** Stumble kinds in the order stumbleCounts gives them. */
+export const RUNTIME_STUMBLE_KINDS = STUMBLE_KINDS;
 
 export interface LegRuntimeOptions {
   /** Internal fixed step, s (default 1/60). */
@@ -137,19 +144,31 @@ export interface LegRuntimeOptions {
   heading?: number;
   /** Spacing at which a GroundQuery is sampled along swing paths, m (default 0.02). */
   groundSpacing?: number;
-  /** Called once, with the first ground problem. */
+  /** Start standing, every foot planted (a game's spawn); default: walking straight ahead as a trial does. */
+  standing?: boolean;
+  /** Count stumbles as Treadle's trials do (costs a ground query per foot and step); default off. */
+  watchStumbles?: boolean;
+  /** Called once when the ground starts failing (again after it has recovered). */
   onError?: (error: LegRuntimeError) => void;
 }
 
 export function createLegRuntime(bound: BoundLegProfile, ground: Heightfield | GroundQuery, options: LegRuntimeOptions = {}): LegRuntime {
-  const walk: DrivenWalk = createDrivenWalk(bound.rig, bound.profile.legSetup, ground, options);
-  const joints = bound.rig.legs.map((l) => l.chain.joints.map((j) => j.skeletonJoint ?? -1));
-  const legs = bound.rig.legs.length;
+  return createRigRuntime(bound.rig, bound.profile.legSetup, ground, options);
+}
+
+/**
+ * The same runtime for a rig and a leg setup without a published profile (the app's drive mode walks the
+ * unsaved setup); joint indices are the rig's skeleton joints (−1 where a joint has none).
+ */
+export function createRigRuntime(rig: Rig, setup: unknown, ground: Heightfield | GroundQuery, options: LegRuntimeOptions = {}): LegRuntime {
+  const walk: DrivenWalk = createDrivenWalk(rig, setup, ground, options);
+  const joints = rig.legs.map((l) => l.chain.joints.map((j) => j.skeletonJoint ?? -1));
+  const legs = rig.legs.length;
   const check = (leg: number) => {
     if (!(leg >= 0 && leg < legs)) throw new RangeError(`leg ${leg} is out of range: the profile has ${legs} legs`);
   };
   return {
-    legNames: bound.rig.legs.map((l) => l.name),
+    legNames: rig.legs.map((l) => l.name),
     timeStep: walk.timeStep,
     get frame() {
       return walk.frame;
@@ -190,5 +209,6 @@ export function createLegRuntime(bound: BoundLegProfile, ground: Heightfield | G
     },
     bodyPosition: (out = new Float64Array(3)) => walk.bodyPosition(out),
     bodyRotation: (out = new Float64Array(4)) => walk.bodyRotation(out),
+    stumbleCounts: (out = new Int32Array(STUMBLE_KINDS.length)) => walk.stumbleCounts(out),
   };
 }
