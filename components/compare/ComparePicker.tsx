@@ -1,9 +1,6 @@
 import { useEffect, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, space, type } from '../../constants/theme';
-import { useCharacters } from '../../hooks/useCharacters';
-import { useSuites } from '../../hooks/useCourses';
-import { useLegSetups } from '../../hooks/useLegSetups';
 import { Card } from '../ui/Card';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { PickChips } from './PickChips';
@@ -16,16 +13,33 @@ export const FULL_HINT = `${MAX_PICKS} picked, the most one comparison shows. Un
 /** The character's newest versions (up to the cap), newest first: what "versions of one character" starts from. */
 export const versionPicks = (versions: readonly { id: number }[]) => versions.slice(0, MAX_PICKS).map((v) => `s${v.id}`);
 
-/** Which suite, and which 2–4 characters (their newest leg setup) or saved leg setup versions. */
-export function ComparePicker({ suite, picks, onSuite, onPicks }: { suite: string | undefined; picks: string[]; onSuite(s: string): void; onPicks(p: string[]): void }) {
-  const suites = useSuites();
-  const characters = useCharacters();
-  const list = characters.data?.characters ?? [];
-  const suiteList = suites.data?.suites ?? [];
-  const [versionsOf, setVersionsOf] = useState<string>();
+/**
+ * Which suite, and which 2–4 characters (their newest leg setup) or saved leg setup versions. `versions` are the
+ * saved leg setup versions of the character chosen under "versions of one character" (`versionsOf`), once loaded.
+ */
+export function ComparePicker({
+  suite,
+  picks,
+  onSuite,
+  onPicks,
+  suites: suiteList,
+  characters: list,
+  versionsOf,
+  onVersionsOf,
+  versions,
+}: {
+  suite: string | undefined;
+  picks: string[];
+  onSuite(s: string): void;
+  onPicks(p: string[]): void;
+  suites: readonly { id: number; name: string }[];
+  characters: readonly { id: number; name: string }[];
+  versionsOf: string | undefined;
+  onVersionsOf(characterId: string): void;
+  versions: readonly { id: number; version: number; note: string | null }[] | undefined;
+}) {
   // Set when a character is chosen under "versions of one character": its versions replace the pick once loaded.
   const [replacing, setReplacing] = useState(false);
-  const setups = useLegSetups(versionsOf ? Number(versionsOf) : 0);
   const toggle = (v: string) => onPicks(picks.includes(v) ? picks.filter((p) => p !== v) : [...picks, v].slice(0, MAX_PICKS));
   const full = picks.length >= MAX_PICKS;
 
@@ -36,10 +50,10 @@ export function ComparePicker({ suite, picks, onSuite, onPicks }: { suite: strin
   }, [suite, onlySuite, onSuite]);
 
   useEffect(() => {
-    if (!replacing || !setups.data) return;
+    if (!replacing || !versions) return;
     setReplacing(false);
-    onPicks(versionPicks(setups.data.versions));
-  }, [replacing, setups.data, onPicks]);
+    onPicks(versionPicks(versions));
+  }, [replacing, versions, onPicks]);
 
   return (
     <Card>
@@ -50,15 +64,15 @@ export function ComparePicker({ suite, picks, onSuite, onPicks }: { suite: strin
         choices={list.map((c) => ({ value: String(c.id), label: c.name }))}
         value={versionsOf}
         onChange={(id) => {
-          setVersionsOf(id);
+          onVersionsOf(id);
           setReplacing(true);
         }}
       />
-      {versionsOf && setups.data ? (
-        setups.data.versions.length ? (
+      {versionsOf && versions ? (
+        versions.length ? (
           <PickChips
             label="Leg setup versions"
-            choices={setups.data.versions.map((v) => ({ value: `s${v.id}`, label: `leg setup v${v.version}`, detail: v.note || undefined }))}
+            choices={versions.map((v) => ({ value: `s${v.id}`, label: `leg setup v${v.version}`, detail: v.note || undefined }))}
             picked={picks}
             onToggle={toggle}
             full={full}

@@ -8,12 +8,14 @@ import { Card } from '../ui/Card';
 import { SectionHeading } from '../ui/SectionHeading';
 import { MetricsTable } from './MetricsTable';
 import { OverlayPlot } from './OverlayPlot';
+import type { CompareFocus } from './focus';
 
 /**
  * The comparison: the metrics table and the overlaid plots, side by side on a wide screen; `children` are
- * further full-width sections under them (a synchronized walk of the same entries, for one).
+ * further full-width sections under them (a synchronized walk of the same entries, for one). `focus` is what the
+ * cursor points at (in the plot, or the walk's playhead); the plot reports its own through `onFocus`.
  */
-export function CompareView({ result, children }: { result: CompareResult; children?: ReactNode }) {
+export function CompareView({ result, focus, onFocus, children }: { result: CompareResult; focus?: CompareFocus | null; onFocus?: (f: CompareFocus | null) => void; children?: ReactNode }) {
   const wide = useIsWide();
   const n = result.suite.courses.length;
   return (
@@ -24,12 +26,12 @@ export function CompareView({ result, children }: { result: CompareResult; child
           <Text style={styles.of}>
             {`Suite figures pool all ${n} ${n === 1 ? 'course' : 'courses'}; the rows under "Per course" are each course on its own, as its trial shows it.`}
           </Text>
-          <MetricsTable entries={result.entries} />
+          <MetricsTable entries={result.entries} focus={focus} />
           <Text style={styles.formula}>{FOOTING_SCORE_FORMULA.text}</Text>
         </Card>
         <Card style={wide ? styles.plotCol : undefined}>
           <SectionHeading>Along the course</SectionHeading>
-          <OverlayPlot entries={result.entries} courses={result.suite.courses} />
+          <OverlayPlot entries={result.entries} courses={result.suite.courses} focus={focus} onFocus={onFocus} />
         </Card>
       </View>
       {children}

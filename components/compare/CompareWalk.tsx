@@ -1,6 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { PanResponder, Platform, StyleSheet, Text, View } from 'react-native';
-import { decodeCourse } from '../../engine/course/encoding';
 import type { Heightfield } from '../../engine/course/heightfield';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
@@ -9,9 +8,7 @@ import { runTrial } from '../../engine/gait/trial';
 import type { StumbleEvent } from '../../engine/metrics/trial-metrics';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { colors, fonts, space, type } from '../../constants/theme';
-import type { CompareResult } from '../../hooks/useCompare';
-import { useCompareWalkers } from '../../hooks/useCompareWalkers';
-import { useCourse, useSuites } from '../../hooks/useCourses';
+import type { CompareWalkerSource } from '../../hooks/useCompareWalkers';
 import { useIsWide } from '../../hooks/useLayout';
 import { ScrubBar } from '../trial/ScrubBar';
 import { Button } from '../ui/Button';
@@ -20,6 +17,7 @@ import { SectionHeading } from '../ui/SectionHeading';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { replayFromRecord, type WalkReplay } from '../viewer/walk-replay';
 import { WalkStage, type StageWalker } from '../viewer/WalkStage';
+import { focusFromWalk, type CompareFocus } from './focus';
 
 type Layout = 'side' | 'one' | 'ghosts';
 const LAYOUTS: readonly { value: Layout; label: string }[] = [
@@ -36,7 +34,7 @@ interface Walk {
 }
 
 /** Walk each pick over the course with the same engine as the comparison, one per tick so the page stays live. */
-function useWalks(sources: { pick: string; rig: Rig | null; setup: LegSetup | null }[], course: Heightfield | null) {
+function useWalks(sources: readonly { pick: string; rig: Rig | null; setup: LegSetup | null }[], course: Heightfield | null) {
   const [walks, setWalks] = useState<Record<string, Walk | { problem: string }>>({});
   const ready = sources.every((s) => s.rig && s.setup);
   const key = sources.map((s) => s.pick).join(',');
@@ -72,16 +70,28 @@ function useWalks(sources: { pick: string; rig: Rig | null; setup: LegSetup | nu
 /**
  * The comparison by eye: every pick walking the same course on one clock, as its own mesh. Side by side on a wide
  * screen; one at a time on a phone (swipe the name strip, or its arrows); or overlaid as ghosts over the first.
+ * Once the playhead is moved or played, `onInstant` hears each instant (the course and the stumbles at that time),
+ * so the table can light up the rows it concerns.
  */
-export function CompareWalk({ result }: { result: CompareResult }) {
+export function CompareWalk({
+  courses,
+  courseId,
+  onCourse,
+  heightfield,
+  sources,
+  onInstant,
+}: {
+  /** The suite's courses; the walk is over `courseId`. */
+  courses: readonly { id: number; name: string }[];
+  courseId: number | undefined;
+  onCourse: (id: number) => void;
+  /** The chosen course's ground, null while it loads. */
+  heightfield: Heightfield | null;
+  sources: readonly CompareWalkerSource[];
+  onInstant?: (focus: CompareFocus) => void;
+}) {
   const wide = useIsWide();
-  const suites = useSuites();
-  const courses = suites.data?.suites.find((s) => s.id === result.suite.id)?.courses ?? [];
-  const [courseId, setCourseId] = useState<string | undefined>(undefined);
-  const chosen = courseId ?? (courses[0] ? String(courses[0].id) : undefined);
-  const course = useCourse(Number(chosen ?? 0));
-  const heightfield = useMemo(() => (course.data ? decodeCourse(course.data.encoding) : null), [course.data]);
-  const sources = useCompareWalkers(result.entries);
+  const chosen = courseId !== undefined ? String(courseId) : undefined;
   const walks = useWalks(sources, heightfield);
   const [layout, setLayout] = useState<Layout>(wide ? 'side' : 'one');
   const [shown, setShown] = useState(0);
@@ -113,6 +123,25 @@ export function CompareWalk({ result }: { result: CompareResult }) {
     const timer = setInterval(() => setTime(now.current), 150);
     return () => clearInterval(timer);
   }, [playing]);
+
+  // The instant under the playhead, told to the page once someone has moved it or pressed play.
+  const moved = useRef(false);
+  const courseName = courses.find((c) => String(c.id) === chosen)?.name;
+  const instantRef = useRef(onInstant);
+  instantRef.current = onInstant;
+  useEffect(() => {
+    if (!moved.current || !courseName || !done.length) return;
+    instantRef.current?.(
+      focusFromWalk(
+        courseName,
+        time,
+        sources.flatMap((s) => {
+          const w = walks[s.pick];
+          return w && 'series' in w ? [{ pick: s.pick, events: w.events, duration: (w.series.length - 1) / w.series.rate }] : [];
+        }),
+      ),
+    );
+  }, [time, courseName, done.length]);
 
   const walkers: (StageWalker & { score: number | null; problem: string | null })[] = sources.map((s, i) => {
     const w = walks[s.pick];
@@ -219,7 +248,7 @@ export function CompareWalk({ result }: { result: CompareResult }) {
       <View style={styles.gap} testID="compare-walk">
       <SectionHeading>Watch them walk</SectionHeading>
       <Text style={styles.note}>Each pick walks the course here, in the browser, with the same engine and leg setup as the comparison.</Text>
-      {courses.length > 1 ? <ChoiceChips label="Course" choices={courses.map((c) => ({ value: String(c.id), label: c.name }))} value={chosen} onChange={(v) => { setCourseId(v); setTime(0); setPlaying(false); }} /> : null}
+      {courses.length > 1 ? <ChoiceChips label="Course" choices={courses.map((c) => ({ value: String(c.id), label: c.name }))} value={chosen} onChange={(v) => { moved.current = false; onCourse(Number(v)); setTime(0); setPlaying(false); }} /> : null}
       <ChoiceChips<Layout> label="Layout" choices={LAYOUTS} value={layout} onChange={setLayout} />
       {view}
       <View style={styles.controls}>
@@ -229,6 +258,7 @@ export function CompareWalk({ result }: { result: CompareResult }) {
           disabled={ready.length < walkers.length || !duration}
           onPress={() => {
             clock.current = null;
+            moved.current = true;
             if (playing) {
               setTime(now.current);
               setPlaying(false);
@@ -246,6 +276,7 @@ export function CompareWalk({ result }: { result: CompareResult }) {
         value={duration ? time / duration : 0}
         onChange={(v) => {
           clock.current = null;
+          moved.current = true;
           setPlaying(false);
           setTime(v * duration);
         }}

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { bestIndex, METRIC_GROUPS, METRIC_ROWS, type MetricGroup, type MetricRow } from '../../engine/profile/metric-rows';
 import { colors, fonts, space, type } from '../../constants/theme';
@@ -6,19 +6,22 @@ import type { CompareResult } from '../../hooks/useCompare';
 import { useIsWide } from '../../hooks/useLayout';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { ENTRY_STYLES } from './entryStyles';
+import type { CompareFocus } from './focus';
 
 type Entry = CompareResult['entries'][number];
 
 const fmt = (v: number | null, digits: number) => (v === null ? '—' : v.toFixed(digits));
 const signed = (v: number, digits: number) => `${v > 0 ? '+' : v < 0 ? '−' : '±'}${Math.abs(v).toFixed(digits)}`;
 
-function Row({ row, entries }: { row: MetricRow; entries: Entry[] }) {
+function Row({ row, entries, focus }: { row: MetricRow; entries: Entry[]; focus?: CompareFocus | null }) {
   const values = entries.map((e) => row.value(e.metrics));
   const best = bestIndex(row, values);
   const allSame = values.every((v) => v === values[0]);
+  const focused = !!focus?.rows.includes(row.key);
+  const focusedCells = focused ? (focus!.cells[row.key] ?? []) : [];
   return (
-    <View role="row" style={styles.row}>
-      <View role="rowheader" style={styles.labelCell}>
+    <View role="row" testID={`metric-row-${row.key}`} aria-current={focused ? 'true' : undefined} style={[styles.row, focused && styles.focusedRow]}>
+      <View role="rowheader" style={[styles.labelCell, focused && styles.focusedLabel]}>
         <Text style={styles.label}>{row.label}</Text>
         <Text style={styles.unit}>
           {row.unit ? `${row.unit} · ` : ''}
@@ -28,8 +31,16 @@ function Row({ row, entries }: { row: MetricRow; entries: Entry[] }) {
       {values.map((v, i) => {
         const isBest = i === best && !allSame;
         const diff = v !== null && best >= 0 && values[best] !== null && !isBest && !allSame ? v - (values[best] as number) : null;
+        const underCursor = focusedCells.includes(entries[i].pick);
         return (
-          <View key={entries[i].pick} role="cell" style={[styles.cell, isBest && styles.bestCell]} aria-label={`${entries[i].characterName}: ${fmt(v, row.digits)}${isBest ? ', best' : ''}`}>
+          <View
+            key={entries[i].pick}
+            role="cell"
+            testID={`metric-cell-${row.key}-${entries[i].pick}`}
+            aria-current={underCursor ? 'true' : undefined}
+            style={[styles.cell, isBest && styles.bestCell, underCursor && styles.focusedCell]}
+            aria-label={`${entries[i].characterName}: ${fmt(v, row.digits)}${isBest ? ', best' : ''}${underCursor ? ', under the cursor' : ''}`}
+          >
             <Text style={[styles.value, isBest && styles.bestValue]}>
               {isBest ? '★ ' : ''}
               {fmt(v, row.digits)}
@@ -56,11 +67,21 @@ function courseRows(entries: Entry[]): MetricRow[] {
   }));
 }
 
-/** Metrics side by side, the best of each row starred; phone: one group at a time, wide: all of them. */
-export function MetricsTable({ entries }: { entries: Entry[] }) {
+const groupOf = (key: string): MetricGroup => (key.startsWith('course.') ? 'score' : (METRIC_ROWS.find((r) => r.key === key)?.group ?? 'score'));
+
+/**
+ * Metrics side by side, the best of each row starred; phone: one group at a time, wide: all of them. The rows in
+ * `focus` (what the cursor points at in the plot or the walk) light up, and in them the cells of the entries meant.
+ */
+export function MetricsTable({ entries, focus }: { entries: Entry[]; focus?: CompareFocus | null }) {
   const wide = useIsWide();
   const perCourse = courseRows(entries);
   const [group, setGroup] = useState<MetricGroup>('score');
+  // On a phone the table shows one group: follow the row pointed at, so its highlight is on screen.
+  const pointedGroup = focus?.rows[0] ? groupOf(focus.rows[0]) : null;
+  useEffect(() => {
+    if (pointedGroup) setGroup(pointedGroup);
+  }, [pointedGroup]);
   const groups = wide ? METRIC_GROUPS : METRIC_GROUPS.filter((g) => g.group === group);
   return (
     <View style={styles.wrap}>
@@ -84,7 +105,7 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
               {g.label}
             </Text>
             {METRIC_ROWS.filter((r) => r.group === g.group).map((r) => (
-              <Row key={r.key} row={r} entries={entries} />
+              <Row key={r.key} row={r} entries={entries} focus={focus} />
             ))}
             {g.group === 'score' && perCourse.length ? (
               <>
@@ -92,14 +113,14 @@ export function MetricsTable({ entries }: { entries: Entry[] }) {
                   Per course
                 </Text>
                 {perCourse.map((r) => (
-                  <Row key={r.key} row={r} entries={entries} />
+                  <Row key={r.key} row={r} entries={entries} focus={focus} />
                 ))}
               </>
             ) : null}
           </View>
         ))}
       </View>
-      <Text style={styles.unit}>★ marks the best in each row; the small figures are each entry's difference from the best.</Text>
+      <Text style={styles.unit}>★ marks the best in each row; the small figures are each entry's difference from the best. Rows under the cursor in the plot or the walk below light up, with a bar at their left and a frame round the entry meant.</Text>
     </View>
   );
 }
@@ -119,6 +140,9 @@ const styles = StyleSheet.create({
   unit: { ...type.small, color: colors.graphite, fontSize: 12 },
   cell: { flex: 1, paddingVertical: space.sm, paddingHorizontal: space.xs, alignItems: 'flex-end', justifyContent: 'center', minWidth: 0 },
   bestCell: { backgroundColor: '#E4EDDF' },
+  focusedRow: { backgroundColor: '#FBE6DC' },
+  focusedLabel: { borderLeftWidth: 3, borderLeftColor: colors.ember, paddingLeft: space.xs },
+  focusedCell: { borderWidth: 2, borderColor: colors.ember, borderRadius: 4 },
   value: { fontFamily: fonts.mono, fontSize: 14, color: colors.ink, textAlign: 'right' },
   bestValue: { fontFamily: fonts.monoMedium },
   diff: { fontFamily: fonts.mono, fontSize: 12, color: colors.graphite, textAlign: 'right' },
