@@ -20,14 +20,21 @@ export const LEG_SETUP_VERSION = 1;
  */
 export const DEFAULT_MAX_JOINT_SPEED = 700;
 
-export const SolverSettingsSchema = z.object({
+/**
+ * How a leg setup stores each solver option (SolverOptions, engine/ik/options.ts,
+ * where each is defined and defaulted): its schema, or null for an option a
+ * setup does not carry. Keyed by the options interface, so an option added
+ * there fails the type check until it is placed here; defaults and the map to
+ * the engine (defaultSolverSettings, solverOptionsOf) are derived from this table.
+ */
+const SOLVER_OPTION_FIELDS = {
   method: z.enum(SOLVER_METHODS as unknown as [SolverMethod, ...SolverMethod[]]),
   maxIterations: z.number().int().min(1).max(1000),
   tolerance: z.number().positive().max(0.1).describe('m'),
   orientationTolerance: z.number().positive().max(1).describe('rad'),
   maxStepAngle: z.number().positive().max(Math.PI).describe('largest joint change per iteration, rad'),
   maxStepLength: z.number().positive().max(1).describe('largest slider change per iteration, m'),
-  /** Task error clamp per iteration (Buss & Kim 2005), m; 0 = the engine's automatic clamp, null = off. */
+  /** Task error clamp per iteration (Buss & Kim 2005), m; 0 = the engine's automatic clamp, null = off (the engine's Infinity). */
   clampDistance: z.number().min(0).max(10).nullable(),
   orientationWeight: z.number().min(0).max(10).describe('m per rad'),
   lambda: z.number().min(0).max(10).describe('DLS damping, m'),
@@ -36,13 +43,41 @@ export const SolverSettingsSchema = z.object({
   adaptiveMode: z.enum(['manipulability', 'error']),
   manipulabilityThreshold: z.number().positive().max(10),
   lmBias: z.number().min(0).max(1),
+  /** Per-DOF mobility comes from the rig's joints, not the setup. */
+  weights: null,
+  /** A pole point is a world position: a setup, which is the same for every course, offers only the pull to rest. */
   nullSpace: z.discriminatedUnion('kind', [
     z.object({ kind: z.literal('none') }),
     z.object({ kind: z.literal('rest'), gain: z.number().min(0).max(1) }),
   ]),
   minStep: z.number().min(0).max(0.1),
   resolveSaturated: z.boolean(),
-  /** Start each frame's solve from the last pose, or from the last pose carried on at its rate of change. */
+  /** A switch for tests and benchmarks. */
+  recordErrors: null,
+  /** Each frame's solve starts from the walk's guess (warmStart below), never from a stored pose. */
+  startPose: null,
+} satisfies Record<keyof SolverOptions, z.ZodType | null>;
+
+type StoredOptionKey = {
+  [K in keyof typeof SOLVER_OPTION_FIELDS]: (typeof SOLVER_OPTION_FIELDS)[K] extends null ? never : K;
+}[keyof typeof SOLVER_OPTION_FIELDS];
+
+/** The solver options a leg setup stores, in the table's order. */
+export const STORED_SOLVER_OPTIONS = Object.keys(SOLVER_OPTION_FIELDS).filter(
+  (k) => SOLVER_OPTION_FIELDS[k as keyof SolverOptions] !== null,
+) as StoredOptionKey[];
+
+const storedOptionShape = Object.fromEntries(STORED_SOLVER_OPTIONS.map((k) => [k, SOLVER_OPTION_FIELDS[k]])) as {
+  [K in StoredOptionKey]: (typeof SOLVER_OPTION_FIELDS)[K];
+};
+
+export const SolverSettingsSchema = z.object({
+  ...storedOptionShape,
+  /**
+   * How a walk guesses each frame's starting pose before it solves: the last
+   * pose, or the last pose carried on at its rate of change (the solver's own
+   * start is options.startPose, always 'current' in a walk).
+   */
   warmStart: z.enum(['previous', 'extrapolate']),
   /** Align the sole with the ground normal (needs an ankle: on by default only for legs with 6 or more DOFs). */
   footOrientation: z.boolean(),
@@ -184,25 +219,15 @@ export const ORIENTATION_WEIGHT_REACH = 1.1;
 export const DEFAULT_STEP_HEIGHT_RATIO = 0.1;
 
 export function defaultSolverSettings(footOrientation: boolean): SolverSettings {
-  const o = DEFAULT_OPTIONS;
+  const engine = DEFAULT_OPTIONS;
+  const stored = Object.fromEntries(STORED_SOLVER_OPTIONS.map((k) => [k, engine[k]])) as Pick<SolverOptions, StoredOptionKey>;
   return {
-    method: o.method,
-    maxIterations: o.maxIterations,
+    ...stored,
     tolerance: TRIAL_TOLERANCE,
     orientationTolerance: TRIAL_ORIENTATION_TOLERANCE,
-    maxStepAngle: o.maxStepAngle,
-    maxStepLength: o.maxStepLength,
-    clampDistance: Number.isFinite(o.clampDistance) ? o.clampDistance : null,
+    clampDistance: Number.isFinite(engine.clampDistance) ? engine.clampDistance : null,
     orientationWeight: TRIAL_ORIENTATION_WEIGHT,
-    lambda: o.lambda,
-    svdThreshold: o.svdThreshold,
-    gammaMax: o.gammaMax,
-    adaptiveMode: o.adaptiveMode,
-    manipulabilityThreshold: o.manipulabilityThreshold,
-    lmBias: o.lmBias,
-    nullSpace: o.nullSpace.kind === 'rest' ? { kind: 'rest', gain: o.nullSpace.gain } : { kind: 'none' },
-    minStep: o.minStep,
-    resolveSaturated: o.resolveSaturated,
+    nullSpace: engine.nullSpace.kind === 'rest' ? { kind: 'rest', gain: engine.nullSpace.gain } : { kind: 'none' },
     warmStart: 'extrapolate',
     footOrientation,
     maxJointSpeed: DEFAULT_MAX_JOINT_SPEED,
@@ -244,26 +269,11 @@ export function legSolverSettings(setup: LegSetup, legName: string): SolverSetti
 
 /** The solver options the IK engine takes for these settings. */
 export function solverOptionsOf(s: SolverSettings): Partial<SolverOptions> {
-  return {
-    method: s.method,
-    maxIterations: s.maxIterations,
-    tolerance: s.tolerance,
-    orientationTolerance: s.orientationTolerance,
-    maxStepAngle: s.maxStepAngle,
-    maxStepLength: s.maxStepLength,
-    clampDistance: s.clampDistance ?? Infinity,
-    orientationWeight: s.orientationWeight,
-    lambda: s.lambda,
-    svdThreshold: s.svdThreshold,
-    gammaMax: s.gammaMax,
-    adaptiveMode: s.adaptiveMode,
-    manipulabilityThreshold: s.manipulabilityThreshold,
-    lmBias: s.lmBias,
-    nullSpace: s.nullSpace,
-    minStep: s.minStep,
-    resolveSaturated: s.resolveSaturated,
-    warmStart: 'current',
-  };
+  const options: Partial<Record<keyof SolverOptions, unknown>> = {};
+  for (const k of STORED_SOLVER_OPTIONS) options[k] = s[k];
+  options.clampDistance = s.clampDistance ?? Infinity;
+  options.startPose = 'current';
+  return options as Partial<SolverOptions>;
 }
 
 /** Checks that need the rig: leg and joint names, number of phase offsets. Throws a LegSetupError. */

@@ -68,10 +68,12 @@ export interface SolverOptions {
   /** Record the error after each iteration into result.errorHistory. */
   recordErrors: boolean;
   /**
-   * Starting pose: 'current' = the workspace's pose (the last solve's result: warm start),
-   * 'rest' = the chain's rest pose, or explicit DOF values (ball entries as rotation vectors).
+   * The pose a solve starts from: 'current' = the workspace's pose (the last
+   * solve's result: a warm start), 'rest' = the chain's rest pose, or explicit
+   * DOF values (ball entries as rotation vectors). Not the leg setup's
+   * `warmStart`, which is how a walk guesses each frame's start ahead of the solve.
    */
-  warmStart: 'current' | 'rest' | ArrayLike<number>;
+  startPose: 'current' | 'rest' | ArrayLike<number>;
 }
 
 /** Default target clamp as a fraction of the chain's reach (clampDistance = 0). */
@@ -97,5 +99,5 @@ export const DEFAULT_OPTIONS: SolverOptions = {
   minStep: 1e-9,
   resolveSaturated: true,
   recordErrors: false,
-  warmStart: 'current',
+  startPose: 'current',
 };

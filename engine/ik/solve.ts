@@ -440,7 +440,7 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
 /**
  * Solve the leg toward `target` (world sole position), optionally aligning
  * the sole normal with `normal` (world ground normal; adds 3 orientation rows
- * weighted by options.orientationWeight). Starts from options.warmStart
+ * weighted by options.orientationWeight). Starts from options.startPose
  * ('current' by default: the previous solve's pose). The root transform must
  * be set first (setRootTransform / setRootMatrix). `overrides` apply to this
  * call only.
@@ -489,9 +489,9 @@ function solveImpl(ws: IKWorkspace, target: ArrayLike<number>, normal: ArrayLike
     }
   }
   const m = orient ? 6 : 3;
-  const ws0 = o.warmStart;
-  if (ws0 === 'rest') resetPose(ws);
-  else if (ws0 !== 'current' && ws0 != null) setPose(ws, ws0 as ArrayLike<number>);
+  const start = o.startPose;
+  if (start === 'rest') resetPose(ws);
+  else if (start !== 'current' && start != null) setPose(ws, start as ArrayLike<number>);
   const maxIt = o.maxIterations;
   ws.scalars[S_BIAS_SCALE] = 1; // null-space bias scale (see jacobianIteration)
   const hist = o.recordErrors ? ws.errorHistory : null;

@@ -8,8 +8,11 @@ import {
   presetRig,
   runTrial,
 } from '../../engine/gait';
-import { DEFAULT_OPTIONS } from '../../engine/ik';
+import { STORED_SOLVER_OPTIONS, SolverSettingsSchema, solverOptionsOf, type SolverSettings } from '../../engine/gait/leg-setup';
+import { DEFAULT_OPTIONS, createWorkspace, type SolverOptions } from '../../engine/ik';
 import { z } from 'zod';
+import fs from 'node:fs';
+import path from 'node:path';
 
 describe('leg setup schema', () => {
   it.each(PRESET_RIG_NAMES)('the default setup of %s is valid, JSON-safe and fits its rig', (name) => {
@@ -73,6 +76,52 @@ describe('leg setup schema', () => {
     const s = defaultLegSetup(rig);
     s.gait = { ...s.gait, pattern: 'custom', phaseOffsets: [0, 0.5, 0.25, 0.75], dutyFactor: 0.7 };
     expect(runTrial(rig, s, flatCourse(20), { duration: 3 }).gait.phaseOffsets[2]).toBe(0.25);
+  });
+});
+
+describe('solver settings: the stored names and the map to the engine', () => {
+  // Outside reference: the published leg profile JSON Schema (draft 2020-12) that
+  // saved setups and exported profiles follow.
+  const publishedFile = path.join(__dirname, '../../assets/schema/leg-profile.schema.json');
+  const published = JSON.parse(fs.readFileSync(publishedFile, 'utf8')) as { properties: { legSetup: { properties: { solver: { properties: Record<string, unknown> } } } } };
+  const publishedSolverKeys = Object.keys(published.properties.legSetup.properties.solver.properties);
+
+  it('keeps the field names and order of the published schema, so stored setups read as before', () => {
+    expect(Object.keys(SolverSettingsSchema.shape)).toEqual(publishedSolverKeys);
+    expect(Object.keys(defaultLegSetup(presetRig('biped')).solver)).toEqual(publishedSolverKeys);
+  });
+
+  it('hands every stored solver setting to the engine under its own name (common practice, no source)', () => {
+    // Each setting moved off its default, so a setting the map forgets or swaps shows as the engine's default.
+    const s: SolverSettings = {
+      ...defaultLegSetup(presetRig('biped')).solver,
+      method: 'sdls',
+      maxIterations: 17,
+      tolerance: 3e-4,
+      orientationTolerance: 0.031,
+      maxStepAngle: 0.41,
+      maxStepLength: 0.07,
+      clampDistance: 0.23,
+      orientationWeight: 0.17,
+      lambda: 0.09,
+      svdThreshold: 2e-3,
+      gammaMax: 0.51,
+      adaptiveMode: 'manipulability',
+      manipulabilityThreshold: 0.03,
+      lmBias: 3e-3,
+      nullSpace: { kind: 'rest', gain: 0.2 },
+      minStep: 2e-8,
+      resolveSaturated: false,
+    };
+    const ws = createWorkspace(presetRig('biped').legs[0].chain, solverOptionsOf(s));
+    for (const k of STORED_SOLVER_OPTIONS) {
+      expect([k, ws.options[k]]).toEqual([k, s[k]]);
+      expect([k, ws.options[k]]).not.toEqual([k, DEFAULT_OPTIONS[k as keyof SolverOptions]]);
+    }
+    // null (off) is the engine's Infinity; a walk's solve starts from the pose the walk set.
+    expect(ws.options.clampDistance).toBe(0.23);
+    expect(createWorkspace(presetRig('biped').legs[0].chain, solverOptionsOf({ ...s, clampDistance: null })).options.clampDistance).toBe(Infinity);
+    expect(ws.options.startPose).toBe('current');
   });
 });
 

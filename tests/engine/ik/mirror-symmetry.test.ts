@@ -34,8 +34,8 @@ describe.each(LEGS)('%s leg and its mirror image', (_name, chain, orient) => {
       setRootTransform(right, [-0.1, 1, 0], [0, 0, 0, 1]);
       const normal = orient ? [0.1, 0.98, 0.05] : null;
       const mirroredNormal = orient ? [-0.1, 0.98, 0.05] : null;
-      const a = Float64Array.from(solve(left, [0.1 + x, 1 + y, z], normal, { warmStart: 'rest' }).pose);
-      const b = Float64Array.from(solve(right, [-0.1 - x, 1 + y, z], mirroredNormal, { warmStart: 'rest' }).pose);
+      const a = Float64Array.from(solve(left, [0.1 + x, 1 + y, z], normal, { startPose: 'rest' }).pose);
+      const b = Float64Array.from(solve(right, [-0.1 - x, 1 + y, z], mirroredNormal, { startPose: 'rest' }).pose);
       for (let d = 0; d < a.length; d++) {
         const ball = left.dKind[d] === DOF_BALL;
         // Inside a ball's rotation vector (rx, ry, rz) the mirror flips ry and rz.
