@@ -23,10 +23,10 @@ import { appConfigRoutes } from './routes/app-config';
 import { healthRoutes } from './routes/health';
 import { charactersRouter } from './routes/characters';
 import { characterLegSetupsRoutes, legSetupsRoutes } from './routes/leg-setups';
-import { trialsRouter } from './routes/trials';
+import { trialsRoutes } from './routes/trials';
 import { jobsRoutes } from './routes/jobs';
 import { queueRoutes } from './routes/queue';
-import { dialInsRouter } from './routes/dial-ins';
+import { dialInsRoutes } from './routes/dial-ins';
 import { dialInAllowanceRoutes } from './routes/dial-in-allowance';
 import { coursesRoutes } from './routes/courses';
 import { suitesRoutes } from './routes/suites';
@@ -60,11 +60,11 @@ function apiRoutes(deps: AppDeps): Mounted[] {
     undeclared('/characters', charactersRouter(deps)),
     characterLegSetupsRoutes(deps),
     legSetupsRoutes(deps),
-    undeclared('/trials', trialsRouter(deps)),
+    trialsRoutes(deps),
     jobsRoutes(deps),
     queueRoutes(deps),
     dialInAllowanceRoutes(deps),
-    undeclared('/dial-ins', dialInsRouter(deps)),
+    dialInsRoutes(deps),
     coursesRoutes(deps),
     suitesRoutes(deps),
     legProfileSchemaRoutes(),

@@ -6,16 +6,12 @@ import { HttpError, unauthenticated } from './errors';
 import { ALL_ROLES } from './role-sets';
 import type { RouteRule } from './routes/declare';
 import { characterRules } from './routes/characters.rules';
-import { trialRules } from './routes/trials.rules';
-import { dialInRules } from './routes/dial-ins.rules';
 
 export type { RouteRule } from './routes/declare';
 
 /** Routes of routers that do not declare their own permissions yet (routes/declare.ts); the table takes them too. */
 export const UNDECLARED_RULES: RouteRule[] = [
   ...characterRules,
-  ...trialRules,
-  ...dialInRules,
 ];
 
 /**

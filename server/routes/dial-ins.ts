@@ -1,5 +1,3 @@
-import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { HttpError, notFound, parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
@@ -8,23 +6,28 @@ import type { JobAccepted } from '../../schemas/jobs';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { loadSuiteCourses } from '../services/courses';
 import { attachReservation, releaseReservation, reserveAllowance } from '../services/billing-limits';
-import { assertFitsRig, findLegSetup, loadWalkingCharacter, resolveLegSetup, saveLegSetup } from '../services/leg-setups';
+import { assertFitsRig, findLegSetup, resolveLegSetup, saveLegSetup } from '../services/leg-setups';
+import { loadCharacterRig } from '../services/characters';
 import { findJobRow } from '../jobs/job-rows';
 import type { DialInJobInput } from '../jobs/dial-in-job';
 import { jobRunnerOf } from './job-runner-of';
 import { assertRunnable } from '../services/submission-checks';
 import { trialStartProblems } from '../../engine/gait/setup-problems';
+import { EDITORS } from '../role-sets';
+import { START_DIAL_INS } from './dial-in-allowance';
+import { declareRoutes, idOf, permission } from './declare';
 
-const idSchema = z.coerce.number().int().positive();
+const ACCEPT = permission('dial-ins.accept', 'Accept dial-in results', EDITORS);
 
 /** Dial-ins: start one as a job (202); accept a finished one as a new leg setup version (201). */
-export function dialInsRouter(deps: AppDeps): Router {
-  const router = Router();
+export function dialInsRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/dial-ins');
+  routes.id('id', 'That dial-in');
 
-  router.post('/', async (req, res) => {
+  routes.post('/', START_DIAL_INS, async (req, res) => {
     const { team, user } = viewerOf(req);
     const ask = parseWith(dialInRequestSchema, req.body);
-    const character = await loadWalkingCharacter(deps.db, team.id, ask.characterId);
+    const character = await loadCharacterRig(deps.db, team.id, ask.characterId);
     const resolved = await resolveLegSetup(deps.db, team.id, character, { legSetupId: ask.legSetupId });
     const courses = await loadSuiteCourses(deps.db, team.id, ask.suiteId);
     if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
@@ -59,18 +62,17 @@ export function dialInsRouter(deps: AppDeps): Router {
     res.status(202).json(body);
   });
 
-  router.post('/:id/accept', async (req, res) => {
+  routes.post('/:id/accept', ACCEPT, async (req, res) => {
     const { team, user } = viewerOf(req);
-    const id = idSchema.safeParse(req.params.id);
-    if (!id.success) throw notFound('That dial-in');
+    const id = idOf(req);
     const { note } = parseWith(dialInAcceptSchema, req.body);
     const legSetupId = await deps.db.transaction(async (trx) => {
-      const row = await findJobRow(trx, team.id, id.data);
+      const row = await findJobRow(trx, team.id, id);
       if (row.kind !== 'dial-in') throw notFound('That dial-in');
       if (row.status !== 'done' || !row.result) throw new HttpError(409, 'not_finished', 'This dial-in has not finished; accept it once it is done.');
       const result = dialInResultSchema.parse(JSON.parse(row.result));
       if (result.acceptedLegSetupId) throw new HttpError(409, 'already_accepted', 'This dial-in was already accepted as a leg setup version.');
-      const character = await loadWalkingCharacter(trx, team.id, result.characterId);
+      const character = await loadCharacterRig(trx, team.id, result.characterId);
       assertFitsRig(result.bestSetup!, character.rig);
       const gain = (result.after!.footingScore - result.before!.footingScore).toFixed(1);
       const saved = await saveLegSetup(trx, {
@@ -88,5 +90,5 @@ export function dialInsRouter(deps: AppDeps): Router {
     res.status(201).json({ legSetup: await findLegSetup(deps.db, team.id, legSetupId) });
   });
 
-  return router;
+  return routes;
 }

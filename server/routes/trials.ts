@@ -1,28 +1,34 @@
-import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { HttpError, notFound, parseWith } from '../errors';
+import { HttpError, parseWith } from '../errors';
 import { assertRunnable, parseSubmission } from '../services/submission-checks';
 import { viewerOf } from '../middleware/auth';
 import { trialRequestSchema, TRIAL_SECONDS, type TrialList } from '../../schemas/trials';
 import type { JobAccepted } from '../../schemas/jobs';
 import { loadCourse, loadSuiteCourses } from '../services/courses';
-import { loadWalkingCharacter, resolveLegSetup } from '../services/leg-setups';
+import { resolveLegSetup } from '../services/leg-setups';
+import { loadCharacterRig } from '../services/characters';
 import { listTrials, trialDetail } from '../services/trials';
 import type { TrialJobInput } from '../jobs/trial-job';
 import { jobRunnerOf } from './job-runner-of';
+import { EDITORS } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
+
+const RUN = permission('trials.run', 'Run trials', EDITORS);
+const READ = permission('trials.read', 'See trials', 'member');
 
 const idSchema = z.coerce.number().int().positive();
 const listQuerySchema = z.object({ characterId: idSchema.optional(), jobId: idSchema.optional() });
 
 /** Trials: start one as a job (202), list, read one with its series. */
-export function trialsRouter(deps: AppDeps): Router {
-  const router = Router();
+export function trialsRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/trials');
+  routes.id('id', 'That trial');
 
-  router.post('/', async (req, res) => {
+  routes.post('/', RUN, async (req, res) => {
     const { team, user } = viewerOf(req);
     const ask = parseSubmission(trialRequestSchema, req.body);
-    const character = await loadWalkingCharacter(deps.db, team.id, ask.characterId);
+    const character = await loadCharacterRig(deps.db, team.id, ask.characterId);
     const resolved = await resolveLegSetup(deps.db, team.id, character, ask);
     const courses = ask.courseId !== undefined ? [await loadCourse(deps.db, team.id, ask.courseId)] : await loadSuiteCourses(deps.db, team.id, ask.suiteId!);
     if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
@@ -34,18 +40,16 @@ export function trialsRouter(deps: AppDeps): Router {
     res.status(202).json(body);
   });
 
-  router.get('/', async (req, res) => {
+  routes.get('/', READ, async (req, res) => {
     const q = parseWith(listQuerySchema, req.query);
     const body: TrialList = { trials: await listTrials(deps.db, viewerOf(req).team.id, q) };
     res.json(body);
   });
 
-  router.get('/:id', async (req, res) => {
-    const id = idSchema.safeParse(req.params.id);
-    if (!id.success) throw notFound('That trial');
+  routes.get('/:id', READ, async (req, res) => {
     const teamId = viewerOf(req).team.id;
-    res.json(await trialDetail(deps.db, teamId, id.data, async (characterId) => (await loadWalkingCharacter(deps.db, teamId, characterId)).rig));
+    res.json(await trialDetail(deps.db, teamId, idOf(req), async (characterId) => (await loadCharacterRig(deps.db, teamId, characterId)).rig));
   });
 
-  return router;
+  return routes;
 }

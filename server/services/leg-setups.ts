@@ -115,6 +115,3 @@ export async function resolveLegSetup(
   assertFitsRig(resolved.setup, character.rig, ask.legSetup ? 'legSetup' : 'legSetupId');
   return resolved;
 }
-
-/** The earlier name of loadCharacterRig (characters.ts), kept until its last callers move. */
-export { loadCharacterRig as loadWalkingCharacter } from './characters';

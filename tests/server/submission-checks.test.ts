@@ -9,7 +9,7 @@ import { LegSetupSchema, defaultLegSetup } from '../../engine/gait/leg-setup';
 import { generateCourse } from '../../engine/course/generators';
 import { bipedRig } from '../../engine/gait/rig-presets';
 import { insertCourse } from '../../server/services/courses';
-import { loadWalkingCharacter } from '../../server/services/leg-setups';
+import { loadCharacterRig } from '../../server/services/characters';
 import { readableJobFailure } from '../../server/services/submission-checks';
 import { storeCharacterUpload } from '../../server/services/gltf-import-store';
 import { buildCharacterGlb, type RigDesign, type V3 } from '../../seeds/characters/rig-builder';
@@ -67,7 +67,7 @@ describe('refused at submission', () => {
 
   it('refuses an unsaved setup over a limit with a sentence for the form field, not zod text', async () => {
     const agent = await designer();
-    const character = await loadWalkingCharacter(t.db, studio.teamId, studio.characters.burrow);
+    const character = await loadCharacterRig(t.db, studio.teamId, studio.characters.burrow);
     const setup = defaultLegSetup(character.rig);
     const res = await agent.post('/api/trials').send({ characterId: studio.characters.burrow, courseId: studio.courses.curb, legSetup: { ...setup, gait: { ...setup.gait, stepHeight: 8.4 } } });
     expect(res.status).toBe(400);
@@ -76,7 +76,7 @@ describe('refused at submission', () => {
 
   it('refuses phase offsets that do not fit the legs, and a course too short to walk, naming each', async () => {
     const agent = await designer();
-    const character = await loadWalkingCharacter(t.db, studio.teamId, studio.characters.burrow);
+    const character = await loadCharacterRig(t.db, studio.teamId, studio.characters.burrow);
     const setup = defaultLegSetup(character.rig);
     const offsets = await agent.post('/api/trials').send({ characterId: studio.characters.burrow, courseId: studio.courses.curb, legSetup: { ...setup, gait: { ...setup.gait, phaseOffsets: [0, 0.5] } } });
     expect(offsets.status).toBe(400);
@@ -100,7 +100,7 @@ describe('refused at submission', () => {
 describe('no job fails for a reason the submission could have checked', () => {
   it('either refuses each of these requests or runs it to done', async () => {
     const agent = await designer();
-    const character = await loadWalkingCharacter(t.db, studio.teamId, studio.characters.burrow);
+    const character = await loadCharacterRig(t.db, studio.teamId, studio.characters.burrow);
     const setup = defaultLegSetup(character.rig);
     const asks: object[] = [
       { characterId: centimetreBurrow, courseId: studio.courses.curb },
@@ -152,7 +152,7 @@ describe('a job that fails anyway says why in words', () => {
   });
 
   it('stores a readable reason when a job with an impossible input runs anyway', async () => {
-    const character = await loadWalkingCharacter(t.db, studio.teamId, studio.characters.burrow);
+    const character = await loadCharacterRig(t.db, studio.teamId, studio.characters.burrow);
     const setup = defaultLegSetup(character.rig);
     // Straight onto the runner, past the route's checks, as a job stored by an older server could be.
     const job = await t.jobs.enqueue({ teamId: studio.teamId, userId: studio.members.designer.id, kind: 'trial', input: { characterId: studio.characters.burrow, courseIds: [studio.courses.curb], setup: { ...setup, gait: { ...setup.gait, stepHeight: 3 } }, legSetupId: null } });
