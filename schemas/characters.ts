@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { legMappingSchema, detectedLegSchema, vec3Schema } from '../engine/rig/leg-mapping';
+import { importNoteSchema } from '../engine/rig/rig-quirks';
+import { UNIT_SCALE_RANGE, unitGuessSchema } from '../engine/rig/skeleton-scale';
 
 /** The leg shapes belong to the engine, which reads them too; the API uses them from there. */
 export {
@@ -48,13 +50,29 @@ export const validatorIssueSchema = z.object({
   pointer: z.string().optional(),
 });
 
-/** One finding of Treadle's own import (unit scale, unpaired legs, …). */
-export const importNoteSchema = z.object({
+/** Treadle's own import findings are the engine's shape (engine/rig/rig-quirks.ts). */
+export { importNoteSchema, type ImportNote } from '../engine/rig/rig-quirks';
+
+/** What a validator finding means for walking: harmless to it, the mesh only, or the skeleton (an error there refuses the upload). */
+export const findingMeaningSchema = z.enum(['harmless', 'mesh', 'skeleton']);
+export type FindingMeaning = z.infer<typeof findingMeaningSchema>;
+
+/** Validator findings of one code and meaning, with the glTF 2.0 rule they come from. */
+export const validatorFindingGroupSchema = z.object({
+  meaning: findingMeaningSchema,
   code: z.string(),
-  severity: z.enum(['warning', 'info']),
+  severity: issueSeveritySchema,
+  count: z.number().int(),
+  /** The validator's message for the first finding of the group. */
   message: z.string(),
+  /** What the meaning is, in words. */
+  explanation: z.string(),
+  /** The matching rule of the glTF 2.0 specification: its section and a link to it. */
+  rule: z.object({ section: z.string(), url: z.string() }),
+  /** Where in the file, for the first few. */
+  pointers: z.array(z.string()),
 });
-export type ImportNote = z.infer<typeof importNoteSchema>;
+export type ValidatorFindingGroup = z.infer<typeof validatorFindingGroupSchema>;
 
 /** What the import found: the validator's report, our own notes and a few figures. */
 export const importReportSchema = z.object({
@@ -66,13 +84,17 @@ export const importReportSchema = z.object({
     hints: z.number().int(),
     issues: z.array(validatorIssueSchema),
     truncated: z.boolean(),
+    /** The issues grouped by what they mean for walking (reports from before grouping have none). */
+    groups: z.array(validatorFindingGroupSchema).optional(),
   }),
+  /** The unit the file's lengths look like when they do not read as metres, and the fix on offer (null: they read as metres). */
+  units: z.object({ guess: unitGuessSchema.nullable() }).optional(),
   notes: z.array(importNoteSchema),
   stats: z.object({
     joints: z.number().int(),
     meshes: z.number().int(),
     vertices: z.number().int(),
-    /** Height of the rest skeleton (lowest to highest joint), metres. */
+    /** Height of the rest skeleton (lowest to highest joint), in the file's units (metres, as glTF defines, before any unit fix). */
     height: z.number(),
     legs: z.number().int(),
   }),
@@ -97,10 +119,22 @@ export const characterSchema = z.object({
   /** The legs in use: as detected, until someone saves an edited mapping. */
   legs: z.array(legMappingSchema),
   legsEdited: z.boolean(),
+  /** The unit fix: the factor that brings the file's lengths to metres, applied wherever the skeleton is read (1: as the file says). */
+  unitScale: z.number(),
 });
 export type Character = z.infer<typeof characterSchema>;
 
-/** A joint of the imported skeleton as the client needs it: name, parent index (−1 for a root), rest world position in metres. */
+/** PUT /api/characters/:id/unit-scale: 0.01 for centimetres, 0.001 for millimetres, any other factor, or 1 to undo. */
+export const unitScaleUpdateSchema = z.object({
+  unitScale: z
+    .number({ error: 'Enter the scale as a number, e.g. 0.01 for centimetres.' })
+    .finite('Enter the scale as a number, e.g. 0.01 for centimetres.')
+    .min(UNIT_SCALE_RANGE.min, `Use a scale of at least ${UNIT_SCALE_RANGE.min}.`)
+    .max(UNIT_SCALE_RANGE.max, `Use a scale of at most ${UNIT_SCALE_RANGE.max}.`),
+});
+export type UnitScaleUpdate = z.infer<typeof unitScaleUpdateSchema>;
+
+/** A joint of the imported skeleton as the client needs it: name, parent index (−1 for a root), rest world position in metres (the unit fix applied). */
 export const skeletonJointSummarySchema = z.object({
   name: z.string(),
   parent: z.number().int(),

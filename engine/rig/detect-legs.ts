@@ -8,7 +8,8 @@
 import type { DetectedLeg, LegSide } from './leg-mapping';
 import type { Skeleton } from './types';
 import { chainLengths, jointChildren, jointWorldPositions } from './skeleton-world';
-import { nameHint, nameSide } from './skeleton-names';
+import { isPassengerName, nameHint, nameSide } from './skeleton-names';
+import { formatLength, type LengthUnit } from './skeleton-scale';
 import { proposedLegJoints } from './skeleton-leg-dofs';
 
 export const MIN_LEG_JOINTS = 2;
@@ -101,13 +102,47 @@ function isFootCluster(f: Frame, j: number, via: number): boolean {
   return f.children[j].every((c) => c === via || subtreeTop(f, c) <= y(f, j) + 0.05 * f.height);
 }
 
+/** Distance of joint p from the segment a → b, as a share of the segment's length. */
+function offSegment(f: Frame, p: number, a: number, b: number): number {
+  const P = f.positions;
+  const d = [P[3 * b] - P[3 * a], P[3 * b + 1] - P[3 * a + 1], P[3 * b + 2] - P[3 * a + 2]];
+  const v = [P[3 * p] - P[3 * a], P[3 * p + 1] - P[3 * a + 1], P[3 * p + 2] - P[3 * a + 2]];
+  const l2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+  if (!(l2 > 0)) return Infinity;
+  const t = Math.max(0, Math.min(1, (v[0] * d[0] + v[1] * d[1] + v[2] * d[2]) / l2));
+  return Math.hypot(v[0] - t * d[0], v[1] - t * d[1], v[2] - t * d[2]) / Math.sqrt(l2);
+}
+
+/** A bone that lies on a limb segment (within this share of its length) rides along with it (common practice, no source). */
+const ON_SEGMENT = 0.1;
+
+/**
+ * Whether every other branch of joint `j` (besides the one towards `via`) is a passenger: a single twist, roll or
+ * helper bone lying along the segment j → via. Such a joint is still inside the limb, not where it leaves the body.
+ */
+function onlyPassengersBeside(skeleton: Skeleton, f: Frame, j: number, via: number): boolean {
+  return f.children[j].every((c) => c === via || (f.children[c].length === 0 && isPassengerName(skeleton.joints[c].name) && offSegment(f, c, j, via) <= ON_SEGMENT));
+}
+
+/** The path without its passengers: twist or roll bones inside the limb that lie on the segment between their neighbours. */
+function withoutPassengers(skeleton: Skeleton, f: Frame, path: number[]): number[] {
+  const out = [path[0]];
+  for (let k = 1; k < path.length - 1; k++) {
+    const j = path[k];
+    if (isPassengerName(skeleton.joints[j].name) && offSegment(f, j, out[out.length - 1], path[k + 1]) <= ON_SEGMENT) continue;
+    out.push(j);
+  }
+  if (path.length > 1) out.push(path[path.length - 1]);
+  return out;
+}
+
 /** Walks up from a leaf to where the chain leaves the body; the body joint itself is not part of the chain. */
 function chainUpFrom(skeleton: Skeleton, f: Frame, leaf: number): number[] {
   const path = [leaf];
   let via = leaf;
   let j = skeleton.joints[leaf].parent;
   while (j >= 0) {
-    if (f.children[j].length >= 2 && !isFootCluster(f, j, via)) return path;
+    if (f.children[j].length >= 2 && !isFootCluster(f, j, via) && !onlyPassengersBeside(skeleton, f, j, via)) return path;
     if (skeleton.joints[j].parent < 0) return path; // a root joint is the body
     path.unshift(j);
     via = j;
@@ -117,11 +152,8 @@ function chainUpFrom(skeleton: Skeleton, f: Frame, leaf: number): number[] {
   return path;
 }
 
-function describeHeight(h: number): string {
-  return `${h.toFixed(2)} m`;
-}
-
-function judge(skeleton: Skeleton, f: Frame, path: number[]): Candidate | RejectedChain {
+function judge(skeleton: Skeleton, f: Frame, path: number[], unit: LengthUnit): Candidate | RejectedChain {
+  const describeHeight = (h: number) => formatLength(h, unit);
   const names = path.map((j) => nameHint(skeleton.joints[j].name));
   if (path.length < MIN_LEG_JOINTS) return { joints: path, reason: 'a single joint leaving the body, too short for a leg' };
   if (path.length > MAX_LEG_JOINTS) return { joints: path, reason: `${path.length} joints long, more than a leg's ${MAX_LEG_JOINTS}; more like a tail or tentacle` };
@@ -230,8 +262,14 @@ function confidence(f: Frame, c: Candidate): number {
   return Math.round(score * sideAgrees * 100) / 100;
 }
 
+export interface DetectOptions {
+  /** The unit the skeleton's lengths are in, for the evidence (metres unless the file is read as another). */
+  unit?: LengthUnit;
+}
+
 /** Finds the legs of a rest skeleton. Deterministic: the same skeleton gives the same legs in the same order. */
-export function detectLegs(skeleton: Skeleton): LegDetection {
+export function detectLegs(skeleton: Skeleton, options: DetectOptions = {}): LegDetection {
+  const unit = options.unit ?? 'metres';
   const n = skeleton.joints.length;
   if (n === 0) return { legs: [], rejected: [], facesMinusZ: false };
   const f = frameOf(skeleton);
@@ -246,9 +284,9 @@ export function detectLegs(skeleton: Skeleton): LegDetection {
   // Lowest leaves first, so a foot with several toes keeps its lowest toe.
   leaves.sort((a, b) => y(f, a) - y(f, b) || a - b);
   for (const leaf of leaves) {
-    const path = chainUpFrom(skeleton, f, leaf);
+    const path = withoutPassengers(skeleton, f, chainUpFrom(skeleton, f, leaf));
     if (path.some((j) => taken.has(j))) continue;
-    const verdict = judge(skeleton, f, path);
+    const verdict = judge(skeleton, f, path, unit);
     if ('reason' in verdict) {
       rejected.push(verdict);
       continue;

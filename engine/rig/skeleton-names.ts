@@ -49,3 +49,11 @@ export function nameSide(name: string): 'left' | 'right' | null {
   if (left === right) return null;
   return left ? 'left' : 'right';
 }
+
+/** Words of bones that ride along a limb without bending it: twist and roll bones, muscle and corrective helpers (common practice, no source). */
+const PASSENGER_WORDS = new Set(['twist', 'roll', 'helper', 'corrective', 'muscle', 'bulge']);
+
+/** Whether the name is a twist, roll or helper bone's, which rides along with its limb. */
+export function isPassengerName(name: string): boolean {
+  return nameTokens(name).some((t) => PASSENGER_WORDS.has(t));
+}

@@ -9,4 +9,5 @@ export const characterRules: RouteRule[] = [
   { method: 'GET', path: '/characters/:id/file', action: 'characters.read', label: 'See characters and their legs', access: 'member' },
   { method: 'POST', path: '/characters', action: 'characters.upload', label: 'Upload characters', access: EDITORS },
   { method: 'PUT', path: '/characters/:id/legs', action: 'characters.legs.edit', label: 'Edit leg mappings', access: EDITORS },
+  { method: 'PUT', path: '/characters/:id/unit-scale', action: 'characters.legs.edit', label: 'Edit leg mappings', access: EDITORS },
 ];

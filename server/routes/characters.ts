@@ -6,13 +6,14 @@ import { viewerOf } from '../middleware/auth';
 import {
   characterUploadFieldsSchema,
   legMappingUpdateSchema,
+  unitScaleUpdateSchema,
   type CharacterDetail,
   type CharacterList,
   type CharacterUploadResult,
 } from '../../schemas/characters';
 import { uploadCapBytes } from '../services/character-files';
 import { storeCharacterUpload } from '../services/gltf-import-store';
-import { characterDetail, getCharacter, listCharacters, storedCharacterFile, updateCharacterLegs } from '../services/characters';
+import { characterDetail, getCharacter, listCharacters, storedCharacterFile, updateCharacterLegs, updateCharacterUnitScale } from '../services/characters';
 import { uploadParser } from '../middleware/uploads';
 
 /** A .gltf may come with its .bin and images; more parts than this is not a character. */
@@ -63,6 +64,13 @@ export function charactersRouter(deps: AppDeps): Router {
     const id = idOf(req.params.id);
     const { legs } = parseWith(legMappingUpdateSchema, req.body);
     res.json({ character: await updateCharacterLegs(deps.db, { teamId: team.id, id, legs, now: deps.clock.now() }) });
+  });
+
+  router.put('/:id/unit-scale', async (req, res) => {
+    const { team } = viewerOf(req);
+    const id = idOf(req.params.id);
+    const { unitScale } = parseWith(unitScaleUpdateSchema, req.body);
+    res.json({ character: await updateCharacterUnitScale(deps.db, { teamId: team.id, id, unitScale, now: deps.clock.now() }) });
   });
 
   return router;

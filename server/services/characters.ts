@@ -11,6 +11,8 @@ import type { Character, CharacterDetail, DetectedLeg, ImportReport, LegMapping 
 import type { ApiCharacterList } from '../../schemas/profiles';
 import type { Skeleton, SkeletonJoint } from '../../engine/rig/types';
 import { legMappingProblems } from '../../engine/rig/skeleton-leg-check';
+import { scaledSkeleton } from '../../engine/rig/skeleton-scale';
+import { detectLegs } from '../../engine/rig/detect-legs';
 import { mappingOf } from '../../engine/rig/leg-mapping';
 import { rigFromCharacter } from '../../engine/gait/character-rig';
 import type { Rig } from '../../engine/gait/rig';
@@ -42,6 +44,8 @@ export interface CharacterRow {
   legs_json: string;
   legs_edited: number | boolean;
   report_json: string;
+  /** The unit fix (migrations/20261202300000_character_unit_scale.ts). */
+  unit_scale: number;
   uploaded_by: number;
   uploader_name: string;
   created_at: number;
@@ -52,8 +56,11 @@ export interface CharacterRow {
 export interface TrialCharacter {
   name: string;
   sha256: string;
+  /** In metres: the unit fix is applied. */
   skeleton: Skeleton;
   legs: LegMapping[];
+  /** The unit fix applied to the file's skeleton (a profile carries it, so a game applies it too). */
+  unitScale?: number;
 }
 
 /** A team's character with its walking rig. */
@@ -103,7 +110,14 @@ export function characterFromRow(row: CharacterRow): Character {
     updatedAt: Number(row.updated_at),
     legs: legsOf(row),
     legsEdited: Boolean(row.legs_edited),
+    unitScale: unitScaleOf(row),
   };
+}
+
+/** The character's unit fix; 1 when none is set. */
+export function unitScaleOf(row: Partial<Pick<CharacterRow, 'unit_scale'>>): number {
+  const s = Number(row.unit_scale ?? 1);
+  return Number.isFinite(s) && s > 0 ? s : 1;
 }
 
 export async function listCharacters(db: Conn, teamId: number): Promise<Character[]> {
@@ -118,13 +132,15 @@ export async function getCharacter(db: Conn, teamId: number, id: number): Promis
 export async function characterDetail(db: Conn, teamId: number, id: number): Promise<CharacterDetail> {
   const row = await getCharacterRow(db, teamId, id);
   const skeleton = skeletonOf(row);
+  // The unit fix scales every rest position about the origin (engine/rig/skeleton-scale.ts scaledSkeleton).
+  const k = unitScaleOf(row);
   return {
     character: characterFromRow(row),
     skeleton: {
       joints: skeleton.joints.map((j, i) => ({
         name: j.name,
         parent: j.parent,
-        position: [skeleton.positions[3 * i], skeleton.positions[3 * i + 1], skeleton.positions[3 * i + 2]],
+        position: [skeleton.positions[3 * i] * k, skeleton.positions[3 * i + 1] * k, skeleton.positions[3 * i + 2] * k],
       })),
     },
     detectedLegs: JSON.parse(row.detected_legs_json) as DetectedLeg[],
@@ -169,9 +185,28 @@ export async function updateCharacterLegs(db: Db, input: { teamId: number; id: n
   return getCharacter(db, input.teamId, row.id);
 }
 
-/** A character as a trial walks it, from its row. */
-export function trialCharacterOf(row: Pick<CharacterRow, 'name' | 'sha256' | 'skeleton_json' | 'legs_json'>): TrialCharacter {
-  return { name: row.name, sha256: row.sha256, skeleton: { joints: skeletonOf(row).joints }, legs: legsOf(row) };
+/**
+ * Stores a unit fix (the file stays as uploaded). The detected legs' evidence is measured again in metres; the legs
+ * themselves do not change, since detection judges by proportions, not sizes.
+ */
+export async function updateCharacterUnitScale(db: Db, input: { teamId: number; id: number; unitScale: number; now: number }): Promise<Character> {
+  const row = await getCharacterRow(db, input.teamId, input.id);
+  const detected = JSON.parse(row.detected_legs_json) as DetectedLeg[];
+  const again = detectLegs(scaledSkeleton({ joints: skeletonOf(row).joints }, input.unitScale), { unit: 'metres' }).legs;
+  const sameLegs = again.length === detected.length && again.every((l, i) => l.end === detected[i].end && l.joints.length === detected[i].joints.length);
+  const refreshed = sameLegs ? detected.map((l, i) => ({ ...l, evidence: again[i].evidence })) : detected;
+  await db.transaction(async (trx) => {
+    await trx('characters')
+      .where({ id: row.id, team_id: input.teamId })
+      .update({ unit_scale: input.unitScale, detected_legs_json: JSON.stringify(refreshed), updated_at: input.now });
+  });
+  return getCharacter(db, input.teamId, row.id);
+}
+
+/** A character as a trial walks it, from its row: the rest skeleton in metres, the unit fix applied. */
+export function trialCharacterOf(row: Pick<CharacterRow, 'name' | 'sha256' | 'skeleton_json' | 'legs_json'> & Partial<Pick<CharacterRow, 'unit_scale'>>): TrialCharacter {
+  const skeleton = scaledSkeleton({ joints: skeletonOf(row).joints }, unitScaleOf(row));
+  return { name: row.name, sha256: row.sha256, skeleton, legs: legsOf(row), unitScale: unitScaleOf(row) };
 }
 
 /**

@@ -23,6 +23,7 @@ export type RefusalCode =
   | 'no_joints'
   | 'too_many_joints'
   | 'no_legs'
+  | 'skeleton_invalid'
   | 'json_too_deep'
   | 'json_too_large'
   | 'bad_structure'

@@ -13,6 +13,8 @@ export interface ImportedSkeleton {
   skeleton: Skeleton;
   /** 16 numbers per joint, column-major; identity where the file gives none. */
   inverseBindMatrices: Float64Array;
+  /** The nodes between the scene and the first root joint (outermost first) and their composed matrix, column-major. */
+  above: { names: string[]; matrix: Float64Array };
 }
 
 function trsOf(node: Node): Pick<SkeletonJoint, 'translation' | 'rotation' | 'scale'> {
@@ -82,5 +84,17 @@ export function importSkeleton(doc: Document, skinIndex: number): ImportedSkelet
   } else {
     for (let j = 0; j < nodes.length; j++) inverseBindMatrices.set(identity() as unknown as Float64Array, 16 * j);
   }
-  return { skeleton: { joints }, inverseBindMatrices };
+  return { skeleton: { joints }, inverseBindMatrices, above: aboveRoot(nodes, index) };
+}
+
+function aboveRoot(nodes: Node[], index: Map<Node, number>): ImportedSkeleton['above'] {
+  const root = nodes.find((n) => {
+    for (let p = n.getParentNode(); p; p = p.getParentNode()) if (index.has(p)) return false;
+    return true;
+  });
+  const chain: Node[] = [];
+  for (let p = root?.getParentNode() ?? null; p; p = p.getParentNode()) chain.unshift(p);
+  const matrix = identity();
+  for (const p of chain) mat4.multiply(matrix, matrix, p.getMatrix() as unknown as mat4);
+  return { names: chain.map((p, i) => p.getName() || `node ${i}`), matrix: matrix as unknown as Float64Array };
 }

@@ -49,7 +49,7 @@ const CACHE_SIZE = 48;
 export function runCharacterSuite(c: TrialCharacter, setup: LegSetup, suite: LoadedSuite): SuiteRun {
   const key = crypto
     .createHash('sha256')
-    .update(JSON.stringify([c.sha256, c.legs, setup, suite.courses.map((k) => [k.id, k.version])]))
+    .update(JSON.stringify([c.sha256, c.unitScale ?? 1, c.legs, setup, suite.courses.map((k) => [k.id, k.version])]))
     .digest('hex');
   const hit = cache.get(key);
   if (hit) return hit;

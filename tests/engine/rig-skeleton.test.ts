@@ -2,7 +2,7 @@ import * as THREE from 'three';
 import { GLTFLoader } from 'three/examples/jsm/loaders/GLTFLoader.js';
 import { importGltf } from '../../server/services/gltf-import';
 import { jointOrder, restWorldMatrices, jointWorldPositions } from '../../engine/rig/skeleton-world';
-import { skeletonHeight, unitScaleWarning } from '../../engine/rig/skeleton-scale';
+import { guessUnit, scaledSkeleton, skeletonHeight, unitScaleWarning } from '../../engine/rig/skeleton-scale';
 import { buildCharacterGlb } from '../../seeds/characters/rig-builder';
 import { DEMO_DESIGNS } from '../../seeds/characters';
 import { anonymised, file, twistedRigGlb, wicket } from '../fixtures/gltf/build-fixtures';
@@ -71,13 +71,33 @@ describe('jointOrder', () => {
 });
 
 describe('unit scale', () => {
-  it('is quiet for human-to-building sizes and names the likely unit otherwise', () => {
+  it('is quiet for mouse-to-house sizes and names the likely unit otherwise', () => {
     expect(unitScaleWarning(1.8)).toBeNull();
-    expect(unitScaleWarning(25)).toBeNull();
-    // 180 "metres" is a 1.8 m person exported in centimetres; 1800 is millimetres (factor 100 and 1000: SI prefixes).
-    expect(unitScaleWarning(180)).toMatch(/centimetres.*1\.8 m/);
-    expect(unitScaleWarning(1800)).toMatch(/centimetres|millimetres/);
+    expect(unitScaleWarning(0.3)).toBeNull();
+    expect(unitScaleWarning(9)).toBeNull();
+    // 180 "metres" is a 1.8 m person exported in centimetres; 1800 is millimetres (factors 10⁻² and 10⁻³: SI prefixes).
+    expect(unitScaleWarning(180)).toMatch(/this looks like centimetres \(it would be 1\.80 m\).*Scale it by 0\.01/);
+    expect(unitScaleWarning(1800)).toMatch(/this looks like millimetres \(it would be 1\.80 m\).*Scale it by 0\.001/);
+    // 61 "metres" is a fox-sized 0.61 m walker in centimetres.
+    expect(guessUnit(61)).toEqual({ unit: 'centimetres', factor: 0.01, certainty: 'likely', metres: 0.61 });
+    // 25 m could be a giant walker in metres or a 25 cm creature: the fix is offered, not urged.
+    expect(guessUnit(25)).toMatchObject({ unit: 'centimetres', certainty: 'possible' });
+    expect(unitScaleWarning(25)).toMatch(/If it was authored in centimetres, it is 0\.250 m/);
     expect(unitScaleWarning(0.018)).toMatch(/scaled down/);
+  });
+
+  it('scales a skeleton about the origin exactly: every joint world matrix becomes S(k) times its own', async () => {
+    // Reference: glTF 2.0 §3.5.3, a parent node scaling by k multiplies every descendant's world matrix by S(k) on the left
+    // (the translation row too); the bottom row stays (0, 0, 0, 1).
+    const imported = await importGltf([file('twisted.glb', await twistedRigGlb())]);
+    const before = restWorldMatrices(imported.skeleton);
+    const after = restWorldMatrices(scaledSkeleton(imported.skeleton, 0.01));
+    let worst = 0;
+    for (let j = 0; j < imported.skeleton.joints.length; j++) {
+      for (let c = 0; c < 4; c++) for (let r = 0; r < 3; r++) worst = Math.max(worst, Math.abs(after[16 * j + 4 * c + r] - 0.01 * before[16 * j + 4 * c + r]));
+    }
+    expect(worst).toBeLessThan(1e-12);
+    expect(scaledSkeleton(imported.skeleton, 1)).toBe(imported.skeleton);
   });
 
   it('measures the skeleton from its lowest to its highest joint', async () => {
