@@ -32,7 +32,7 @@ import * as swingPath from './swing-path';
 import * as timing from './timing';
 import { DEG, EXTRAPOLATION_GAIN, SETTLE_ITERATIONS } from './trial-options';
 import { neutralWalkHeight } from './walk-height';
-import { cycleTimeForSpeed, STOP_SHARE, strideForSpeed, topTurnRate, topWalkSpeed } from './walk-speed';
+import { cycleTimeForMotion, cycleTimeForSpeed, STOP_SHARE, strideForSpeed, topTurnRate, topWalkSpeed } from './walk-speed';
 import { DRIVE_PATH, DRIVE_POSE, DRIVE_VELOCITY, type Walk } from './walk-state';
 
 export * from './walk-state';
@@ -354,7 +354,11 @@ function moveBody(w: Walk, dt: number): void {
   m.s = w.bodyPos[2];
 }
 
-/** Velocity mode: the velocity and turn rate move toward the command, within the top speed and by at most a top speed per cycle. */
+/** Cycles over which the body may go from standing to its top speed, and to its top turn rate (common practice, no source). */
+const SPEED_RAMP_CYCLES = 2;
+const TURN_RAMP_CYCLES = 4;
+
+/** Velocity mode: the velocity and turn rate move toward the command, within the top speed, ramping over a few cycles. */
 function followCommand(w: Walk, dt: number): void {
   const m = w.motion;
   const g = w.gait;
@@ -371,7 +375,7 @@ function followCommand(w: Walk, dt: number): void {
     wz *= k;
     wt *= k;
   }
-  const dvMax = (vTop / g.cycleTime) * dt;
+  const dvMax = (vTop / (SPEED_RAMP_CYCLES * g.cycleTime)) * dt;
   const dx = wx - m.vx;
   const dz = wz - m.vz;
   const dv = sqrt(dx * dx + dz * dz);
@@ -382,7 +386,7 @@ function followCommand(w: Walk, dt: number): void {
     m.vx = wx;
     m.vz = wz;
   }
-  const dwMax = (wTop / g.cycleTime) * dt;
+  const dwMax = (wTop / (TURN_RAMP_CYCLES * g.cycleTime)) * dt;
   const dw = wt - m.turnRate;
   m.turnRate = dw > dwMax ? m.turnRate + dwMax : dw < -dwMax ? m.turnRate - dwMax : wt;
 }
@@ -398,7 +402,8 @@ function footSpeed(w: Walk): number {
 function followCadence(w: Walk): void {
   const v = footSpeed(w);
   w.stopping = w.motion.mode !== DRIVE_PATH && v < STOP_SHARE * w.gait.speed;
-  const T = cycleTimeForSpeed(w.gait, v);
+  // A stopping walk steps at the setup's own cadence, so every foot is home within about a cycle.
+  const T = w.stopping ? w.gait.cycleTime : cycleTimeForMotion(w.gait, v, w.motion.turnRate);
   w.stride = strideForSpeed(w.gait, v, T);
   if (T === w.cycleTime) return;
   w.clockCycles += ((w.frame - w.clockFrame) * w.timeStep) / w.cycleTime;
@@ -418,6 +423,11 @@ export function stepWalk(w: Walk): void {
   followCadence(w);
   const T = w.cycleTime;
 
+  // Setting off from a full rest, the clock restarts just before a liftoff with every other leg planted.
+  if (!w.stopping && walkResting(w)) {
+    w.clockCycles = restartCycle(w);
+    w.clockFrame = w.frame;
+  }
   // Gait clock: touchdowns lock the feet, liftoffs plan the swings.
   let supportChanged = false;
   const cycles = w.clockCycles + ((w.frame - w.clockFrame) * dt) / T;
@@ -433,6 +443,12 @@ export function stepWalk(w: Walk): void {
     }
     w.phase[i] = phase;
     const nowStance = phase < beta ? 1 : 0;
+    // Stopping, a planted foot already where a step would put it stays there.
+    if (w.stopping && w.stance[i] && restsWhereItStands(w, i, time)) {
+      w.resting[i] = 1;
+      w.phase[i] = REST_PHASE_SHARE * beta;
+      continue;
+    }
     if (nowStance === w.stance[i]) continue;
     if (!nowStance && w.stopping && restsWhereItStands(w, i, time + (1 - phase) * T)) {
       w.resting[i] = 1;
@@ -508,6 +524,31 @@ export function solveLegs(w: Walk): void {
     w.foot[3 * i + 2] = f[2];
   }
 }
+
+/** Where in the cycle to set off from rest: the point where the legs wait least for their touchdown and the first liftoff comes soonest. */
+function restartCycle(w: Walk): number {
+  const beta = w.gait.dutyFactor;
+  const offsets = w.gait.phaseOffsets;
+  let best = 0;
+  let bestCost = Infinity;
+  for (let k = 0; k < RESTART_SAMPLES; k++) {
+    const c = k / RESTART_SAMPLES;
+    let wait = 0;
+    let firstLift = 1;
+    for (let i = 0; i < w.legs; i++) {
+      const p = wrap01(c - offsets[i]);
+      if (p >= beta) wait += 1 - p;
+      else if (beta - p < firstLift) firstLift = beta - p;
+    }
+    const cost = wait + firstLift;
+    if (cost < bestCost) {
+      bestCost = cost;
+      best = c;
+    }
+  }
+  return best;
+}
+const RESTART_SAMPLES = 200;
 
 /** One whole step of a walk alone: the body, the clock and the feet, then the legs solved. */
 export function advanceWalk(w: Walk): void {
