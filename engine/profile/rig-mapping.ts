@@ -17,14 +17,15 @@ interface NamedJoints {
   joints: readonly { name: string }[];
 }
 
-/** The character's legs with each joint index replaced by its skeleton name. */
-export function profileRigOf(skeleton: NamedJoints, legs: readonly LegMapping[]): ProfileRig {
+/** The character's legs with each joint index replaced by its skeleton name, and the unit fix a game applies to its skeleton. */
+export function profileRigOf(skeleton: NamedJoints, legs: readonly LegMapping[], unitScale = 1): ProfileRig {
   const nameOf = (j: number) => {
     const joint = skeleton.joints[j];
     if (!joint) throw new LegProfileBindError(`the skeleton has no joint ${j}`);
     return joint.name;
   };
   return {
+    unitScale,
     legs: legs.map((leg) => ({
       name: leg.name,
       side: leg.side,

@@ -42,6 +42,7 @@ import { rigFromCharacter, type CharacterRigOptions } from '../gait/character-ri
 import type { Rig } from '../gait/rig';
 import type { LegMapping } from '../rig/leg-mapping';
 import type { Skeleton } from '../rig/types';
+import { scaledSkeleton } from '../rig/skeleton-scale';
 import { LegProfileError, parseLegProfile } from './export';
 import { legMappingsFor } from './rig-mapping';
 import type { LegProfile } from './schema';
@@ -74,10 +75,15 @@ export interface BoundLegProfile {
   rig: Rig;
 }
 
-/** Binds the profile to the game's skeleton by joint names; throws a LegProfileBindError naming every missing joint. */
+/**
+ * Binds the profile to the game's skeleton by joint names; throws a LegProfileBindError naming every missing joint.
+ * The skeleton is read in the file's units and scaled by the profile's unit fix (rig.unitScale), so the rig, the
+ * feet and the body are in metres, as Treadle measured them; divide by the fix to draw in the file's units.
+ */
 export function bindLegProfile(profile: LegProfile, skeleton: Skeleton, options: CharacterRigOptions = {}): BoundLegProfile {
   const legs = legMappingsFor(skeleton, profile.rig);
-  return { profile, legs, rig: rigFromCharacter(skeleton, legs, { name: profile.character.name, ...options }) };
+  const metres = scaledSkeleton(skeleton, profile.rig.unitScale ?? 1);
+  return { profile, legs, rig: rigFromCharacter(metres, legs, { name: profile.character.name, ...options }) };
 }
 
 /** What went wrong with the game's ground; the runtime holds its last good pose meanwhile. */

@@ -34,6 +34,11 @@ export const ProfileLegSchema = z.object({
 });
 
 export const ProfileRigSchema = z.object({
+  /**
+   * The character's unit fix: the factor that brings its file's lengths to metres (0.01 for a file in centimetres).
+   * The runtime scales the game's skeleton by it before binding, so the profile's metres fit; absent means 1.
+   */
+  unitScale: z.number().positive().finite().optional(),
   legs: z.array(ProfileLegSchema).min(1).max(16),
 });
 

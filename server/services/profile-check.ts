@@ -11,6 +11,7 @@ import { LegProfileBindError, legMappingsFor } from '../../engine/profile/rig-ma
 import { sha256Hex } from './character-files';
 import { importGltf, type UploadedFile } from './gltf-import';
 import { findCharacterRow, rigOf, trialCharacterOf, type TrialCharacter } from './characters';
+import { scaledSkeleton } from '../../engine/rig/skeleton-scale';
 import { documentOf, findVersion } from './profiles';
 import { loadSuite, runCharacterSuite, setupFor } from './suite-runs';
 
@@ -43,7 +44,9 @@ export async function checkProfile(db: Db, input: CheckInput): Promise<CheckResu
       if (err instanceof LegProfileBindError) throw new HttpError(400, 'missing_joints', `The uploaded file does not fit this profile: ${err.message}.`, { file: err.message });
       throw err;
     }
-    character = { name: published.character.name, sha256: sha256Hex(imported.glb), skeleton: imported.skeleton, legs };
+    // The profile's unit fix, as a game applies it to the file's skeleton.
+    const unitScale = published.rig.unitScale ?? 1;
+    character = { name: published.character.name, sha256: sha256Hex(imported.glb), skeleton: scaledSkeleton(imported.skeleton, unitScale), legs, unitScale };
   } else {
     const profile = await db('profiles').where({ id: input.profileId, team_id: input.teamId }).first('character_id');
     const stored = profile ? await findCharacterRow(db, input.teamId, profile.character_id) : undefined;

@@ -78,7 +78,7 @@ export async function publishProfile(db: Db, input: PublishInput): Promise<{ pro
       author: { name: input.author.name },
       publishedAt: new Date(input.now).toISOString(),
       legSetup: setup,
-      rig: profileRigOf(character.skeleton, character.legs),
+      rig: profileRigOf(character.skeleton, character.legs, character.unitScale),
       suite: { name: suite.name, courses: suite.courses.map((c) => ({ name: c.name, version: c.version })) },
       metrics: run.metrics,
     };
