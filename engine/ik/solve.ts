@@ -99,6 +99,8 @@ const quatScratch = new Float64Array(4);
 
 /** Below this |u × n| the sole normal u and the target normal n are taken as parallel (or antiparallel). */
 const NORMALS_PARALLEL_BELOW = 1e-12;
+/** The perpendicular (−u_y, u_x, 0) is too short to use below this (u near ±Z): (0, −u_z, u_y) instead. */
+const PERPENDICULAR_DEGENERATE_BELOW = 1e-9;
 
 /**
  * Task error at the current FK into ws.e (rows 0–2 position, 3–5 weighted
@@ -136,7 +138,7 @@ function taskError(ws: IKWorkspace, orient: boolean): void {
       let py = u[0];
       let pz = 0;
       let pl = Math.sqrt(px * px + py * py);
-      if (pl < 1e-9) {
+      if (pl < PERPENDICULAR_DEGENERATE_BELOW) {
         px = 0;
         py = -u[2];
         pz = u[1];
@@ -331,16 +333,8 @@ function predictedResidual2(ws: IKWorkspace, m: number, e: Float64Array, d: Floa
 function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   const n = ws.nDof;
   const o = ws.options;
-  // Target clamp (Buss 2004; Buss & Kim 2005).
   const e = ws.e;
-  const el2 = e[0] * e[0] + e[1] * e[1] + e[2] * e[2];
-  const cd = ws.clampDistance;
-  if (el2 > cd * cd) {
-    const k = cd / Math.sqrt(el2);
-    e[0] *= k;
-    e[1] *= k;
-    e[2] *= k;
-  }
+  clampTaskError(ws);
   // The bias yields to the limits: each step of this solve that hits a limit
   // halves it (else the bias can keep pushing a joint into its limit while the
   // clamp keeps pulling the foot off the target).
@@ -364,76 +358,101 @@ function jacobianIteration(ws: IKWorkspace, code: number, m: number): number {
   }
   limitStepSize(ws);
   let hits = 0;
-  if (o.resolveSaturated && stepLeavesLimits(ws)) {
-    const locked = ws.locked;
-    const dql = ws.dqLocked;
-    const J = ws.J;
-    const eRem = ws.eRes; // remaining error (biasedStep uses ws.e2 as its own scratch)
-    // Candidate 1: the plain clamped step, and its predicted (linearised) residual.
-    const plain = ws.tmpN2;
-    for (let i = 0; i < n; i++) {
-      const d = ws.dq[i];
-      if (ws.dKind[i] === DOF_BALL) plain[i] = d;
-      else {
-        const v = ws.pose[i] + d;
-        plain[i] = (v < ws.lo[i] ? ws.lo[i] : v > ws.hi[i] ? ws.hi[i] : v) - ws.pose[i];
-      }
-    }
-    const resPlain = predictedResidual2(ws, m, e, plain);
-    const wEff = ws.wEff;
-    const swEff = ws.swEff;
-    for (let i = 0; i < n; i++) {
-      wEff[i] = ws.weight[i];
-      swEff[i] = ws.sqrtWeight[i];
-    }
-    for (let pass = 0; pass < n; pass++) {
-      // Lock the free scalar DOF whose limit the step reaches first (smallest
-      // fraction of the step), at that limit; then re-solve the others.
-      let best = -1;
-      let bestT = Infinity;
-      for (let i = 0; i < n; i++) {
-        if (locked[i] || ws.dKind[i] === DOF_BALL) continue;
-        const d = ws.dq[i];
-        const v = ws.pose[i] + d;
-        let tt: number;
-        if (v < ws.lo[i]) tt = d !== 0 ? (ws.lo[i] - ws.pose[i]) / d : 0;
-        else if (v > ws.hi[i]) tt = d !== 0 ? (ws.hi[i] - ws.pose[i]) / d : 0;
-        else continue;
-        if (tt < bestT) {
-          bestT = tt;
-          best = i;
-        }
-      }
-      if (best < 0) break;
-      {
-        const i = best;
-        const v = ws.pose[i] + ws.dq[i];
-        locked[i] = 1;
-        dql[i] = (v < ws.lo[i] ? ws.lo[i] : ws.hi[i]) - ws.pose[i];
-        wEff[i] = 0;
-        swEff[i] = 0;
-        ws.z[i] = 0;
-        hits++;
-      }
-      // Remaining error after the locked DOFs' (clamped) motion.
-      for (let r = 0; r < m; r++) eRem[r] = e[r];
-      for (let i = 0; i < n; i++) {
-        if (!locked[i]) continue;
-        const d = dql[i];
-        for (let r = 0; r < m; r++) eRem[r] -= J[6 * i + r] * d;
-      }
-      biasedStep(ws, code, m, eRem, hasBias, wEff, swEff);
-      for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = 0;
-      limitStepSize(ws);
-      for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = dql[i];
-      if (!stepLeavesLimits(ws)) break;
-    }
-    locked.fill(0); // `violates` reads the mask: leave it clear for the next iteration
-    // Candidate 2 (re-solved without the saturated DOFs) only where it reaches the target better.
-    if (resPlain < predictedResidual2(ws, m, e, ws.dq)) for (let i = 0; i < n; i++) ws.dq[i] = plain[i];
-  }
+  if (o.resolveSaturated && stepLeavesLimits(ws)) hits += resolveAtLimits(ws, code, m, hasBias);
   hits += applyStep(ws);
   if (hasBias && hits > 0) ws.scalars[S_BIAS_SCALE] *= 0.5;
+  return hits;
+}
+
+/** Target clamp (Buss 2004; Buss & Kim 2005): the position rows of ws.e shortened to ws.clampDistance. */
+function clampTaskError(ws: IKWorkspace): void {
+  const e = ws.e;
+  const el2 = e[0] * e[0] + e[1] * e[1] + e[2] * e[2];
+  const cd = ws.clampDistance;
+  if (el2 > cd * cd) {
+    const k = cd / Math.sqrt(el2);
+    e[0] *= k;
+    e[1] *= k;
+    e[2] *= k;
+  }
+}
+
+/**
+ * ws.dq leaves some joint's range: lock the DOFs it saturates one at a time
+ * and re-solve the others on the remaining error (see jacobianIteration),
+ * then keep whichever of that and the plainly clamped step has the smaller
+ * linearised residual. Returns the DOFs locked.
+ */
+function resolveAtLimits(ws: IKWorkspace, code: number, m: number, hasBias: boolean): number {
+  const n = ws.nDof;
+  const e = ws.e;
+  const locked = ws.locked;
+  const dql = ws.dqLocked;
+  const J = ws.J;
+  const eRem = ws.eRes; // remaining error (biasedStep uses ws.e2 as its own scratch)
+  let hits = 0;
+  // Candidate 1: the plain clamped step, and its predicted (linearised) residual.
+  const plain = ws.tmpN2;
+  for (let i = 0; i < n; i++) {
+    const d = ws.dq[i];
+    if (ws.dKind[i] === DOF_BALL) plain[i] = d;
+    else {
+      const v = ws.pose[i] + d;
+      plain[i] = (v < ws.lo[i] ? ws.lo[i] : v > ws.hi[i] ? ws.hi[i] : v) - ws.pose[i];
+    }
+  }
+  const resPlain = predictedResidual2(ws, m, e, plain);
+  const wEff = ws.wEff;
+  const swEff = ws.swEff;
+  for (let i = 0; i < n; i++) {
+    wEff[i] = ws.weight[i];
+    swEff[i] = ws.sqrtWeight[i];
+  }
+  for (let pass = 0; pass < n; pass++) {
+    // Lock the free scalar DOF whose limit the step reaches first (smallest
+    // fraction of the step), at that limit; then re-solve the others.
+    let best = -1;
+    let bestT = Infinity;
+    for (let i = 0; i < n; i++) {
+      if (locked[i] || ws.dKind[i] === DOF_BALL) continue;
+      const d = ws.dq[i];
+      const v = ws.pose[i] + d;
+      let tt: number;
+      if (v < ws.lo[i]) tt = d !== 0 ? (ws.lo[i] - ws.pose[i]) / d : 0;
+      else if (v > ws.hi[i]) tt = d !== 0 ? (ws.hi[i] - ws.pose[i]) / d : 0;
+      else continue;
+      if (tt < bestT) {
+        bestT = tt;
+        best = i;
+      }
+    }
+    if (best < 0) break;
+    {
+      const i = best;
+      const v = ws.pose[i] + ws.dq[i];
+      locked[i] = 1;
+      dql[i] = (v < ws.lo[i] ? ws.lo[i] : ws.hi[i]) - ws.pose[i];
+      wEff[i] = 0;
+      swEff[i] = 0;
+      ws.z[i] = 0;
+      hits++;
+    }
+    // Remaining error after the locked DOFs' (clamped) motion.
+    for (let r = 0; r < m; r++) eRem[r] = e[r];
+    for (let i = 0; i < n; i++) {
+      if (!locked[i]) continue;
+      const d = dql[i];
+      for (let r = 0; r < m; r++) eRem[r] -= J[6 * i + r] * d;
+    }
+    biasedStep(ws, code, m, eRem, hasBias, wEff, swEff);
+    for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = 0;
+    limitStepSize(ws);
+    for (let i = 0; i < n; i++) if (locked[i]) ws.dq[i] = dql[i];
+    if (!stepLeavesLimits(ws)) break;
+  }
+  locked.fill(0); // stepLeavesLimits reads the mask: leave it clear for the next iteration
+  // Candidate 2 (re-solved without the saturated DOFs) only where it reaches the target better.
+  if (resPlain < predictedResidual2(ws, m, e, ws.dq)) for (let i = 0; i < n; i++) ws.dq[i] = plain[i];
   return hits;
 }
 

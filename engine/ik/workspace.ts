@@ -6,7 +6,7 @@
  */
 import { vec3 } from 'gl-matrix';
 import * as M3 from '../math/mat3';
-import type { LegChain } from '../rig/types';
+import type { ChainJoint, LegChain } from '../rig/types';
 import { DOF_COUNT } from '../rig/types';
 import { AXIS_GENERAL, AXIS_NEGATIVE, DOF_BALL, DOF_ROT, DOF_SLIDE, JOINT_BALL, JOINT_HINGE, JOINT_SLIDER, JOINT_UNIVERSAL } from './layout';
 import { CLAMP_REACH_FRACTION, DEFAULT_OPTIONS, type SolverOptions } from './options';
@@ -93,7 +93,6 @@ export interface IKWorkspace {
   // ---- scratch ----
   /** Jacobian, column per DOF with stride 6 (rows 0–2 position, 3–5 orientation). */
   readonly J: Float64Array;
-  readonly Jw: Float64Array; // weighted copy (stride 6)
   readonly A: Float64Array; // 6×6
   readonly e: Float64Array; // 6
   readonly e2: Float64Array; // 6
@@ -112,8 +111,6 @@ export interface IKWorkspace {
   readonly svdS: Float64Array; // 6
   readonly svdV: Float64Array; // 6×6
   readonly svdA: Float64Array; // n×6
-  readonly savePose: Float64Array;
-  readonly saveQuat: Float64Array;
   readonly target: Float64Array; // 3
   readonly normal: Float64Array; // 3
   readonly errorHistory: Float64Array;
@@ -151,112 +148,30 @@ function axisCode(a: readonly number[]): number {
 export function createWorkspace(chain: LegChain, options: Partial<SolverOptions> = {}): IKWorkspace {
   const nJ = chain.joints.length;
   if (nJ === 0) throw new Error('leg chain has no joints');
-  const n = dofCount(chain);
   let nBall = 0;
   for (const j of chain.joints) if (j.kind === 'ball') nBall++;
-
-  const jKind = new Int32Array(nJ);
-  const jDof0 = new Int32Array(nJ);
-  const jBall = new Int32Array(nJ).fill(-1);
-  const jOffset = new Float64Array(3 * nJ);
-  const jRest = new Float64Array(9 * nJ);
-  const jRestIdentity = new Uint8Array(nJ);
-  const dKind = new Int32Array(n);
-  const dJoint = new Int32Array(n);
-  const dAxis = new Float64Array(3 * n);
-  const dAxisCode = new Int32Array(n).fill(AXIS_GENERAL);
-  const lo = new Float64Array(n).fill(-Infinity);
-  const hi = new Float64Array(n).fill(Infinity);
-  const chainWeight = new Float64Array(n).fill(1);
-  const restPose = new Float64Array(n);
-  const bAxis = new Float64Array(3 * Math.max(nBall, 1));
-  const bSwing = new Float64Array(Math.max(nBall, 1)).fill(Math.PI);
-  const bCosHalfSwing = new Float64Array(Math.max(nBall, 1)).fill(-1);
-  const bTwistMin = new Float64Array(Math.max(nBall, 1)).fill(-Math.PI);
-  const bTwistMax = new Float64Array(Math.max(nBall, 1)).fill(Math.PI);
-  const bLimited = new Uint8Array(Math.max(nBall, 1));
-  const nb1 = Math.max(nBall, 1);
-  const bCosHalfTwistMin = new Float64Array(nb1);
-  const bSinHalfTwistMin = new Float64Array(nb1);
-  const bCosHalfTwistMax = new Float64Array(nb1);
-  const bSinHalfTwistMax = new Float64Array(nb1);
-
+  const ws = allocate(chain, dofCount(chain), nBall, { ...DEFAULT_OPTIONS, ...options });
   let d = 0;
   let b = 0;
   for (let ji = 0; ji < nJ; ji++) {
     const j = chain.joints[ji];
-    const k = DOF_COUNT[j.kind];
-    jDof0[ji] = d;
-    jOffset[3 * ji] = j.offset[0];
-    jOffset[3 * ji + 1] = j.offset[1];
-    jOffset[3 * ji + 2] = j.offset[2];
-    const r = j.rest ?? [0, 0, 0, 1];
-    M3.fromQuat(jRest, 9 * ji, r, 0);
-    jRestIdentity[ji] = r[0] === 0 && r[1] === 0 && r[2] === 0 ? 1 : 0;
-    if (j.kind === 'ball') {
-      jKind[ji] = JOINT_BALL;
-      jBall[ji] = b;
-      const basis = [
-        [1, 0, 0],
-        [0, 1, 0],
-        [0, 0, 1],
-      ];
-      for (let a = 0; a < 3; a++) {
-        dKind[d + a] = DOF_BALL;
-        dJoint[d + a] = ji;
-        dAxis.set(basis[a], 3 * (d + a));
-        chainWeight[d + a] = j.weights?.[a] ?? 1;
-      }
-      if (j.ball) {
-        const ax = normalize3(j.ball.twistAxis);
-        bAxis.set(ax, 3 * b);
-        bSwing[b] = j.ball.swing;
-        bCosHalfSwing[b] = Math.cos(Math.min(j.ball.swing, Math.PI) / 2);
-        bTwistMin[b] = j.ball.twistMin;
-        bTwistMax[b] = j.ball.twistMax;
-        if (!(j.ball.twistMin <= j.ball.twistMax)) throw new Error(`joint ${j.name}: twistMin > twistMax`);
-        bLimited[b] = 1;
-      } else {
-        bAxis.set([0, -1, 0], 3 * b);
-      }
-      const hmin = Math.max(-Math.PI, bTwistMin[b]) / 2;
-      const hmax = Math.min(Math.PI, bTwistMax[b]) / 2;
-      bCosHalfTwistMin[b] = Math.cos(hmin);
-      bSinHalfTwistMin[b] = Math.sin(hmin);
-      bCosHalfTwistMax[b] = Math.cos(hmax);
-      bSinHalfTwistMax[b] = Math.sin(hmax);
-      b++;
-    } else {
-      jKind[ji] = j.kind === 'hinge' ? JOINT_HINGE : j.kind === 'universal' ? JOINT_UNIVERSAL : JOINT_SLIDER;
-      if (j.axes.length < k) throw new Error(`joint ${j.name}: ${j.kind} needs ${k} axes`);
-      for (let a = 0; a < k; a++) {
-        dKind[d + a] = j.kind === 'slider' ? DOF_SLIDE : DOF_ROT;
-        dJoint[d + a] = ji;
-        const ax = normalize3(j.axes[a]);
-        dAxis.set(ax, 3 * (d + a));
-        dAxisCode[d + a] = axisCode(ax);
-        const lim = j.limits?.[a];
-        if (lim) {
-          if (!(lim.min <= lim.max)) throw new Error(`joint ${j.name}: limit min > max`);
-          lo[d + a] = lim.min;
-          hi[d + a] = lim.max;
-        }
-        chainWeight[d + a] = j.weights?.[a] ?? 1;
-        let rv = j.restValues?.[a] ?? 0;
-        rv = Math.min(hi[d + a], Math.max(lo[d + a], rv));
-        restPose[d + a] = rv;
-      }
-    }
-    d += k;
+    placeJoint(ws, j, ji, d);
+    if (j.kind === 'ball') flattenBall(ws, j, ji, d, b++);
+    else flattenAxes(ws, j, ji, d);
+    d += DOF_COUNT[j.kind];
   }
+  applyWeights(ws);
+  applyClamp(ws);
+  resetPose(ws);
+  return ws;
+}
 
-  const opts: SolverOptions = { ...DEFAULT_OPTIONS, ...options };
-  const weight = new Float64Array(n);
-  const sqrtWeight = new Float64Array(n);
-  const maxIt = Math.max(opts.maxIterations, 1);
-  const errorHistory = new Float64Array(maxIt + 1);
+/** Every buffer of the workspace, filled with the values of a free joint (no limits, weight 1, identity rest). */
+function allocate(chain: LegChain, n: number, nBall: number, opts: SolverOptions): IKWorkspace {
+  const nJ = chain.joints.length;
+  const nb1 = Math.max(nBall, 1);
   const pose = new Float64Array(n);
-  const quat = new Float64Array(4 * Math.max(nBall, 1));
+  const quat = new Float64Array(4 * nb1);
   const result: SolveResult = {
     pose,
     iterations: 0,
@@ -269,38 +184,38 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
   };
   const rootRot = new Float64Array(9);
   rootRot[0] = rootRot[4] = rootRot[8] = 1;
-  const ws: IKWorkspace = {
+  return {
     chain,
     nJoints: nJ,
     nDof: n,
     nBall,
     options: opts,
-    jKind,
-    jDof0,
-    jBall,
-    jOffset,
-    jRest,
-    jRestIdentity,
-    dKind,
-    dJoint,
-    dAxis,
-    dAxisCode,
-    lo,
-    hi,
-    chainWeight,
-    weight,
-    sqrtWeight,
-    restPose,
-    bAxis,
-    bSwing,
-    bCosHalfSwing,
-    bTwistMin,
-    bTwistMax,
-    bCosHalfTwistMin,
-    bSinHalfTwistMin,
-    bCosHalfTwistMax,
-    bSinHalfTwistMax,
-    bLimited,
+    jKind: new Int32Array(nJ),
+    jDof0: new Int32Array(nJ),
+    jBall: new Int32Array(nJ).fill(-1),
+    jOffset: new Float64Array(3 * nJ),
+    jRest: new Float64Array(9 * nJ),
+    jRestIdentity: new Uint8Array(nJ),
+    dKind: new Int32Array(n),
+    dJoint: new Int32Array(n),
+    dAxis: new Float64Array(3 * n),
+    dAxisCode: new Int32Array(n).fill(AXIS_GENERAL),
+    lo: new Float64Array(n).fill(-Infinity),
+    hi: new Float64Array(n).fill(Infinity),
+    chainWeight: new Float64Array(n).fill(1),
+    weight: new Float64Array(n),
+    sqrtWeight: new Float64Array(n),
+    restPose: new Float64Array(n),
+    bAxis: new Float64Array(3 * nb1),
+    bSwing: new Float64Array(nb1).fill(Math.PI),
+    bCosHalfSwing: new Float64Array(nb1).fill(-1),
+    bTwistMin: new Float64Array(nb1).fill(-Math.PI),
+    bTwistMax: new Float64Array(nb1).fill(Math.PI),
+    bCosHalfTwistMin: new Float64Array(nb1),
+    bSinHalfTwistMin: new Float64Array(nb1),
+    bCosHalfTwistMax: new Float64Array(nb1),
+    bSinHalfTwistMax: new Float64Array(nb1),
+    bLimited: new Uint8Array(nb1),
     sole: Float64Array.from(chain.sole),
     soleNormal: Float64Array.from(normalize3(chain.soleNormal)),
     toe: chain.toe ? Float64Array.from(chain.toe.offset) : null,
@@ -321,7 +236,6 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     footUp: new Float64Array(3),
     localRot: new Float64Array(9),
     J: new Float64Array(6 * n),
-    Jw: new Float64Array(6 * n),
     A: new Float64Array(36),
     e: new Float64Array(6),
     e2: new Float64Array(6),
@@ -339,18 +253,76 @@ export function createWorkspace(chain: LegChain, options: Partial<SolverOptions>
     svdS: new Float64Array(6),
     svdV: new Float64Array(36),
     svdA: new Float64Array(6 * n),
-    savePose: new Float64Array(n),
-    saveQuat: new Float64Array(quat.length),
     target: new Float64Array(3),
     normal: new Float64Array(3),
-    errorHistory,
+    errorHistory: new Float64Array(Math.max(opts.maxIterations, 1) + 1),
     scalars: new Float64Array(8),
     result,
   };
-  applyWeights(ws);
-  applyClamp(ws);
-  resetPose(ws);
-  return ws;
+}
+
+/** Joint ji's first DOF, offset and rest rotation. */
+function placeJoint(ws: IKWorkspace, j: ChainJoint, ji: number, d: number): void {
+  ws.jDof0[ji] = d;
+  ws.jOffset[3 * ji] = j.offset[0];
+  ws.jOffset[3 * ji + 1] = j.offset[1];
+  ws.jOffset[3 * ji + 2] = j.offset[2];
+  const r = j.rest ?? [0, 0, 0, 1];
+  M3.fromQuat(ws.jRest, 9 * ji, r, 0);
+  ws.jRestIdentity[ji] = r[0] === 0 && r[1] === 0 && r[2] === 0 ? 1 : 0;
+}
+
+/** Ball joint ji (ball b): three rotation-vector DOFs about its rest frame's axes, and its cone and twist limits. */
+function flattenBall(ws: IKWorkspace, j: ChainJoint, ji: number, d: number, b: number): void {
+  ws.jKind[ji] = JOINT_BALL;
+  ws.jBall[ji] = b;
+  for (let a = 0; a < 3; a++) {
+    ws.dKind[d + a] = DOF_BALL;
+    ws.dJoint[d + a] = ji;
+    ws.dAxis[3 * (d + a) + a] = 1;
+    ws.chainWeight[d + a] = j.weights?.[a] ?? 1;
+  }
+  if (j.ball) {
+    ws.bAxis.set(normalize3(j.ball.twistAxis), 3 * b);
+    ws.bSwing[b] = j.ball.swing;
+    ws.bCosHalfSwing[b] = Math.cos(Math.min(j.ball.swing, Math.PI) / 2);
+    ws.bTwistMin[b] = j.ball.twistMin;
+    ws.bTwistMax[b] = j.ball.twistMax;
+    if (!(j.ball.twistMin <= j.ball.twistMax)) throw new Error(`joint ${j.name}: twistMin > twistMax`);
+    ws.bLimited[b] = 1;
+  } else {
+    ws.bAxis.set([0, -1, 0], 3 * b);
+  }
+  // cos/sin of the half twist bounds: clampBall's in-range test without an atan2.
+  const hmin = Math.max(-Math.PI, ws.bTwistMin[b]) / 2;
+  const hmax = Math.min(Math.PI, ws.bTwistMax[b]) / 2;
+  ws.bCosHalfTwistMin[b] = Math.cos(hmin);
+  ws.bSinHalfTwistMin[b] = Math.sin(hmin);
+  ws.bCosHalfTwistMax[b] = Math.cos(hmax);
+  ws.bSinHalfTwistMax[b] = Math.sin(hmax);
+}
+
+/** Hinge, universal or slider joint ji: one DOF per axis, with its limits, weight and rest value. */
+function flattenAxes(ws: IKWorkspace, j: ChainJoint, ji: number, d: number): void {
+  const k = DOF_COUNT[j.kind];
+  ws.jKind[ji] = j.kind === 'hinge' ? JOINT_HINGE : j.kind === 'universal' ? JOINT_UNIVERSAL : JOINT_SLIDER;
+  if (j.axes.length < k) throw new Error(`joint ${j.name}: ${j.kind} needs ${k} axes`);
+  for (let a = 0; a < k; a++) {
+    const i = d + a;
+    ws.dKind[i] = j.kind === 'slider' ? DOF_SLIDE : DOF_ROT;
+    ws.dJoint[i] = ji;
+    const ax = normalize3(j.axes[a]);
+    ws.dAxis.set(ax, 3 * i);
+    ws.dAxisCode[i] = axisCode(ax);
+    const lim = j.limits?.[a];
+    if (lim) {
+      if (!(lim.min <= lim.max)) throw new Error(`joint ${j.name}: limit min > max`);
+      ws.lo[i] = lim.min;
+      ws.hi[i] = lim.max;
+    }
+    ws.chainWeight[i] = j.weights?.[a] ?? 1;
+    ws.restPose[i] = Math.min(ws.hi[i], Math.max(ws.lo[i], j.restValues?.[a] ?? 0));
+  }
 }
 
 /** Recompute effective weights from options.weights (or the chain's). */
