@@ -10,9 +10,12 @@
  * - Other ground: each swing climbs or descends no more than RISE_PER_SWING
  *   of the reach, measured on the ground's upper envelope so that a narrow
  *   gap (which is stepped over, not into) does not count as a drop.
+ * - The planted feet: no stance foot is left behind further than the leg can
+ *   comfortably reach when it lifts off (stancePace).
  * The rule of thumb behind RISE_PER_SWING: people climb code stairs one tread
  * a step, two risers a swing (common practice, no source).
  */
+import { COMFORT_MAX } from './reach';
 import type { Walk } from './walk-state';
 
 /** Largest height change one swing may climb or descend, as a share of the shortest leg's reach. */
@@ -36,8 +39,53 @@ const envelope = new Float64Array(MAX_SAMPLES);
 const edgeAt = new Float64Array(MAX_SAMPLES);
 const edgeRise = new Float64Array(MAX_SAMPLES);
 
-/** The pace the ground ahead asks for, between the rearmost hip and a stride and a half past the front feet. */
+/** Stance time left below this share of the cycle: the foot is about to lift and does not hold the body back. */
+const MIN_STANCE_LEFT = 0.05;
+
+/**
+ * The pace the planted feet allow: each stance foot must still be within COMFORT_MAX of its reach from the
+ * hip when it lifts off. Steps shortened for the ground (treads, at the foot of a stair run) leave feet
+ * planted behind a body that then speeds up again; without this the trailing leg was drawn out straight.
+ * A foot already past that range is left out: it is about to lift, and stopping the body would not help it.
+ */
+function stancePace(t: Walk): number {
+  const T = t.gait.cycleTime;
+  const beta = t.gait.dutyFactor;
+  const v = t.gait.speed;
+  const c = Math.cos(t.heading);
+  const s = Math.sin(t.heading);
+  let pace = 1;
+  for (let i = 0; i < t.legs; i++) {
+    if (!t.stance[i]) continue;
+    const left = (beta - t.phase[i]) * T;
+    if (left < MIN_STANCE_LEFT * T) continue;
+    const leg = t.rig.legs[i];
+    const hx = leg.hip[0];
+    const hz = leg.hip[2];
+    const dx = t.plant[3 * i] - (t.bodyPos[0] + c * hx + s * hz);
+    const dz = t.plant[3 * i + 2] - (t.bodyPos[2] - s * hx + c * hz);
+    const along = s * dx + c * dz;
+    const across = c * dx - s * dz;
+    const dy = t.bodyPos[1] + leg.hip[1] - t.plant[3 * i + 1];
+    const reach = COMFORT_MAX * leg.chain.reach;
+    const room = reach * reach - across * across - dy * dy;
+    const ahead = (room > 0 ? Math.sqrt(room) : 0) + along;
+    if (ahead <= 0) continue;
+    const p = ahead / (v * left);
+    if (p < pace) pace = p;
+  }
+  return pace < SLOWEST_PACE ? SLOWEST_PACE : pace;
+}
+
+/** The pace the ground ahead and the planted feet ask for, whichever is slower. */
 export function terrainPace(t: Walk): number {
+  const ground = groundPace(t);
+  const feet = stancePace(t);
+  return feet < ground ? feet : ground;
+}
+
+/** The pace the ground ahead asks for, between the rearmost hip and a stride and a half past the front feet. */
+function groundPace(t: Walk): number {
   const stride = t.gait.stride;
   let rear = Infinity;
   let front = -Infinity;
