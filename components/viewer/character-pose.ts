@@ -9,6 +9,10 @@
  *   local_m = (Rw_parent)⁻¹ · D_m · Rw_m
  * with Rw the rest rotations in the scene's space (glTF 2.0 §3.5.3: world = parent · local), so joints between
  * mapped ones (and the end joint) ride along at rest. Nothing is allocated per frame.
+ *
+ * The rig is in metres with the character's unit fix applied (a file in centimetres is scaled by 0.01), the mesh in
+ * the file's own units: the scene is scaled by the ratio of the rig's lengths to the same lengths between the
+ * bones (segments inside each leg, and hip to hip), which is the unit fix, read back without being told.
  */
 import * as THREE from 'three';
 import type { Rig } from '../../engine/gait/rig';
@@ -61,9 +65,12 @@ export function bindCharacter(scene: THREE.Object3D, rig: Rig, replayJointOffset
   };
 
   const joints: BoundJoint[] = [];
-  const origin = new THREE.Vector3();
+  const hipsInScene: THREE.Vector3[] = [];
+  let rigLength = 0;
+  let sceneLength = 0;
   for (let i = 0; i < rig.legs.length; i++) {
     const leg = rig.legs[i];
+    let previous: THREE.Vector3 | null = null;
     for (let j = 0; j < leg.chain.joints.length; j++) {
       const cj = leg.chain.joints[j];
       const bone = cj.skeletonJoint !== undefined ? bones[cj.skeletonJoint] : undefined;
@@ -71,11 +78,26 @@ export function bindCharacter(scene: THREE.Object3D, rig: Rig, replayJointOffset
       if (cj.kind === 'slider') return { ok: false, reason: `The leg joint "${cj.name}" slides; the mesh view poses turning joints only, so the walk is drawn as a skeleton.` };
       const rest = restInScene(bone);
       const parent = bone.parent ? restInScene(bone.parent).q : new THREE.Quaternion();
-      if (j === 0) origin.add(rest.p.clone().sub(new THREE.Vector3(...leg.hip)));
+      if (j === 0) hipsInScene.push(rest.p);
+      if (previous) {
+        rigLength += Math.hypot(cj.offset[0], cj.offset[1], cj.offset[2]);
+        sceneLength += rest.p.distanceTo(previous);
+      }
+      previous = rest.p;
       joints.push({ bone, slot: replayJointOffset[i] + j, parentRestInverse: parent.invert(), rest: rest.q });
     }
   }
-  // O: where the body origin sits in rest space (each hip socket minus its offset on the body, averaged).
+  for (let i = 1; i < rig.legs.length; i++) {
+    rigLength += new THREE.Vector3(...rig.legs[i].hip).distanceTo(new THREE.Vector3(...rig.legs[0].hip));
+    sceneLength += hipsInScene[i].distanceTo(hipsInScene[0]);
+  }
+  const ratio = rigLength > 0 && sceneLength > 0 ? rigLength / sceneLength : 1;
+  // Within rounding of 1 the file is in metres already: leave the scene as it is.
+  const unitScale = Math.abs(ratio - 1) > 1e-6 ? ratio : 1;
+  scene.scale.multiplyScalar(unitScale);
+  // O: where the body origin sits in rest space, metres (each hip socket minus its offset on the body, averaged).
+  const origin = new THREE.Vector3();
+  rig.legs.forEach((leg, i) => origin.add(hipsInScene[i].clone().multiplyScalar(unitScale).sub(new THREE.Vector3(...leg.hip))));
   origin.multiplyScalar(1 / rig.legs.length);
 
   const carrier = new THREE.Group();
