@@ -5,6 +5,7 @@
 import { LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { SolverMethod } from '../../engine/ik/options';
 import { fieldMessages } from '../../schemas/errors';
+import { setupIssueSentence, type IssueLike } from '../../engine/gait/setup-problems';
 
 export interface NumberField {
   path: string;
@@ -159,9 +160,18 @@ export function candidateOf(d: Draft): unknown {
 
 /** The valid setup, or the field messages (keyed by path, e.g. "gait.dutyFactor"). */
 export function checkDraft(d: Draft): { setup: LegSetup; errors: null } | { setup: null; errors: Record<string, string> } {
-  const r = LegSetupSchema.safeParse(candidateOf(d));
+  const candidate = candidateOf(d);
+  const r = LegSetupSchema.safeParse(candidate);
   if (r.success) return { setup: r.data, errors: null };
-  const errors = fieldMessages(r.error.issues);
+  // A length or count over its limit says so in words with its value (and, far over, asks about centimetres); angles are said in degrees below.
+  const inDegreesPaths = new Set(ALL_NUMBERS.filter((f) => f.degrees).map((f) => f.path));
+  const errors = fieldMessages(
+    r.error.issues.map((i) =>
+      (i.code === 'too_big' || i.code === 'too_small') && !inDegreesPaths.has(i.path.join('.'))
+        ? { ...i, message: setupIssueSentence(i as IssueLike, i.path.reduce<unknown>((v, k) => (v && typeof v === 'object' ? (v as Record<PropertyKey, unknown>)[k as string] : undefined), candidate)) }
+        : i,
+    ),
+  );
   for (const f of ALL_NUMBERS) if (f.degrees && errors[f.path]) errors[f.path] = inDegrees(errors[f.path]);
   // Timing errors land on the one value field.
   for (const k of Object.keys(errors)) if (k.startsWith('gait.timing.') && k !== 'gait.timing.value') errors['gait.timing.value'] ??= errors[k];
