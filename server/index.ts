@@ -5,7 +5,7 @@ import { systemClock } from './clock';
 import { openDatabase, migrateToLatest, type Db } from './db';
 import { packageVersion, readConfig, type ServerConfig } from './config';
 import type { Mailer } from './services/mail';
-import { startLocalPayments, type LocalPayments } from './fakes/payments/connect';
+import type { PaymentsDeps } from './deps';
 import { openJobRunner } from './jobs';
 import { removeIncomingFiles } from './services/character-files';
 
@@ -13,8 +13,8 @@ export interface RunningServer {
   server: Server;
   db: Db;
   url: string;
-  /** The local payment fake's address (its checkout pages live there). */
-  paymentsUrl: string;
+  /** Where the payment service sends its webhook to this server (on loopback when listening on every address). */
+  webhookUrl: string;
   close(): Promise<void>;
 }
 
@@ -22,16 +22,18 @@ export interface ServerParts {
   mailer: Mailer;
   localInboxUrl?: string;
   logRequests?: boolean;
-  /** The payment service; when omitted a local fake is started here and stopped with the server. */
-  payments?: LocalPayments;
+  /** The payment service (start/local-payments.ts starts the local stand-in). */
+  payments: PaymentsDeps;
 }
 
-/** Opens the database, migrates it, and listens. Used by `npm start` and by the browser tests. */
+/**
+ * Opens the database, migrates it, and listens. What runs around it (seeding, the local stand-ins for mail and
+ * payments) is started by the launchers in start/.
+ */
 export async function startServer(config: ServerConfig, parts: ServerParts): Promise<RunningServer> {
   const db = openDatabase(config.databaseFile);
   await migrateToLatest(db);
   await removeIncomingFiles(config.dataDir); // temporary files of uploads a crash interrupted
-  const payments = parts.payments ?? (await startLocalPayments({ stateFile: config.paymentsFile }));
   // Before serving: jobs a crash left running are marked failed, queued ones start again.
   // REDIS_URL: tasks go to `npm run worker` processes over BullMQ; otherwise to threads in this process.
   const jobs = await openJobRunner({ db, clock: systemClock, redisUrl: process.env.REDIS_URL });
@@ -51,7 +53,7 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
     mailer: parts.mailer,
     publicUrl: () => config.publicUrl ?? listenUrl,
     localInboxUrl: parts.localInboxUrl,
-    payments: payments.deps,
+    payments: parts.payments,
     jobs,
   });
   const server = await new Promise<Server>((resolve, reject) => {
@@ -62,32 +64,15 @@ export async function startServer(config: ServerConfig, parts: ServerParts): Pro
   const shownHost = config.host === '0.0.0.0' || config.host === '127.0.0.1' ? 'localhost' : config.host;
   listenUrl = `http://${shownHost}:${port}`;
   const loopback = config.host === '0.0.0.0' || config.host === 'localhost' ? '127.0.0.1' : config.host;
-  payments.fake.setWebhookUrl(`http://${loopback}:${port}/api/billing/webhook`);
   return {
     server,
     db,
     url: listenUrl,
-    paymentsUrl: payments.fake.url,
+    webhookUrl: `http://${loopback}:${port}/api/billing/webhook`,
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
-      if (!parts.payments) await payments.fake.stop();
       await jobs.close();
       await db.destroy();
     },
   };
-}
-
-if (require.main === module) {
-  const config = readConfig();
-  if (!config.smtp) {
-    console.error('server/index.ts needs SMTP_HOST for mail; `npm start` runs a local mail catcher instead.');
-    process.exit(1);
-  }
-  import('./services/mail')
-    .then(({ smtpMailer }) => startServer(config, { mailer: smtpMailer(config.smtp!), logRequests: true }))
-    .then(({ url }) => console.log(`Treadle is running at ${url}`))
-    .catch((err) => {
-      console.error(err);
-      process.exit(1);
-    });
 }

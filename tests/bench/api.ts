@@ -36,13 +36,13 @@ interface Figures {
 }
 
 async function serve(): Promise<void> {
-  const { startServer } = await import('../../server/index');
+  const { startWithLocalPayments } = await import('../../start/local-payments');
   const { seedDemoStudio } = await import('../../seeds/demo-studio');
   const { startMailCatcher } = await import('../../server/fakes/mail-catcher');
   const { smtpMailer } = await import('../../server/services/mail');
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-bench-api-'));
   const mail = await startMailCatcher();
-  const running = await startServer(
+  const running = await startWithLocalPayments(
     {
       port: 0,
       host: '127.0.0.1',

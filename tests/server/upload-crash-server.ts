@@ -4,11 +4,11 @@
  * `npm start` (TREADLE_DB, TREADLE_DATA_DIR, PORT=0), mail dropped. Prints "listening <url>" once it serves.
  */
 import { readConfig } from '../../server/config';
-import { startServer } from '../../server/index';
+import { startWithLocalPayments } from '../../start/local-payments';
 
 async function main() {
   const config = readConfig({ ...process.env, PORT: '0', HOST: '127.0.0.1' });
-  const running = await startServer(config, { mailer: { send: async () => undefined } });
+  const running = await startWithLocalPayments(config, { mailer: { send: async () => undefined } });
   process.stdout.write(`listening ${running.url.replace('localhost', '127.0.0.1')}\n`);
 }
 

@@ -9,7 +9,7 @@ import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { testApp, type TestApp } from '../support/test-app';
-import { startServer } from '../../server/index';
+import { startWithLocalPayments } from '../../start/local-payments';
 import { characterFilePath } from '../../server/services/character-files';
 import { closeImportPool } from '../../server/services/gltf-import-pool';
 import { storeCharacterUpload } from '../../server/services/gltf-import-store';
@@ -327,8 +327,8 @@ describe('3. a committed character always has its file', () => {
     fs.mkdirSync(files, { recursive: true });
     const kept = `${'a'.repeat(64)}.glb`;
     for (const name of ['.incoming-1.glb', '.incoming-2.glb', kept]) fs.writeFileSync(path.join(files, name), 'x');
-    const running = await startServer(
-      { port: 0, host: '127.0.0.1', databaseFile: path.join(dir, 'db.sqlite'), dataDir: path.join(dir, 'files'), webDir: path.join(dir, 'no-web'), sessionSecret: 's', secureCookies: false, inboxPort: 0 } as Parameters<typeof startServer>[0],
+    const running = await startWithLocalPayments(
+      { port: 0, host: '127.0.0.1', databaseFile: path.join(dir, 'db.sqlite'), dataDir: path.join(dir, 'files'), webDir: path.join(dir, 'no-web'), sessionSecret: 's', secureCookies: false, inboxPort: 0 } as Parameters<typeof startWithLocalPayments>[0],
       { mailer: { send: async () => undefined } as never },
     );
     try {

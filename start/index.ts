@@ -1,12 +1,12 @@
-import { readConfig } from './config';
-import { openDatabase, migrateToLatest } from './db';
-import { ensureWebBuild } from './web-build';
-import { startServer } from './index';
-import { assertRedisReachable, shownUrl } from './jobs/redis';
-import { smtpMailer } from './services/mail';
-import { startMailCatcher } from './fakes/mail-catcher';
-import { startLocalPayments } from './fakes/payments/connect';
+import { readConfig } from '../server/config';
+import { openDatabase, migrateToLatest } from '../server/db';
+import { ensureWebBuild } from '../server/web-build';
+import { assertRedisReachable, shownUrl } from '../server/jobs/redis';
+import { smtpMailer } from '../server/services/mail';
+import { startMailCatcher } from '../server/fakes/mail-catcher';
+import { startLocalPayments } from '../server/fakes/payments/connect';
 import { databaseIsEmpty, seedDemoStudio, DEMO_PASSWORD, DEMO_USERS } from '../seeds/demo-studio';
+import { startWithLocalPayments } from './local-payments';
 
 /** `npm start`: migrate, seed an empty database with the demo studio, export the web app if stale, listen. */
 async function main() {
@@ -40,7 +40,7 @@ async function main() {
   // The payment fake first: Treadle's webhook address is given to it once Treadle listens.
   // Its own SQLite file (PAYMENTS_DB, data/payments.sqlite by default), so subscriptions paid in it survive a restart.
   const payments = await startLocalPayments({ port: Number(process.env.PAYMENTS_PORT ?? 0), stateFile: config.paymentsFile });
-  const running = await startServer(config, { mailer, localInboxUrl, payments, logRequests: process.env.LOG_REQUESTS === '1' });
+  const running = await startWithLocalPayments(config, { mailer, localInboxUrl, payments, logRequests: process.env.LOG_REQUESTS === '1' });
   console.log(`\nTreadle is running at ${running.url}\n`);
   if (process.env.REDIS_URL) console.log(`Trials and dial-ins are queued on Redis at ${shownUrl(process.env.REDIS_URL)}: start \`npm run worker\` on each machine that should run them.`);
   console.log(`Payments (local test stand-in, no real money moves): ${payments.fake.url}`);
