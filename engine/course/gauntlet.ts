@@ -1,6 +1,6 @@
 /**
  * The gauntlet: the standard courses every rig must cross. Recipes of our own
- * (lengths, rubble seed, mixed order); the stair geometry is IBC 2021
+ * (lengths, rubble seed, mixed order, the turn); the stair geometry is IBC 2021
  * §1011.5.2 (178 mm riser, 279 mm tread), the gentle ramp the 1:12 slope a
  * building code allows for ramps (common practice, no source).
  */
@@ -8,6 +8,15 @@ import { CODE_STAIRS, type CourseSpecInput } from './generators';
 
 const LEAD = 3;
 const RAMP_1_IN_12_DEG = (Math.atan(1 / 12) * 180) / Math.PI;
+/** The turning course: a loop of this radius, m, through this many points, on flat ground with room for the legs. */
+export const TURN_RADIUS = 2;
+const TURN_POINTS = 16;
+const TURN_CENTRE_Z = 3.5;
+
+/** Control points of a circle of radius r about (0, cz), from its point nearest the start of the course (x 0, z cz − r), setting off toward +X. */
+export function circlePoints(r: number, n: number, cz: number): { x: number; z: number }[] {
+  return Array.from({ length: n }, (_, k) => ({ x: r * Math.sin((2 * Math.PI * k) / n), z: cz - r * Math.cos((2 * Math.PI * k) / n) }));
+}
 
 export interface GauntletCourse {
   name: string;
@@ -57,6 +66,14 @@ export const GAUNTLET: readonly GauntletCourse[] = [
         { kind: 'trench', length: 1.2, width: 0.2, depth: 0.3 },
         { kind: 'flat', length: LEAD },
       ],
+    },
+  },
+  {
+    name: 'turn: 2 m circle',
+    recipe: {
+      width: 2 * TURN_CENTRE_Z,
+      segments: [{ kind: 'flat', length: 2 * TURN_CENTRE_Z }],
+      walkPath: { points: circlePoints(TURN_RADIUS, TURN_POINTS, TURN_CENTRE_Z), closed: true },
     },
   },
 ];

@@ -357,6 +357,7 @@ function moveBody(w: Walk, dt: number): void {
 /** Cycles over which the body may go from standing to its top speed, and to its top turn rate (common practice, no source). */
 const SPEED_RAMP_CYCLES = 2;
 const TURN_RAMP_CYCLES = 4;
+const BRAKE_SHARE = 2;
 
 /** Velocity mode: the velocity and turn rate move toward the command, within the top speed, ramping over a few cycles. */
 function followCommand(w: Walk, dt: number): void {
@@ -375,7 +376,11 @@ function followCommand(w: Walk, dt: number): void {
     wz *= k;
     wt *= k;
   }
-  const dvMax = (vTop / (SPEED_RAMP_CYCLES * g.cycleTime)) * dt;
+  if (wt > wTop) wt = wTop;
+  else if (wt < -wTop) wt = -wTop;
+  // Slowing down is allowed twice as fast as speeding up.
+  const braking = wx * wx + wz * wz < m.vx * m.vx + m.vz * m.vz ? BRAKE_SHARE : 1;
+  const dvMax = ((braking * vTop) / (SPEED_RAMP_CYCLES * g.cycleTime)) * dt;
   const dx = wx - m.vx;
   const dz = wz - m.vz;
   const dv = sqrt(dx * dx + dz * dz);
@@ -386,7 +391,7 @@ function followCommand(w: Walk, dt: number): void {
     m.vx = wx;
     m.vz = wz;
   }
-  const dwMax = (wTop / (TURN_RAMP_CYCLES * g.cycleTime)) * dt;
+  const dwMax = (((abs(wt) < abs(m.turnRate) ? BRAKE_SHARE : 1) * wTop) / (TURN_RAMP_CYCLES * g.cycleTime)) * dt;
   const dw = wt - m.turnRate;
   m.turnRate = dw > dwMax ? m.turnRate + dwMax : dw < -dwMax ? m.turnRate - dwMax : wt;
 }

@@ -236,10 +236,13 @@ export function createDrivenWalk(rig: Rig, setup: unknown, ground: Heightfield |
   const alphaNow = () => {
     const behind = gameTime - (walk.frame - 1) * h;
     const a = behind / h;
-    return a < 0 ? 0 : a > 1 ? 1 : a;
+    // A game clock summed from frame times lands on a step's time only to rounding: that is the step itself.
+    return a < 0 ? 0 : a > 1 - 1e-9 ? 1 : a;
   };
   const lerp3 = (a: Float64Array, b: Float64Array, o: number, t: number, out: Float64Array) => {
-    for (let c = 0; c < 3; c++) out[c] = a[o + c] + (b[o + c] - a[o + c]) * t;
+    // At the ends the step's own numbers, not a blend that rounds them.
+    if (t >= 1) for (let c = 0; c < 3; c++) out[c] = b[o + c];
+    else for (let c = 0; c < 3; c++) out[c] = a[o + c] + (b[o + c] - a[o + c]) * t;
     return out;
   };
 
