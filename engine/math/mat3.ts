@@ -5,31 +5,6 @@
  * column-major mat3. The leg IK keeps its frames this way.
  */
 
-/** out ← a · b. */
-export function multiply(out: Float64Array, o: number, a: ArrayLike<number>, ao: number, b: ArrayLike<number>, bo: number): void {
-  const b00 = b[bo], b01 = b[bo + 1], b02 = b[bo + 2];
-  const b10 = b[bo + 3], b11 = b[bo + 4], b12 = b[bo + 5];
-  const b20 = b[bo + 6], b21 = b[bo + 7], b22 = b[bo + 8];
-  for (let r = 0; r < 9; r += 3) {
-    const a0 = a[ao + r];
-    const a1 = a[ao + r + 1];
-    const a2 = a[ao + r + 2];
-    out[o + r] = a0 * b00 + a1 * b10 + a2 * b20;
-    out[o + r + 1] = a0 * b01 + a1 * b11 + a2 * b21;
-    out[o + r + 2] = a0 * b02 + a1 * b12 + a2 * b22;
-  }
-}
-
-/** out ← m · v (v and out 3-vectors). */
-export function transformVec3(out: Float64Array | number[], o: number, m: ArrayLike<number>, mo: number, v: ArrayLike<number>, vo: number): void {
-  const x = v[vo];
-  const y = v[vo + 1];
-  const z = v[vo + 2];
-  out[o] = m[mo] * x + m[mo + 1] * y + m[mo + 2] * z;
-  out[o + 1] = m[mo + 3] * x + m[mo + 4] * y + m[mo + 5] * z;
-  out[o + 2] = m[mo + 6] * x + m[mo + 7] * y + m[mo + 8] * z;
-}
-
 /** out ← the rotation of quaternion q[qo..qo+3] ([x, y, z, w], normalised first; a zero quaternion gives the identity). */
 export function fromQuat(out: Float64Array, o: number, q: ArrayLike<number>, qo: number): void {
   let x = q[qo];
