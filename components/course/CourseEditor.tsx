@@ -24,6 +24,8 @@ import { courseFrame } from './frame';
 import { rampRange } from './ramp';
 import { RampLegend } from './RampLegend';
 import { courseFigures } from './figures';
+import type { WalkPath } from '../../engine/course/walk-path';
+import { WalkPathEditor, pathWithPointAdded, straightPath } from './WalkPathEditor';
 
 export interface CourseEditorProps {
   detail: CourseDetail;
@@ -52,6 +54,10 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   const [brush, setBrush] = useState<BrushSettings>({ kind: 'raise', radius: 0.2, strength: 0.5 });
   // Paint mode: off on a phone so a swipe over the map scrolls; on at a desk, where the mouse paints.
   const [paint, setPaint] = useState(wide);
+  // Path mode: a drag on the map moves the walk path's points instead of sculpting or scrolling.
+  const [pathMode, setPathMode] = useState(false);
+  const [walkPath, setWalkPath] = useState<WalkPath | undefined>(() => hf.walkPath);
+  const [savedPath, setSavedPath] = useState(() => JSON.stringify(hf.walkPath ?? null));
   const [baseVersion, setBaseVersion] = useState(detail.course.version);
   const [savedPosition, setSavedPosition] = useState(0);
   const [savedName, setSavedName] = useState(detail.course.name);
@@ -65,7 +71,9 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   const viewport = useRef<ScrollView>(null);
   const atStart = useRef(false);
 
-  const dirty = history.position !== savedPosition || name.trim() !== savedName;
+  const pathDirty = JSON.stringify(walkPath ?? null) !== savedPath;
+  const dirty = history.position !== savedPosition || name.trim() !== savedName || pathDirty;
+  const withPath = () => encodeCourse({ ...hf, walkPath });
 
   const redraw = useCallback((now = false) => {
     if (now || typeof requestAnimationFrame === 'undefined') {
@@ -102,7 +110,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   }
 
   async function save() {
-    const update = { baseVersion, encoding: encodeCourse(hf), ...(name.trim() !== savedName ? { name } : {}) };
+    const update = { baseVersion, encoding: withPath(), ...(name.trim() !== savedName ? { name } : {}) };
     const checked = courseUpdateSchema.safeParse(update);
     if (!checked.success) {
       setFieldErrors(fieldMessages(checked.error.issues));
@@ -117,6 +125,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
       setBaseVersion(saved.course.version);
       setSavedPosition(position);
       setSavedName(saved.course.name);
+      setSavedPath(JSON.stringify(update.encoding.walkPath ?? null));
       setStatus(`Saved as version ${saved.course.version}.`);
     } catch (err) {
       if (err instanceof ApiError && err.code === COURSE_VERSION_CONFLICT) setConflict(err.message);
@@ -138,6 +147,8 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
     setSavedPosition(0);
     setSavedName(fresh.course.name);
     setName(fresh.course.name);
+    setWalkPath(next.walkPath);
+    setSavedPath(JSON.stringify(next.walkPath ?? null));
     setConflict(null);
     setStatus(`Reloaded version ${fresh.course.version}.`);
     redraw(true);
@@ -172,32 +183,74 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
           message={conflict}
           suggestedName={`${name.trim() || detail.course.name} (copy)`.slice(0, 80)}
           onReload={reload}
-          onSaveCopy={(copyName) => onSaveCopy(copyName, encodeCourse(hf))}
+          onSaveCopy={(copyName) => onSaveCopy(copyName, withPath())}
         />
       ) : null}
       {problem ? <Notice message={problem} /> : null}
       {fieldErrors['encoding.heights'] || fieldErrors.encoding ? <Notice message={fieldErrors['encoding.heights'] ?? fieldErrors.encoding} /> : null}
+      {Object.entries(fieldErrors).filter(([k]) => k.startsWith('encoding.walkPath')).slice(0, 1).map(([k, m]) => (
+        <Notice key={k} message={`Walk path: ${m}`} />
+      ))}
     </>
   );
 
   const map = frame ? (
+    <View style={{ width: frame.width, height: frame.height }}>
     <HeightMap
       hf={hf}
       frame={frame}
       revision={revision}
       lo={range.lo}
       hi={range.hi}
-      brushRadius={mayEdit && paint ? brush.radius : undefined}
-      onStroke={mayEdit && paint ? onStroke : undefined}
-      label={`Height map of ${detail.course.name}${mayEdit && paint ? '; drag to sculpt' : ''}`}
+      brushRadius={mayEdit && paint && !pathMode ? brush.radius : undefined}
+      onStroke={mayEdit && paint && !pathMode ? onStroke : undefined}
+      label={`Height map of ${detail.course.name}${mayEdit && paint && !pathMode ? '; drag to sculpt' : ''}`}
     />
+    <WalkPathEditor
+      hf={hf}
+      frame={frame}
+      path={walkPath}
+      editing={mayEdit && pathMode}
+      onChange={(i, p) => {
+        setWalkPath((w) => (w ? { ...w, points: w.points.map((q, k) => (k === i ? p : q)) } : w));
+        setStatus(null);
+      }}
+      onDone={() => setFieldErrors(({ ...rest }) => Object.fromEntries(Object.entries(rest).filter(([k]) => !k.startsWith('encoding.walkPath'))))}
+    />
+    </View>
   ) : null;
   const paintChoices = [
     { value: 'scroll', label: 'Scroll' },
     { value: 'paint', label: 'Paint' },
+    { value: 'path', label: 'Walk path' },
   ] as const;
-  const paintValue = paint ? 'paint' : 'scroll';
-  const paintSwitch = mayEdit ? <ChoiceChips label="A drag on the map" choices={paintChoices} value={paintValue} onChange={(v) => setPaint(v === 'paint')} /> : null;
+  const paintValue = pathMode ? 'path' : paint ? 'paint' : 'scroll';
+  const choose = (v: (typeof paintChoices)[number]['value']) => {
+    setPathMode(v === 'path');
+    if (v !== 'path') setPaint(v === 'paint');
+  };
+  const paintSwitch = mayEdit ? <ChoiceChips label="A drag on the map" choices={paintChoices} value={paintValue} onChange={choose} /> : null;
+  const pathTools =
+    mayEdit && pathMode ? (
+      <View style={styles.pathTools} testID="walk-path-tools">
+        <Text style={styles.hint}>
+          {walkPath
+            ? `Trials walk this curve through ${walkPath.points.length} points, starting at point 1. Drag a point to move it.`
+            : 'Trials walk straight up the middle of this course. Set a walk path to lead them along a curve of your own.'}
+        </Text>
+        <View style={styles.toolbar}>
+          {walkPath ? (
+            <>
+              <Button label="Add a point" tone="quiet" disabled={walkPath.points.length >= 32} onPress={() => setWalkPath(pathWithPointAdded(hf, walkPath))} />
+              <Button label="Remove the last point" tone="quiet" disabled={walkPath.points.length <= 2} onPress={() => setWalkPath({ ...walkPath, points: walkPath.points.slice(0, -1) })} />
+              <Button label="Walk straight ahead" tone="quiet" onPress={() => setWalkPath(undefined)} />
+            </>
+          ) : (
+            <Button label="Set a walk path" tone="quiet" onPress={() => setWalkPath(straightPath(hf))} />
+          )}
+        </View>
+      </View>
+    ) : null;
   const profile = frame ? <SideProfile hf={hf} frame={frame} revision={revision} depth={profileDepth} /> : null;
   const details = (
     <CourseDetails
@@ -227,8 +280,9 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
           <View style={styles.widePanel}>
             {toolbar}
             {paintSwitch}
-            {mayEdit ? <BrushBar value={brush} onChange={setBrush} disabled={!paint} /> : null}
-            {mayEdit && !paint ? <Text style={styles.hint}>The brush is off while a drag on the map scrolls; choose Paint to sculpt.</Text> : null}
+            {pathTools}
+            {mayEdit && !pathMode ? <BrushBar value={brush} onChange={setBrush} disabled={!paint} /> : null}
+            {mayEdit && !paint && !pathMode ? <Text style={styles.hint}>The brush is off while a drag on the map scrolls; choose Paint to sculpt.</Text> : null}
             {details}
           </View>
         </View>
@@ -239,11 +293,12 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
           {mayEdit ? (
             // The brush stays in reach: this strip sticks to the top of the page while the map scrolls under it.
             <View style={styles.tools} testID="sculpt-tools">
-              <ChoiceRow label="Drag to" choices={paintChoices} value={paintValue} onChange={(v) => setPaint(v === 'paint')} />
-              {paint ? <BrushBar value={brush} onChange={setBrush} compact /> : null}
+              <ChoiceRow label="Drag to" choices={paintChoices} value={paintValue} onChange={choose} />
+              {paint && !pathMode ? <BrushBar value={brush} onChange={setBrush} compact /> : null}
             </View>
           ) : null}
-          {mayEdit ? (
+          {pathTools}
+          {mayEdit && pathMode ? null : mayEdit ? (
             <Text style={styles.hint}>
               {paint
                 ? 'Painting: a drag on the map sculpts; drag the profile beside it to move along. The walk starts at the bottom.'
@@ -286,6 +341,7 @@ const styles = StyleSheet.create({
   toolbar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   status: { ...type.small, color: colors.graphite, flexBasis: '100%' },
   hint: { ...type.small, color: colors.graphite },
+  pathTools: { gap: space.sm },
   // position: sticky is a web value react-native-web passes through; the page's scroll view is its container.
   tools: { position: 'sticky' as 'relative', top: 0, zIndex: 2, gap: 6, paddingVertical: space.sm, backgroundColor: colors.paper, borderBottomWidth: 1, borderColor: colors.rule },
   phoneArea: { flexDirection: 'row', gap: space.md, alignItems: 'flex-start' },

@@ -3,23 +3,26 @@ import { Link } from 'expo-router';
 import { colors, fonts, space, type } from '../../constants/theme';
 import { LEG_PROFILE_SCHEMA_URL } from '../../hooks/useProfiles';
 import { CopyBlock } from './CopyBlock';
+import { RUNTIME_TARBALL, RUNTIME_VERSION } from '../../packages/runtime/src/version';
 
-/** The short example the README shows too: load, bind by joint names, step each frame. */
-export const RUNTIME_SNIPPET = `import { loadLegProfile, bindLegProfile, createLegRuntime } from './treadle/engine/profile';
+/** Where Treadle serves the runtime package and the sample game (server/routes/runtime.ts). */
+export const RUNTIME_PATH = `/api/runtime/${RUNTIME_TARBALL}`;
+export const samplePath = (profileId: number) => `/api/runtime/sample/${profileId}`;
 
-const profile = loadLegProfile(profileJsonText);     // validates; names each problem
+/** The short example packages/runtime/README.md shows too: load, bind by joint names, drive and update each frame. */
+export const RUNTIME_SNIPPET = `import { loadLegProfile, bindLegProfile, createLegRuntime, skeletonFromBones, courseGround } from 'treadle-runtime';
+
+const bones = skinnedMesh.skeleton.bones;            // three.js: the character's skin from GLTFLoader
 const legs = createLegRuntime(
-  bindLegProfile(profile, skeleton),                 // joints by name; names each missing one
-  groundHeightfield,
+  bindLegProfile(loadLegProfile(profileJson), skeletonFromBones(bones)), // validates; joints by name
+  courseGround(courseJson),                          // or your own (x, z, normal) => height query
 );
-
-function onFrame() {
-  legs.step();                                       // same gait and solver code as Treadle's trials
-  for (let i = 0; i < legs.legNames.length; i++) {
-    legs.footPosition(i, foot);
-    legs.jointIndices(i).forEach((joint, k) => legs.jointWorldMatrix(i, k, bones[joint]));
-  }
-}`;
+function onFrame(dt) {
+  legs.drive(vx, vz, turnRate);                      // the velocity the player asks for
+  legs.update(dt);                                   // same gait and solver code as Treadle's trials
+  root.matrix.fromArray(legs.characterMatrix(m));    // where the character stands
+  legs.legNames.forEach((_, i) => legs.jointIndices(i).forEach((bone, k) => pose(bones[bone], legs.jointWorldMatrix(i, k, m))));
+}                                                    // pose(): the package's sample/game.js`;
 
 const origin = () => (Platform.OS === 'web' && typeof window !== 'undefined' ? window.location.origin : 'https://treadle.example');
 
@@ -56,7 +59,18 @@ export function BuildUse({ profileId, fileName, mayManageTokens }: { profileId: 
           leg-profile.json
         </Text>
       </Text>
+      <Text style={styles.body}>
+        The runtime is a package of its own, <Text style={styles.mono}>treadle-runtime {RUNTIME_VERSION}</Text>: one ES module with type declarations and no dependencies, running the same gait and solver code as the trials.
+      </Text>
+      <Text role="link" accessibilityLabel={`Download the runtime package (${RUNTIME_TARBALL})`} style={[styles.link, styles.block]} {...(Platform.OS === 'web' ? ({ href: RUNTIME_PATH, hrefAttrs: { download: RUNTIME_TARBALL } } as object) : {})}>
+        Download {RUNTIME_TARBALL}
+      </Text>
+      <CopyBlock label="Install it in your game" text={`curl -fsSO ${origin()}${RUNTIME_PATH}\nnpm install ./${RUNTIME_TARBALL}`} />
       <CopyBlock label="Runtime in a JavaScript or TypeScript game" text={RUNTIME_SNIPPET} />
+      <Text role="link" accessibilityLabel="Play the sample game with this profile" style={[styles.link, styles.block]} {...(Platform.OS === 'web' ? ({ href: samplePath(profileId), hrefAttrs: { target: '_blank' } } as object) : {})}>
+        Play the sample game with this profile
+      </Text>
+      <Text style={styles.body}>The sample game is three.js and the runtime package alone: keys or a thumbstick walk your character over your first course.</Text>
     </View>
   );
 }

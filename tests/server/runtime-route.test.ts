@@ -17,10 +17,12 @@ afterAll(async () => {
   await t.cleanup();
 });
 
-const binary = (res: NodeJS.ReadableStream, done: (err: Error | null, body: Buffer) => void) => {
+/** supertest's parser for a binary body: the raw bytes (its response is a Node stream at this point). */
+const binary = (res: request.Response, done: (err: Error | null, body: Buffer) => void) => {
+  const stream = res as unknown as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => done(null, Buffer.concat(chunks)));
 };
 
 describe('the runtime routes', () => {

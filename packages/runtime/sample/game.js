@@ -141,6 +141,8 @@ async function start() {
   gltf.scene.traverse((o) => (o.frustumCulled = false));
   scene.add(carrier);
   const camera = new THREE.PerspectiveCamera(45, 1, 0.05, 200);
+  // The character's height at rest: the camera keeps a size's distance whatever the character's scale.
+  const size = Math.max(0.2, new THREE.Box3().setFromObject(gltf.scene).getSize(new THREE.Vector3()).y);
   const resize = () => {
     renderer.setSize(innerWidth, innerHeight, false);
     camera.aspect = innerWidth / innerHeight;
@@ -187,8 +189,10 @@ async function start() {
     });
 
     legs.bodyPosition(body);
-    camera.position.set(body[0] + 2.4, body[1] + 1.1, body[2] - 2.2);
-    camera.lookAt(body[0], body[1] - 0.3, body[2] + 0.4);
+    // Behind and beside the body, farther on a tall narrow screen so the whole character and the ground ahead show.
+    const far = size * (camera.aspect < 1 ? 2.6 : 1.6);
+    camera.position.set(body[0] + 1.1 * far, body[1] + 0.5 * far, body[2] - 1.0 * far);
+    camera.lookAt(body[0], body[1] - 0.3 * size, body[2] + 0.4 * size);
     renderer.render(scene, camera);
 
     shown.textContent = `speed ${legs.speed.toFixed(2)} m/s · cycle ${legs.cycleTime.toFixed(2)} s${legs.resting ? ' · resting' : ''}`;

@@ -1,0 +1,188 @@
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { decodeCourse } from '../../engine/course/encoding';
+import type { LegSetup } from '../../engine/gait/leg-setup';
+import type { Rig } from '../../engine/gait/rig';
+import type { StumbleKind } from '../../engine/metrics/stumble-thresholds';
+import { colors, fonts, radius, space, type } from '../../constants/theme';
+import { useCourse, useCourses } from '../../hooks/useCourses';
+import { useIsWide } from '../../hooks/useLayout';
+import { createDriveWalk, DRIVE_STUMBLE_KINDS as STUMBLE_KIND_NAMES, type DriveWalk } from './drive-walk';
+import { ChoiceChips } from '../ui/ChoiceChips';
+import { Notice } from '../ui/Notice';
+import { StumbleGlyph } from '../trial/StumbleGlyph';
+import { STUMBLE_LABELS, stumbleColor } from '../trial/stumble-glyphs';
+import { WalkView } from '../trial/WalkView';
+import type { WalkPose } from '../trial/walk-scene';
+import { Thumbstick, type StickValue } from './Thumbstick';
+import { keysToDrive, useDriveKeys } from './useDriveKeys';
+
+/** How long a stumble's flash stays up, ms. */
+const FLASH_MS = 1200;
+/** Longest frame time handed to the walker, s: a tab coming back from the background does not leap. */
+const MAX_FRAME = 0.1;
+
+interface Flash {
+  kind: StumbleKind;
+  seq: number;
+}
+
+/**
+ * Drive: the character walks live over a course with the form's setup (saved or not), as far and as long as
+ * the stick is pushed (phone) or W / ↑ held (wide screens). Stumbles flash the moment the detector counts them.
+ */
+export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: LegSetup; compact?: boolean }) {
+  const wide = useIsWide();
+  const courses = useCourses();
+  const [courseId, setCourseId] = useState<string | undefined>(undefined);
+  useEffect(() => {
+    if (!courseId && courses.data?.courses.length) setCourseId(String(courses.data.courses[0].id));
+  }, [courseId, courses.data]);
+  const course = useCourse(Number(courseId ?? 0));
+  const heightfield = useMemo(() => (course.data ? decodeCourse(course.data.encoding) : null), [course.data]);
+  const [error, setError] = useState<string | null>(null);
+  const walker = useMemo<DriveWalk | null>(() => {
+    if (!heightfield) return null;
+    try {
+      setError(null);
+      return createDriveWalk(rig, setup, heightfield);
+    } catch (err) {
+      setError((err as Error).message);
+      return null;
+    }
+  }, [rig, setup, heightfield]);
+
+  const stick = useRef<StickValue>({ x: 0, y: 0 });
+  const keys = useDriveKeys(true);
+  const [flash, setFlash] = useState<Flash | null>(null);
+  const [readout, setReadout] = useState({ x: 0, z: 0, walked: 0, counts: new Int32Array(STUMBLE_KIND_NAMES.length) });
+
+  // What the draw loop keeps between frames, made once per walk.
+  const frame = useMemo(() => (walker ? { counts: new Int32Array(STUMBLE_KIND_NAMES.length), seen: new Int32Array(STUMBLE_KIND_NAMES.length), start: NaN, last: -1, told: 0, seq: 0 } : null), [walker]);
+
+  const poseAt = (): WalkPose | null => {
+    if (!walker || !frame) return null;
+    const now = performance.now();
+    const dt = frame.last < 0 ? 0 : Math.min(MAX_FRAME, (now - frame.last) / 1000);
+    frame.last = now;
+    const fromKeys = keysToDrive(keys.current);
+    const pose = walker.advance(dt, Math.max(fromKeys.forward, stick.current.y));
+    const [x, , z] = pose.body;
+    walker.counts(frame.counts);
+    let restarted = false;
+    for (let k = 0; k < frame.counts.length; k++) {
+      // A count below the last seen: the walk started over at the course's end.
+      if (frame.counts[k] < frame.seen[k]) restarted = true;
+    }
+    if (restarted || Number.isNaN(frame.start)) {
+      frame.seen.fill(0);
+      frame.start = z;
+    }
+    if (z < frame.start - 0.5) frame.start = z;
+    for (let k = 0; k < frame.counts.length; k++) {
+      if (frame.counts[k] > frame.seen[k]) {
+        frame.seen[k] = frame.counts[k];
+        setFlash({ kind: STUMBLE_KIND_NAMES[k], seq: ++frame.seq });
+      }
+    }
+    // The readout on screen: a few times a second is enough, and keeps React out of most frames.
+    if (now - frame.told > 200) {
+      frame.told = now;
+      setReadout({ x, z, walked: z - frame.start, counts: Int32Array.from(frame.counts) });
+    }
+    return pose;
+  };
+
+  useEffect(() => {
+    if (!flash) return;
+    const timer = setTimeout(() => setFlash((f) => (f?.seq === flash.seq ? null : f)), FLASH_MS);
+    return () => clearTimeout(timer);
+  }, [flash]);
+
+  const list = courses.data?.courses ?? [];
+  const viewHeight = compact ? 220 : 320;
+  const nextCourse = () => {
+    const i = list.findIndex((c) => String(c.id) === courseId);
+    if (list.length) setCourseId(String(list[(i + 1) % list.length].id));
+  };
+  const shownName = list.find((c) => String(c.id) === courseId)?.name;
+  const finite = Number.isFinite(readout.x) && Number.isFinite(readout.z);
+  return (
+    <View style={styles.wrap} testID="drive-view">
+      {compact ? (
+        <View style={styles.compactHead}>
+          <Text style={styles.compactTitle} numberOfLines={1}>
+            Drive{shownName ? ` · ${shownName}` : ''}
+          </Text>
+          {list.length > 1 ? (
+            <Pressable onPress={nextCourse} role="button" accessibilityLabel="Drive on the next course" style={styles.nextCourse}>
+              <Text style={styles.nextCourseText}>Next course ›</Text>
+            </Pressable>
+          ) : null}
+        </View>
+      ) : (
+        <ChoiceChips label="Drive on" choices={list.map((c) => ({ value: String(c.id), label: c.name }))} value={courseId} onChange={setCourseId} />
+      )}
+      <View>
+        {heightfield && walker ? (
+          <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={poseAt} height={viewHeight} label="The character walking live as you drive it" />
+        ) : (
+          <View style={[styles.placeholder, { height: viewHeight }]}>
+            <Text style={styles.note}>{courses.data && !courses.data.courses.length ? 'Make a course to drive on.' : 'Loading the course…'}</Text>
+          </View>
+        )}
+        {flash ? (
+          <View style={[styles.flash, { borderColor: stumbleColor(flash.kind) }]} role="alert" testID="drive-flash">
+            <StumbleGlyph kind={flash.kind} size={18} />
+            <Text style={[styles.flashText, { color: stumbleColor(flash.kind) }]}>{STUMBLE_LABELS[flash.kind]}</Text>
+          </View>
+        ) : null}
+        {wide ? null : (
+          <View style={styles.stickSpot}>
+            <Thumbstick value={stick} label="Walk stick: push up to walk" />
+          </View>
+        )}
+      </View>
+      {error ? <Notice message={error} /> : null}
+      <View style={styles.readout}>
+        <Text style={styles.readoutText} testID="drive-position">
+          x <Text style={styles.fig}>{finite ? readout.x.toFixed(2) : '—'}</Text> m · z <Text style={styles.fig}>{finite ? readout.z.toFixed(2) : '—'}</Text> m · walked{' '}
+          <Text style={styles.fig}>{finite ? readout.walked.toFixed(2) : '—'}</Text> m
+        </Text>
+      </View>
+      <View style={styles.counts}>
+        {STUMBLE_KIND_NAMES.map((k, i) => (
+          <View key={k} style={styles.count}>
+            <StumbleGlyph kind={k} />
+            <Text style={styles.countText}>
+              {STUMBLE_LABELS[k]} <Text style={styles.fig}>{readout.counts[i]}</Text>
+            </Text>
+          </View>
+        ))}
+      </View>
+      <Text style={styles.note}>
+        {wide ? 'Hold W or ↑ to walk; let go to stop. ' : 'Push the stick up to walk; let go to stop. '}
+        Steering is not in this build: the walk follows the course's walk path (straight ahead unless the course has one). Driving runs the settings in the form, saved or not.
+      </Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  compactHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  compactTitle: { ...type.label, color: colors.ink, flexShrink: 1 },
+  nextCourse: { minHeight: 44, paddingHorizontal: space.sm, justifyContent: 'center' },
+  nextCourseText: { ...type.label, color: colors.ember },
+  placeholder: { alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperDeep, borderRadius: radius.lg },
+  flash: { position: 'absolute', top: space.sm, left: space.sm, flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.md, minHeight: 44, borderRadius: radius.md, borderWidth: 2, backgroundColor: colors.card },
+  flashText: { fontFamily: fonts.bodyStrong, fontSize: 16 },
+  stickSpot: { position: 'absolute', right: space.md, bottom: space.md },
+  readout: { flexDirection: 'row', flexWrap: 'wrap' },
+  readoutText: { ...type.small, color: colors.ink },
+  counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  count: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
+  countText: { ...type.small, color: colors.ink },
+  fig: { fontFamily: fonts.mono },
+  note: { ...type.small, color: colors.graphite },
+});
