@@ -9,7 +9,9 @@ import { fileURLToPath } from 'node:url';
 const root = path.dirname(path.dirname(fileURLToPath(import.meta.url)));
 let threeRoot = null;
 try {
-  threeRoot = path.dirname(createRequire(path.join(process.cwd(), 'package.json')).resolve('three/package.json'));
+  // three's exports do not list its package.json: find the folder above its entry point that holds it.
+  threeRoot = path.dirname(createRequire(path.join(process.cwd(), 'package.json')).resolve('three'));
+  while (!fs.existsSync(path.join(threeRoot, 'package.json')) && path.dirname(threeRoot) !== threeRoot) threeRoot = path.dirname(threeRoot);
 } catch {
   console.error('three is not installed here: run `npm install three` in this folder, then start again.');
   process.exit(1);
