@@ -5,7 +5,7 @@
 import { LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { SolverMethod } from '../../engine/ik/options';
 import { fieldMessages } from '../../schemas/errors';
-import { setupIssueSentence, type IssueLike } from '../../engine/gait/setup-problems';
+import { setupIssueSentence, valueAtPath, type IssueLike } from '../../engine/gait/setting-sentences';
 
 export interface NumberField {
   path: string;
@@ -168,7 +168,7 @@ export function checkDraft(d: Draft): { setup: LegSetup; errors: null } | { setu
   const errors = fieldMessages(
     r.error.issues.map((i) =>
       (i.code === 'too_big' || i.code === 'too_small') && !inDegreesPaths.has(i.path.join('.'))
-        ? { ...i, message: setupIssueSentence(i as IssueLike, i.path.reduce<unknown>((v, k) => (v && typeof v === 'object' ? (v as Record<PropertyKey, unknown>)[k as string] : undefined), candidate)) }
+        ? { ...i, message: setupIssueSentence(i as IssueLike, valueAtPath(candidate, i.path)) }
         : i,
     ),
   );

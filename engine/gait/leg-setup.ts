@@ -4,7 +4,7 @@
  * Angles are radians, lengths metres, times seconds.
  */
 import { z } from 'zod';
-import { parseOrThrow } from '../course/parse';
+import { setupIssueSentence, valueAtPath, type IssueLike } from './setting-sentences';
 import { DEFAULT_OPTIONS, SOLVER_METHODS, type SolverMethod, type SolverOptions } from '../ik/options';
 import { dofCount } from '../ik/workspace';
 import { GAIT_PATTERNS, PRESET_GAITS, defaultPatternFor, evenPhaseOffsets } from './patterns';
@@ -258,7 +258,11 @@ function baseLegSetup(rig: Rig): LegSetup {
 
 /** Parse unknown input (API body, form, profile); the error names every problem. */
 export function parseLegSetup(input: unknown): LegSetup {
-  return parseOrThrow(LegSetupSchema, input, 'leg setup', (m) => new LegSetupError(m));
+  const parsed = LegSetupSchema.safeParse(input);
+  if (parsed.success) return parsed.data;
+  // One sentence per problem, naming the setting and the fix, with the setting's path for a programmer.
+  const sentences = parsed.error.issues.map((i) => `${setupIssueSentence(i as IssueLike, valueAtPath(input, i.path))} (${i.path.map(String).join('.') || 'setup'})`);
+  throw new LegSetupError(`invalid leg setup: ${sentences.join(' ')}`);
 }
 
 /** The setup's solver settings with a leg's own overrides applied. */

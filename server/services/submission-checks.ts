@@ -7,7 +7,7 @@
 import { ZodError } from 'zod';
 import { HttpError, validationError } from '../errors';
 import { fieldMessages } from '../../schemas/errors';
-import { legSetupProblems, setupIssueSentence, trialStartProblems, type IssueLike, type NamedCourse, type SetupProblem } from '../../engine/gait/setup-problems';
+import { legSetupProblems, setupIssueSentence, trialStartProblems, valueAtPath, type IssueLike, type NamedCourse, type SetupProblem } from '../../engine/gait/setup-problems';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import type { TrialOptionsInput } from '../../engine/gait/trial';
@@ -48,19 +48,10 @@ export function parseSubmission<T>(schema: { safeParse(v: unknown): { success: t
   for (const issue of ours) {
     const inner = { ...(issue as unknown as IssueLike), path: issue.path.slice(1) };
     const key = issue.path.map(String).join('.');
-    if (!(key in fields)) fields[key] = setupIssueSentence(inner, valueAt(setup, inner.path));
+    if (!(key in fields)) fields[key] = setupIssueSentence(inner, valueAtPath(setup, inner.path));
   }
   const first = fields[ours[0].path.map(String).join('.')];
   throw new HttpError(400, 'invalid_input', first, fields);
-}
-
-function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
-  let v: unknown = input;
-  for (const k of path) {
-    if (v === null || typeof v !== 'object') return undefined;
-    v = (v as Record<PropertyKey, unknown>)[k as string];
-  }
-  return v;
 }
 
 interface RawIssue {
@@ -77,7 +68,7 @@ function issueSentences(issues: RawIssue[], input: unknown): string {
     .map((i) => {
       const path = (i.path ?? []).map(String);
       const inSetup = path[0] === 'setup' || path[0] === 'base';
-      return setupIssueSentence({ ...(i as IssueLike), path: inSetup ? path.slice(1) : path }, valueAt(input, path));
+      return setupIssueSentence({ ...(i as IssueLike), path: inSetup ? path.slice(1) : path }, valueAtPath(input, path));
     })
     .join(' ');
 }
