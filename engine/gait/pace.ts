@@ -49,9 +49,14 @@ const MIN_STANCE_LEFT = 0.05;
  * A foot already past that range is left out: it is about to lift, and stopping the body would not help it.
  */
 function stancePace(t: Walk): number {
-  const T = t.gait.cycleTime;
+  const T = t.cycleTime;
   const beta = t.gait.dutyFactor;
-  const v = t.gait.speed;
+  // The way the body travels (a driven body may walk sideways or back), and the way it faces.
+  const m = t.motion;
+  const v = Math.sqrt(m.vx * m.vx + m.vz * m.vz);
+  if (!(v > 0)) return 1;
+  const cv = m.vz / v;
+  const sv = m.vx / v;
   const c = Math.cos(t.heading);
   const s = Math.sin(t.heading);
   let pace = 1;
@@ -64,8 +69,8 @@ function stancePace(t: Walk): number {
     const hz = leg.hip[2];
     const dx = t.plant[3 * i] - (t.bodyPos[0] + c * hx + s * hz);
     const dz = t.plant[3 * i + 2] - (t.bodyPos[2] - s * hx + c * hz);
-    const along = s * dx + c * dz;
-    const across = c * dx - s * dz;
+    const along = sv * dx + cv * dz;
+    const across = cv * dx - sv * dz;
     const dy = t.bodyPos[1] + leg.hip[1] - t.plant[3 * i + 1];
     const reach = COMFORT_MAX * leg.chain.reach;
     const room = reach * reach - across * across - dy * dy;
