@@ -27,12 +27,12 @@ export const createLegSolver = createWorkspace;
 
 /** Sole (end effector) world position after the last FK / solve. */
 export function footPosition(ws: IKWorkspace, out: Float64Array | number[] = new Float64Array(3)) {
-  vec3.copy(out as vec3, ws.foot as unknown as vec3);
+  vec3.copy(out as vec3, ws.foot);
   return out;
 }
 
 /** Sole normal (world) after the last FK / solve. */
 export function footNormal(ws: IKWorkspace, out: Float64Array | number[] = new Float64Array(3)) {
-  vec3.copy(out as vec3, ws.footUp as unknown as vec3);
+  vec3.copy(out as vec3, ws.footUp);
   return out;
 }

@@ -4,6 +4,7 @@
  * W_j = W_{j−1} · T(offset_j) · R(rest_j) · D_j(q), W_{−1} = root (hip socket).
  * Matrices are row-major 3×3 in Float64Array (R[r*3+c]).
  */
+import { vec3 } from 'gl-matrix';
 import * as M3 from '../math/mat3';
 import * as Q from '../math/quat';
 import * as L from './layout';
@@ -334,9 +335,7 @@ export function forwardKinematics(ws: IKWorkspace, from = 0): Float64Array {
 
 /** World position of joint j (after forwardKinematics). */
 export function jointPosition(ws: IKWorkspace, j: number, out: Float64Array | number[] = new Float64Array(3)) {
-  out[0] = ws.jPos[3 * j];
-  out[1] = ws.jPos[3 * j + 1];
-  out[2] = ws.jPos[3 * j + 2];
+  vec3.set(out as vec3, ws.jPos[3 * j], ws.jPos[3 * j + 1], ws.jPos[3 * j + 2]);
   return out;
 }
 

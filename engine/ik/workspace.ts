@@ -357,16 +357,12 @@ export function setOptions(ws: IKWorkspace, options: Partial<SolverOptions>): vo
 
 /** Set the root (hip socket) transform from a position and a unit quaternion [x, y, z, w]. */
 export function setRootTransform(ws: IKWorkspace, position: ArrayLike<number>, rotation?: ArrayLike<number>): void {
-  ws.rootPos[0] = position[0];
-  ws.rootPos[1] = position[1];
-  ws.rootPos[2] = position[2];
+  vec3.copy(ws.rootPos, position as vec3);
   if (rotation) M3.fromQuat(ws.rootRot, 0, rotation, 0);
 }
 
 /** Set the root transform from a 4×4 column-major matrix (gl-matrix / three.js layout; rigid, no scale). */
 export function setRootMatrix(ws: IKWorkspace, m: ArrayLike<number>): void {
   M3.fromMat4(ws.rootRot, 0, m);
-  ws.rootPos[0] = m[12];
-  ws.rootPos[1] = m[13];
-  ws.rootPos[2] = m[14];
+  vec3.set(ws.rootPos, m[12], m[13], m[14]);
 }
