@@ -10,7 +10,7 @@ import { loadApiToken } from './middleware/api-token';
 import { rejectCrossSiteWrites } from './middleware/csrf';
 import { allowOnlyKnownHosts } from './middleware/allowed-hosts';
 import { noStoreApi, securityHeaders } from './middleware/security-headers';
-import { enforceRouteTable, RouteTable, UNDECLARED_RULES } from './permissions';
+import { enforceRouteTable, RouteTable } from './permissions';
 import type { RouteRule } from './routes/declare';
 import { enforcePlanReadOnly } from './middleware/plan-read-only';
 import { apiNotFound, errorHandler } from './middleware/errors';
@@ -21,7 +21,7 @@ import { permissionsRoutes, teamRoutes } from './routes/team';
 import { invitesRoutes } from './routes/invites';
 import { appConfigRoutes } from './routes/app-config';
 import { healthRoutes } from './routes/health';
-import { charactersRouter } from './routes/characters';
+import { charactersRoutes } from './routes/characters';
 import { characterLegSetupsRoutes, legSetupsRoutes } from './routes/leg-setups';
 import { trialsRoutes } from './routes/trials';
 import { jobsRoutes } from './routes/jobs';
@@ -43,9 +43,6 @@ interface Mounted {
   rules: RouteRule[];
 }
 
-/** A router that does not declare its routes' permissions yet: UNDECLARED_RULES lists them. */
-const undeclared = (base: string, router: Router): Mounted => ({ base, router, rules: [] });
-
 /** Every API router in mount order (a base that another one's `/:id` would also match comes first). */
 function apiRoutes(deps: AppDeps): Mounted[] {
   return [
@@ -57,7 +54,7 @@ function apiRoutes(deps: AppDeps): Mounted[] {
     permissionsRoutes(),
     teamRoutes(deps),
     invitesRoutes(deps),
-    undeclared('/characters', charactersRouter(deps)),
+    charactersRoutes(deps),
     characterLegSetupsRoutes(deps),
     legSetupsRoutes(deps),
     trialsRoutes(deps),
@@ -109,7 +106,7 @@ export function createApp(deps: AppDeps): Express {
   const webhook = billingWebhookRoutes(deps);
   const routes = apiRoutes(deps);
   // The one permission table, from the routes' own declarations; /api/permissions and /api/me read it from here.
-  const table = new RouteTable([...UNDECLARED_RULES, ...webhook.rules, ...routes.flatMap((r) => r.rules)]);
+  const table = new RouteTable([...webhook.rules, ...routes.flatMap((r) => r.rules)]);
   app.locals.routeTable = table;
 
   const api = express.Router();

@@ -5,14 +5,8 @@ import { rolesOf, type PermissionRow } from '../schemas/permissions';
 import { HttpError, unauthenticated } from './errors';
 import { ALL_ROLES } from './role-sets';
 import type { RouteRule } from './routes/declare';
-import { characterRules } from './routes/characters.rules';
 
 export type { RouteRule } from './routes/declare';
-
-/** Routes of routers that do not declare their own permissions yet (routes/declare.ts); the table takes them too. */
-export const UNDECLARED_RULES: RouteRule[] = [
-  ...characterRules,
-];
 
 /**
  * The one permission table, built by createApp from the routes as they declare themselves. A route missing from it

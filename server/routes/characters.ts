@@ -1,7 +1,5 @@
-import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { notFound, parseWith } from '../errors';
+import { parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
 import {
   characterUploadFieldsSchema,
@@ -15,29 +13,29 @@ import { uploadCapBytes } from '../services/character-files';
 import { storeCharacterUpload } from '../services/gltf-import-store';
 import { characterDetail, getCharacter, listCharacters, storedCharacterFile, updateCharacterLegs, updateCharacterUnitScale } from '../services/characters';
 import { uploadParser } from '../middleware/uploads';
+import { EDITORS } from '../role-sets';
+import { declareRoutes, idOf, permission } from './declare';
 
 /** A .gltf may come with its .bin and images; more parts than this is not a character. */
 const MAX_FILES = 32;
 
-const idSchema = z.coerce.number().int().positive();
-/** A malformed id names no character of the team: the same 404 as another team's. */
-function idOf(raw: unknown): number {
-  const id = idSchema.safeParse(raw);
-  if (!id.success) throw notFound('That character');
-  return id.data;
-}
+const READ = permission('characters.read', 'See characters and their legs', 'member');
+const UPLOAD = permission('characters.upload', 'Upload characters', EDITORS);
+/** The unit fix is edited with the legs: both decide how the character stands. */
+const EDIT_LEGS = permission('characters.legs.edit', 'Edit leg mappings', EDITORS);
 
-/** Characters: upload, list, read, the stored file, leg mapping. */
-export function charactersRouter(deps: AppDeps): Router {
-  const router = Router();
+/** Characters: upload, list, read, the stored file, leg mapping, unit fix. */
+export function charactersRoutes(deps: AppDeps) {
+  const routes = declareRoutes('/characters');
+  routes.id('id', 'That character');
   const store = { db: deps.db, dataDir: deps.dataDir, now: () => deps.clock.now() };
 
-  router.get('/', async (req, res) => {
+  routes.get('/', READ, async (req, res) => {
     const body: CharacterList = { characters: await listCharacters(deps.db, viewerOf(req).team.id) };
     res.json(body);
   });
 
-  router.post('/', uploadParser({ maxBytes: uploadCapBytes(), maxFiles: MAX_FILES, maxFields: 4, maxFieldBytes: 1024 }), async (req, res) => {
+  routes.post('/', UPLOAD, uploadParser({ maxBytes: uploadCapBytes(), maxFiles: MAX_FILES, maxFields: 4, maxFieldBytes: 1024 }), async (req, res) => {
     const { team, user } = viewerOf(req);
     const fields = parseWith(characterUploadFieldsSchema, req.body);
     const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({ originalname: f.originalname, buffer: f.buffer }));
@@ -46,32 +44,32 @@ export function charactersRouter(deps: AppDeps): Router {
     res.status(stored.existing ? 200 : 201).json(body);
   });
 
-  router.get('/:id', async (req, res) => {
-    const body: CharacterDetail = await characterDetail(deps.db, viewerOf(req).team.id, idOf(req.params.id));
+  routes.get('/:id', READ, async (req, res) => {
+    const body: CharacterDetail = await characterDetail(deps.db, viewerOf(req).team.id, idOf(req));
     res.json(body);
   });
 
-  router.get('/:id/file', async (req, res) => {
-    const file = await storedCharacterFile(deps.db, deps.dataDir, viewerOf(req).team.id, idOf(req.params.id));
+  routes.get('/:id/file', READ, async (req, res) => {
+    const file = await storedCharacterFile(deps.db, deps.dataDir, viewerOf(req).team.id, idOf(req));
     res.setHeader('Content-Type', 'model/gltf-binary');
     res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
     res.setHeader('ETag', `"${file.sha256}"`);
     res.sendFile(file.path);
   });
 
-  router.put('/:id/legs', async (req, res) => {
+  routes.put('/:id/legs', EDIT_LEGS, async (req, res) => {
     const { team } = viewerOf(req);
-    const id = idOf(req.params.id);
+    const id = idOf(req);
     const { legs } = parseWith(legMappingUpdateSchema, req.body);
     res.json({ character: await updateCharacterLegs(deps.db, { teamId: team.id, id, legs, now: deps.clock.now() }) });
   });
 
-  router.put('/:id/unit-scale', async (req, res) => {
+  routes.put('/:id/unit-scale', EDIT_LEGS, async (req, res) => {
     const { team } = viewerOf(req);
-    const id = idOf(req.params.id);
+    const id = idOf(req);
     const { unitScale } = parseWith(unitScaleUpdateSchema, req.body);
     res.json({ character: await updateCharacterUnitScale(deps.db, { teamId: team.id, id, unitScale, now: deps.clock.now() }) });
   });
 
-  return router;
+  return routes;
 }

@@ -1,6 +1,6 @@
 /**
  * GET /api/characters/:id/file, the stored glTF binary the 3D walk poses: the character's access rules
- * (server/routes/characters.rules.ts, every member of its team), an entity tag for caching (RFC 9110 §8.8.3
+ * (declared beside the route in server/routes/characters.ts: every member of its team), an entity tag for caching (RFC 9110 §8.8.3
  * ETag, §13.1.2 If-None-Match: a matching tag answers 304 Not Modified without a body), and nothing for anyone
  * else: a member of another team gets 404 as if it did not exist, a signed-out visitor 401.
  */
