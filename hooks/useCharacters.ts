@@ -1,6 +1,5 @@
 import { useCallback, useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { CharacterDetail, CharacterList, CharacterUploadResult, LegMapping } from '../schemas/characters';
 import { apiErrorBodySchema } from '../schemas/errors';
 import { api, ApiError } from './api';
@@ -9,8 +8,6 @@ export const charactersKey = ['characters'] as const;
 const characterKey = (id: number) => ['characters', id] as const;
 
 /** The actions behind the character screens' buttons (server/routes/characters.rules.ts). */
-export const canUploadCharacters = (me: Me | null | undefined) => !!me?.permissions.includes('characters.upload');
-export const canEditLegs = (me: Me | null | undefined) => !!me?.permissions.includes('characters.legs.edit');
 
 export function useCharacters() {
   return useQuery({ queryKey: charactersKey, queryFn: () => api<CharacterList>('/characters') });
@@ -27,6 +24,15 @@ export function useSaveLegs(id: number) {
   const client = useQueryClient();
   return useMutation<unknown, ApiError, LegMapping[]>({
     mutationFn: (legs) => api(`/characters/${id}/legs`, { method: 'PUT', body: { legs } }),
+    onSuccess: () => client.invalidateQueries({ queryKey: charactersKey }),
+  });
+}
+
+/** Stores a character's unit fix (1 undoes it); the file stays as uploaded. */
+export function useSetUnitScale(id: number) {
+  const client = useQueryClient();
+  return useMutation<unknown, ApiError, number>({
+    mutationFn: (unitScale) => api(`/characters/${id}/unit-scale`, { method: 'PUT', body: { unitScale } }),
     onSuccess: () => client.invalidateQueries({ queryKey: charactersKey }),
   });
 }

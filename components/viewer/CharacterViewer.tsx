@@ -31,10 +31,12 @@ function canvasFor(gl: ExpoWebGLRenderingContext): HTMLCanvasElement {
 }
 
 /**
- * The character in 3D: its skinned mesh from the stored .glb (three's GLTFLoader), and its skeleton drawn
- * over it, every leg in its side's colour. Renders on demand (after loading and after each gesture).
+ * The character in 3D: its skinned mesh from the stored .glb (three's GLTFLoader), scaled by the character's unit
+ * fix, and its skeleton drawn over it (positions come in metres), every leg in its side's colour. The camera frames
+ * the joints at once, then the whole mesh as bound once it has loaded, so a head above its last joint stays in view
+ * whatever the character's size or the file's up axis. Renders on demand (after loading and after each gesture).
  */
-export function CharacterViewer({ fileUrl, joints, legs, height = 340 }: { fileUrl: string; joints: SkeletonJointSummary[]; legs: LegMapping[]; height?: number }) {
+export function CharacterViewer({ fileUrl, joints, legs, unitScale = 1, height = 340 }: { fileUrl: string; joints: SkeletonJointSummary[]; legs: LegMapping[]; unitScale?: number; height?: number }) {
   const stage = useRef<Stage | null>(null);
   const orbit = useRef<Orbit | null>(null);
   const overlay = useRef<THREE.Object3D | null>(null);
@@ -90,7 +92,7 @@ export function CharacterViewer({ fileUrl, joints, legs, height = 340 }: { fileU
       const sun = new THREE.DirectionalLight('#ffffff', 1.6);
       sun.position.set(2, 4, 3);
       scene.add(sun);
-      const camera = new THREE.PerspectiveCamera(FOV, gl.drawingBufferWidth / Math.max(1, gl.drawingBufferHeight), 0.01, 1000);
+      const camera = new THREE.PerspectiveCamera(FOV, gl.drawingBufferWidth / Math.max(1, gl.drawingBufferHeight), 0.001, 1000);
 
       const lo: [number, number, number] = [Infinity, Infinity, Infinity];
       const hi: [number, number, number] = [-Infinity, -Infinity, -Infinity];
@@ -98,14 +100,18 @@ export function CharacterViewer({ fileUrl, joints, legs, height = 340 }: { fileU
         lo[a] = Math.min(lo[a], j.position[a]);
         hi[a] = Math.max(hi[a], j.position[a]);
       }
-      const size = Math.max(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2], 0.01);
+      const size = Math.max(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2], 1e-4);
       const grid = new THREE.GridHelper(size * 3, 12, colors.graphite, colors.rule);
       grid.position.set((lo[0] + hi[0]) / 2, lo[1], (lo[2] + hi[2]) / 2);
       scene.add(grid);
 
       overlay.current = skeletonOverlay(joints, legs, sideColor);
       scene.add(overlay.current);
-      orbit.current = fitOrbit(lo, hi, FOV);
+      const aspect = gl.drawingBufferWidth / Math.max(1, gl.drawingBufferHeight);
+      camera.near = size / 1000;
+      camera.far = size * 100;
+      camera.updateProjectionMatrix();
+      orbit.current = fitOrbit(lo, hi, FOV, aspect);
       stage.current = { renderer, scene, camera, gl, limits: { min: size * 0.2, max: size * 20 } };
       draw();
 
@@ -113,7 +119,22 @@ export function CharacterViewer({ fileUrl, joints, legs, height = 340 }: { fileU
         const response = await fetch(fileUrl, { credentials: 'same-origin' });
         if (!response.ok) throw new Error(`The file could not be fetched (${response.status}).`);
         const gltf = await new GLTFLoader().parseAsync(await response.arrayBuffer(), '');
+        // The joints arrive in metres with the unit fix applied; the mesh is in the file's own units.
+        gltf.scene.scale.multiplyScalar(unitScale);
         scene.add(gltf.scene);
+        gltf.scene.updateMatrixWorld(true);
+        // The mesh as bound (skinned vertices, precise), with the joints: the whole character in view.
+        const box = new THREE.Box3().setFromObject(gltf.scene, true);
+        if (!box.isEmpty()) {
+          const mlo: [number, number, number] = [Math.min(lo[0], box.min.x), Math.min(lo[1], box.min.y), Math.min(lo[2], box.min.z)];
+          const mhi: [number, number, number] = [Math.max(hi[0], box.max.x), Math.max(hi[1], box.max.y), Math.max(hi[2], box.max.z)];
+          const whole = Math.max(mhi[0] - mlo[0], mhi[1] - mlo[1], mhi[2] - mlo[2], 1e-4);
+          orbit.current = fitOrbit(mlo, mhi, FOV, aspect);
+          if (stage.current) stage.current.limits = { min: whole * 0.2, max: whole * 20 };
+          camera.near = whole / 1000;
+          camera.far = whole * 100;
+          camera.updateProjectionMatrix();
+        }
         setState('ready');
         draw();
       } catch (err) {

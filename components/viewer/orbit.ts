@@ -8,10 +8,16 @@ export interface Orbit {
 
 const PITCH_LIMIT = Math.PI / 2 - 0.05;
 
-export function fitOrbit(min: [number, number, number], max: [number, number, number], fovDeg: number): Orbit {
+/**
+ * An orbit that shows the whole box: its bounding sphere fits inside the narrower of the vertical field of view and
+ * the horizontal one (tan(h/2) = aspect · tan(v/2), the perspective projection's own relation), whatever the box's size.
+ */
+export function fitOrbit(min: [number, number, number], max: [number, number, number], fovDeg: number, aspect = 1): Orbit {
   const centre: [number, number, number] = [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2];
-  const radius = Math.max(1e-3, Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) / 2);
-  const distance = radius / Math.sin(((fovDeg / 2) * Math.PI) / 180);
+  const radius = Math.max(1e-6, Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) / 2);
+  const halfV = ((fovDeg / 2) * Math.PI) / 180;
+  const halfH = Math.atan(Math.tan(halfV) * Math.max(1e-3, aspect));
+  const distance = radius / Math.sin(Math.min(halfV, halfH));
   // Three-quarter view from the front-left, slightly above: legs on both sides stay visible.
   return { yaw: 0.6, pitch: 0.25, distance: distance * 1.05, target: centre };
 }

@@ -36,6 +36,8 @@ type RuleKey = keyof typeof RULES;
 /** The rule a validator code comes from (its name says the object and the requirement). */
 function ruleOf(code: string): RuleKey {
   if (code.startsWith('GLB_')) return 'glb';
+  // A stride where none belongs breaks §3.6.1's rule, whichever data the buffer view holds.
+  if (code.includes('BYTESTRIDE') || code.includes('BYTE_STRIDE')) return 'bufferViews';
   if (code.startsWith('ANIMATION_') || code.startsWith('ACCESSOR_ANIMATION_')) return 'animations';
   if (code.startsWith('SKIN_') || code === 'INVALID_IBM_ACCESSOR_COUNT' || code === 'ACCESSOR_INVALID_IBM') return 'skins';
   if (code.startsWith('ACCESSOR_JOINTS_') || code.startsWith('ACCESSOR_WEIGHTS_') || code === 'MESH_PRIMITIVE_JOINTS_WEIGHTS_MISMATCH' || code === 'UNUSED_MESH_WEIGHTS') return 'skinnedAttributes';
@@ -107,9 +109,9 @@ function targetOf(pointer: string | undefined): { kind: string; index: number; r
 }
 
 const EXPLAIN: Record<FindingMeaning, string> = {
-  harmless: 'Harmless to walking: Treadle does not use this data to walk (animation clips, unused objects), or read it intact anyway.',
-  mesh: 'Affects the mesh only: how the character is drawn, not the skeleton Treadle walks. Game engines may refuse or draw it wrongly; fix it in your exporter.',
-  skeleton: 'Affects the skeleton Treadle walks: the joints, their hierarchy or their bind matrices.',
+  harmless: 'Treadle does not walk with this data (animation clips, unused objects), or read it intact anyway. Nothing to do for Treadle; a strict game engine may still refuse the file.',
+  mesh: 'How the character is drawn, not the skeleton Treadle walks. Game engines may refuse it or draw it wrongly; fix it in your exporter.',
+  skeleton: 'The joints, their hierarchy or their bind matrices: what Treadle walks. Fix it in your exporter and upload again.',
 };
 
 /**
