@@ -15,6 +15,7 @@ import { ImportReportView } from './ImportReportView';
 import { LegList } from './LegList';
 import { LegMappingForm } from './LegMappingForm';
 import { CharacterActions } from './CharacterActions';
+import { UnitFix } from './UnitFix';
 
 /** A character: the 3D view, its legs (and the form to correct them), and the import report. */
 export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail: CharacterDetail; fileUrl: string; mayEdit: boolean; onSaveLegs(legs: LegMapping[]): Promise<void> }) {
@@ -23,6 +24,8 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
   const { character, skeleton, report, detectedLegs } = detail;
   const lede = `${character.legCount} legs · ${character.jointCount} joints · ${formatBytes(character.byteSize)} · uploaded by ${character.uploadedBy.name}, ${formatMoment(character.createdAt)}`;
 
+  // Rig quirks and detection doubts that concern particular legs, with what to do about them (engine/rig/rig-quirks.ts).
+  const legNotes = report.notes.filter((n) => n.legs?.length);
   const legs = (
     <Card>
       <View style={styles.sectionHead}>
@@ -44,18 +47,28 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
       ) : (
         <LegList legs={character.legs} joints={skeleton.joints} detected={character.legsEdited ? undefined : detectedLegs} />
       )}
+      {legNotes.length ? (
+        <View style={styles.legNotes} aria-label="What to know about these legs">
+          {legNotes.map((n, i) => (
+            <Text key={i} style={styles.legNote}>
+              {n.message}
+            </Text>
+          ))}
+        </View>
+      ) : null}
     </Card>
   );
-  const viewer = <CharacterViewer fileUrl={fileUrl} joints={skeleton.joints} legs={character.legs} height={wide ? 520 : 340} />;
+  const viewer = <CharacterViewer fileUrl={fileUrl} joints={skeleton.joints} legs={character.legs} unitScale={character.unitScale} height={wide ? 520 : 340} />;
   const reportCard = (
     <Card>
       <SectionHeading>Import report</SectionHeading>
-      <ImportReportView report={report} />
+      <ImportReportView report={report} unitScale={character.unitScale} />
     </Card>
   );
   return (
     <Screen title={character.name} lede={lede} actions={<Link href="/characters" style={styles.back}>All characters</Link>}>
       <CharacterActions characterId={character.id} />
+      <UnitFix detail={detail} mayEdit={mayEdit} />
       {wide ? (
         <View style={styles.columns}>
           <View style={styles.main}>
@@ -81,5 +94,7 @@ const styles = StyleSheet.create({
   side: { flex: 2, gap: space.lg },
   sectionHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md },
   note: { ...type.small, color: colors.graphite },
+  legNotes: { gap: space.sm, marginTop: space.sm },
+  legNote: { ...type.small, color: colors.ink, borderLeftWidth: 3, borderLeftColor: colors.rule, paddingLeft: space.md },
   back: { ...type.label, color: colors.ember, paddingVertical: space.md, minHeight: 44 },
 });
