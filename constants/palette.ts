@@ -1,5 +1,5 @@
 /**
- * Treadle's colours and font families (shared/design/product.md, "Identity"), free of any asset import so that
+ * Treadle's colours and font families, free of any asset import so that
  * server-rendered pages (the local test checkout) can use them too. theme.ts re-exports them for the app.
  */
 export const colors = {

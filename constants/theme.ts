@@ -1,4 +1,4 @@
-/** Treadle's identity: colours, type and spacing (shared/design/product.md, "Identity"). */
+/** Treadle's identity: colours, type and spacing. */
 import { colors, fonts } from './palette';
 
 export { colors, fonts };

@@ -1,4 +1,4 @@
-/** Each stumble kind's colour (product.md identity) and its own glyph, so colour is never the only cue. */
+/** Each stumble kind's colour (Treadle's identity, constants/palette.ts) and its own glyph, so colour is never the only cue. */
 import { stumbleColors } from '../../constants/theme';
 import type { StumbleKind } from '../../engine/metrics/stumble-thresholds';
 

@@ -3,7 +3,7 @@
  * everything straight). A stance leg kept below COMFORT_MAX never straightens
  * (straight knees are where the solver snaps); footholds past CANDIDATE_MAX
  * are rejected; a target past TARGET_MAX is pulled onto that sphere rather
-  * than chased; one folded tighter than it can be (measureFoldLimit) is pushed out. The bands are common practice, no source (walking.md: stance
+  * than chased; one folded tighter than it can be (measureFoldLimit) is pushed out. The bands are common practice, no source (stance
  * legs between about 80 % and 95 % of reach).
  */
 import { forwardKinematics } from '../ik/kinematics';

@@ -32,7 +32,7 @@ export type RefusalCode =
 
 /** Deepest node hierarchy accepted; real rigs stay far below it (common practice, no source). */
 export const MAX_NODE_DEPTH = 128;
-/** Most joints in a skin (the cap; game engines commonly cap skins at 256–1024 bones). */
+/** Most joints in a skin. Game engines commonly cap a skin at 256–1024 bones (from memory); a walking character needs far fewer. */
 export const MAX_JOINTS = 512;
 
 /** Deepest nesting of arrays and objects in the glTF JSON; glTF itself needs about a dozen (common practice, no source). */

@@ -2,7 +2,7 @@
  * rigFromCharacter on the demo characters (seeds/characters), imported from their real .glb files:
  * forward kinematics of the rest pose must put every joint and sole where the skeleton's own rest
  * transforms say, with the skeleton composed independently as a three.js Object3D hierarchy
- * (references.md: "three.js (Object3D world matrices for forward kinematics)"; glTF 2.0 §3.5.3
+ * (three.js, a general-purpose 3D library from npm, as the reference for world matrices; glTF 2.0 §3.5.3
  * node transforms local = T·R·S, world = parent·local).
  */
 import * as THREE from 'three';

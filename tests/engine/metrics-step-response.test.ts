@@ -24,7 +24,8 @@ const within = (actual: number | null, expected: number, rel: number) => {
 };
 
 describe('step response of 1/(s²+s+1) (ζ = 0.5, ωn = 1)', () => {
-  // Check values from Ogata / Nise (references.md): 16.303 %, 3.628 s, 8.076 s (2 %), each within 0.5 %.
+  // Check values of 1/(s²+s+1) from Ogata, Modern Control Engineering, and Nise, Control Systems Engineering:
+  // 16.303 %, 3.628 s, 8.076 s (2 %), each within 0.5 %.
   const { t, y } = sampled((x) => secondOrderStep(0.5, 1, x), 0.01, 30);
   const r = stepResponse(t, y, { initial: 0, final: 1 });
 

@@ -52,7 +52,7 @@ describe('broken uploads', () => {
     expect((await designer.get('/api/characters')).body.characters).toHaveLength(3);
   });
 
-  it('covers every refusal the issue lists', () => {
+  it('covers every refusal an upload can meet', () => {
     const codes = new Set(corpus.map((c) => c.code));
     for (const code of ['empty_file', 'truncated_glb', 'not_gltf', 'broken_glb_chunk', 'missing_buffer', 'gltf_1', 'no_skin', 'no_joints', 'too_many_joints', 'too_deep', 'bad_transform', 'broken_buffer', 'no_legs']) {
       expect(codes).toContain(code);

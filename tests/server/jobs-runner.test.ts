@@ -1,7 +1,7 @@
 /**
  * The in-process job runner on a database of its own (so no other runner picks its jobs up): progress kept
  * monotone, cancel of a running job (its worker task is ended) and of a queued one, restart recovery, and
- * the per-team limit on running jobs. The rules are the issue's own (issue 7, item 3); no outside reference.
+ * the per-team limit on running jobs. The rules are Treadle's own; no outside reference applies.
  */
 import { createInProcessRunner } from '../../server/jobs/in-process-runner';
 import { CRASH_REASON } from '../../server/jobs/job-rows';

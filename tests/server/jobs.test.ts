@@ -1,7 +1,7 @@
 /**
  * Trial jobs through the API on the real piscina pool: the lifecycle, progress that never goes down, roles,
- * other teams, bad input. The states and rules are the issue's own (issue 7, item 3); no outside reference
- * applies. The runner's own rules (cancel, restart recovery, per-team limit) are in jobs-runner.test.ts.
+ * other teams, bad input. The states (queued, running, then done, failed or cancelled) and rules are
+ * Treadle's own; no outside reference applies. The runner's own rules (cancel, restart recovery, per-team limit) are in jobs-runner.test.ts.
  */
 import { decodeSeries } from '../../engine/gait/series-encoding';
 import { TrialMetricsSchema } from '../../engine/metrics/trial-metrics';

@@ -1,7 +1,9 @@
 /**
  * Leg setups through the API: the engine's defaults for a character's rig, saving versions validated by the
- * one LegSetupSchema with field messages, checks against the rig, roles and other teams. The rules are the
- * issue's own (issue 7, item 2); the defaults are the engine's (engine/gait/leg-setup.ts).
+ * one LegSetupSchema with field messages, checks against the rig, roles and other teams. The rules are
+ * Treadle's own (versions numbered per character, a setup must fit its rig, every role reads, owner and designer
+ * save, another team's character is not there); no outside reference applies. The defaults are the engine's
+ * (engine/gait/leg-setup.ts).
  */
 import { defaultLegSetup, LegSetupSchema } from '../../engine/gait/leg-setup';
 import { loadCharacterRig } from '../../server/services/characters';

@@ -5,8 +5,8 @@
  * the middle of a dial-in loses nothing (its stalled task is taken up by the other) and the result is the
  * same; a result delivered twice is stored once; a cancel ends the job's tasks on every worker; a task that
  * keeps failing ends the job `failed` with the reason; the per-team limit holds however many workers wait;
- * an unreachable Redis stops the worker and the server with one line. The rules are the issue's own
- * (issue 17); the queue semantics (locks, stalled jobs, retries) are BullMQ's documented behaviour.
+ * an unreachable Redis stops the worker and the server with one line. The rules are Treadle's own;
+ * the queue semantics (locks, stalled jobs, retries) are BullMQ's documented behaviour.
  */
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';

@@ -1,6 +1,6 @@
 /**
- * Forward kinematics against three.js Object3D world matrices (references.md:
- * "three.js (Object3D world matrices for forward kinematics)") on seeded
+ * Forward kinematics against three.js Object3D world matrices (three.js, a
+ * general-purpose 3D library from npm, as the reference) on seeded
  * random chains of every DOF type.
  */
 import * as THREE from 'three';

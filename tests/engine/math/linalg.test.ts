@@ -1,7 +1,7 @@
 /**
  * Our small dense linear algebra and solver steps against ml-matrix (solve,
- * SVD, pseudoInverse) on seeded random matrices (references.md: "ml-matrix
- * (solve, SVD, pseudoInverse) for linear algebra"). DLS form from Buss 2004:
+ * SVD, pseudoInverse) on seeded random matrices: ml-matrix, a general-purpose
+ * linear algebra library from npm, is the reference. DLS form from Buss 2004:
  * Δθ = Jᵀ(JJᵀ + λ²I)⁻¹e.
  */
 import { Matrix, SingularValueDecomposition, pseudoInverse, solve as mlSolve } from 'ml-matrix';
