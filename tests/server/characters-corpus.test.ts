@@ -13,7 +13,9 @@ import { jointWorldPositions } from '../../engine/rig/skeleton-world';
 import { scaledSkeleton } from '../../engine/rig/skeleton-scale';
 import { legPath } from '../../engine/rig/detect-legs';
 import { characterDetailSchema, characterSchema } from '../../schemas/characters';
-import { exporterCorpus, type CorpusCase } from '../fixtures/gltf/exporter-corpus';
+import { biped, exporterCorpus, type CorpusCase } from '../fixtures/gltf/exporter-corpus';
+import { buildCharacterDocument } from '../../seeds/characters/rig-builder';
+import { memoryNodeIO } from '../../server/services/gltf-import-library';
 import { testApp, type TestApp } from '../support/test-app';
 import { signedIn } from '../support/studio';
 import { upload, type Agent } from './characters-helpers';
@@ -128,6 +130,24 @@ describe('validator findings grouped by what they mean for walking', () => {
     const groups = imported.get('non-root-skinned-mesh')!.report.validator.groups!;
     expect(groups.map((g) => [g.code, g.meaning])).toEqual([['NODE_SKINNED_MESH_NON_ROOT', 'mesh']]);
     expect(groups[0].rule.url).toMatch(/#joint-hierarchy$/);
+  });
+});
+
+describe('a validator error in the skeleton', () => {
+  it('refuses the upload, naming the finding and the glTF 2.0 rule', async () => {
+    // An inverse bind matrix whose last row is not (0, 0, 0, 1): glTF 2.0 §3.7.3 says IBMs are affine; the validator reports ACCESSOR_INVALID_IBM.
+    const doc = buildCharacterDocument(biped('Pell'));
+    const ibm = doc.getRoot().listSkins()[0].getInverseBindMatrices()!;
+    const values = new Float32Array(ibm.getArray()!);
+    values[16 * 2 + 3] = 0.5;
+    ibm.setArray(values);
+    const glb = await memoryNodeIO().writeBinary(doc);
+    const report = await validator.validateBytes(glb, { format: 'glb' });
+    expect(report.issues.messages.map((m) => m.code)).toContain('ACCESSOR_INVALID_IBM');
+    await expect(analyseUpload([{ originalname: 'bent.glb', buffer: Buffer.from(glb) }])).rejects.toMatchObject({
+      code: 'skeleton_invalid',
+      message: expect.stringMatching(/ACCESSOR_INVALID_IBM.*glTF 2\.0 3\.7\.3 Skins \(https:\/\/registry\.khronos\.org\/glTF\/specs\/2\.0\/glTF-2\.0\.html#skins\)/),
+    });
   });
 });
 
