@@ -74,4 +74,31 @@ describe('a trial that cannot run', () => {
       await page.context().close();
     });
   }
+
+  for (const [size, name] of [
+    [PHONE, 'phone'],
+    [WIDE, 'wide'],
+  ] as const) {
+    it(`and its dial-in is refused the same way, before any candidate is held (${name})`, async () => {
+      const page = await studio.newPage(size);
+      await openSetup(page);
+      await page.goto(`${studio.server.url}/characters/dial-in/${characterId}`);
+      await page.getByRole('heading', { name: 'Burrow (cm): dial-in' }).waitFor();
+      for (const label of ['DLS damping λ', 'Iteration budget', 'Largest joint change per iteration', 'Duty factor', 'Step height', 'Body settling time', 'Body follows height', 'Crouch on slopes', 'Body height offset']) {
+        const group = page.getByRole('radiogroup', { name: new RegExp(`^${label}( \\(|  ·|$| ·)`) });
+        await group.getByRole('radio', { name: label === 'DLS damping λ' ? 'tune' : 'keep' }).click();
+      }
+      await page.getByRole('radio', { name: 'Scrapyard crossing' }).click();
+      await page.getByLabel('Budget (candidates; each is a trial per course)').fill('6');
+      const jobsBefore = Number((await studio.server.db('jobs').count({ n: '*' }).first())?.n);
+      await page.getByRole('button', { name: 'Start the dial-in' }).click();
+      const refused = page.getByText(/^This cannot run yet: Step height \d+(\.\d+)? m is above the 1 m limit; is the character in centimetres/);
+      await refused.waitFor();
+      expect(Number((await studio.server.db('jobs').count({ n: '*' }).first())?.n)).toBe(jobsBefore);
+      await refused.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+      await page.waitForTimeout(200);
+      await screenshot(page, `refused-dial-in-${name}`);
+      await page.context().close();
+    });
+  }
 });
