@@ -41,6 +41,7 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
   const course = useCourse(Number(courseId ?? 0));
   const heightfield = useMemo(() => (course.data ? decodeCourse(course.data.encoding) : null), [course.data]);
   const [error, setError] = useState<string | null>(null);
+  const [restart, setRestart] = useState(0);
   const walker = useMemo<DriveWalk | null>(() => {
     if (!heightfield) return null;
     try {
@@ -50,15 +51,17 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
       setError((err as Error).message);
       return null;
     }
-  }, [rig, setup, heightfield]);
+    // A new walk for "Back to the start" as well.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [rig, setup, heightfield, restart]);
 
   const stick = useRef<StickValue>({ x: 0, y: 0 });
   const keys = useDriveKeys(true);
   const [flash, setFlash] = useState<Flash | null>(null);
-  const [readout, setReadout] = useState({ x: 0, z: 0, walked: 0, counts: new Int32Array(STUMBLE_KIND_NAMES.length) });
+  const [readout, setReadout] = useState({ x: 0, z: 0, walked: 0, counts: new Int32Array(STUMBLE_KIND_NAMES.length), resting: true, problem: null as string | null });
 
   // What the draw loop keeps between frames, made once per walk.
-  const frame = useMemo(() => (walker ? { counts: new Int32Array(STUMBLE_KIND_NAMES.length), seen: new Int32Array(STUMBLE_KIND_NAMES.length), start: NaN, last: -1, told: 0, seq: 0 } : null), [walker]);
+  const frame = useMemo(() => (walker ? { counts: new Int32Array(STUMBLE_KIND_NAMES.length), seen: new Int32Array(STUMBLE_KIND_NAMES.length), px: NaN, pz: NaN, walked: 0, last: -1, told: 0, seq: 0 } : null), [walker]);
 
   const poseAt = (): WalkPose | null => {
     if (!walker || !frame) return null;
@@ -66,19 +69,13 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
     const dt = frame.last < 0 ? 0 : Math.min(MAX_FRAME, (now - frame.last) / 1000);
     frame.last = now;
     const fromKeys = keysToDrive(keys.current);
-    const pose = walker.advance(dt, Math.max(fromKeys.forward, stick.current.y));
+    const pose = walker.advance(dt, Math.max(fromKeys.forward, stick.current.y), fromKeys.turn - stick.current.x);
     const [x, , z] = pose.body;
+    // Distance walked over the ground, however the walk turned.
+    if (!Number.isNaN(frame.px)) frame.walked += Math.hypot(x - frame.px, z - frame.pz);
+    frame.px = x;
+    frame.pz = z;
     walker.counts(frame.counts);
-    let restarted = false;
-    for (let k = 0; k < frame.counts.length; k++) {
-      // A count below the last seen: the walk started over at the course's end.
-      if (frame.counts[k] < frame.seen[k]) restarted = true;
-    }
-    if (restarted || Number.isNaN(frame.start)) {
-      frame.seen.fill(0);
-      frame.start = z;
-    }
-    if (z < frame.start - 0.5) frame.start = z;
     for (let k = 0; k < frame.counts.length; k++) {
       if (frame.counts[k] > frame.seen[k]) {
         frame.seen[k] = frame.counts[k];
@@ -88,7 +85,7 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
     // The readout on screen: a few times a second is enough, and keeps React out of most frames.
     if (now - frame.told > 200) {
       frame.told = now;
-      setReadout({ x, z, walked: z - frame.start, counts: Int32Array.from(frame.counts) });
+      setReadout({ x, z, walked: frame.walked, counts: Int32Array.from(frame.counts), resting: walker.resting, problem: walker.problem });
     }
     return pose;
   };
@@ -139,16 +136,20 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
         ) : null}
         {wide ? null : (
           <View style={styles.stickSpot}>
-            <Thumbstick value={stick} label="Walk stick: push up to walk" />
+            <Thumbstick value={stick} label="Walk stick: push up to walk, sideways to turn" />
           </View>
         )}
       </View>
       {error ? <Notice message={error} /> : null}
+      {readout.problem ? <Notice message={readout.problem} /> : null}
       <View style={styles.readout}>
         <Text style={styles.readoutText} testID="drive-position">
           x <Text style={styles.fig}>{finite ? readout.x.toFixed(2) : '—'}</Text> m · z <Text style={styles.fig}>{finite ? readout.z.toFixed(2) : '—'}</Text> m · walked{' '}
-          <Text style={styles.fig}>{finite ? readout.walked.toFixed(2) : '—'}</Text> m
+          <Text style={styles.fig}>{finite ? readout.walked.toFixed(2) : '—'}</Text> m{readout.resting ? ' · standing' : ''}
         </Text>
+        <Pressable onPress={() => setRestart((r) => r + 1)} role="button" style={styles.restart}>
+          <Text style={styles.restartText}>Back to the start</Text>
+        </Pressable>
       </View>
       <View style={styles.counts}>
         {STUMBLE_KIND_NAMES.map((k, i) => (
@@ -161,8 +162,8 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
         ))}
       </View>
       <Text style={styles.note}>
-        {wide ? 'Hold W or ↑ to walk; let go to stop. ' : 'Push the stick up to walk; let go to stop. '}
-        Steering is not in this build: the walk follows the course's walk path (straight ahead unless the course has one). Driving runs the settings in the form, saved or not.
+        {wide ? 'Hold W or ↑ to walk, A D or ← → to turn; let go and the feet come to rest. ' : 'Push the stick up to walk, sideways to turn; let go and the feet come to rest. '}
+        Driving runs the settings in the form, saved or not, through the same runtime a game uses.
       </Text>
     </View>
   );
@@ -178,7 +179,9 @@ const styles = StyleSheet.create({
   flash: { position: 'absolute', top: space.sm, left: space.sm, flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.md, minHeight: 44, borderRadius: radius.md, borderWidth: 2, backgroundColor: colors.card },
   flashText: { fontFamily: fonts.bodyStrong, fontSize: 16 },
   stickSpot: { position: 'absolute', right: space.md, bottom: space.md },
-  readout: { flexDirection: 'row', flexWrap: 'wrap' },
+  readout: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  restart: { minHeight: 44, justifyContent: 'center', paddingHorizontal: space.sm },
+  restartText: { ...type.label, color: colors.ember },
   readoutText: { ...type.small, color: colors.ink },
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   count: { flexDirection: 'row', alignItems: 'center', gap: space.xs },

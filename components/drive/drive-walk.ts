@@ -1,39 +1,87 @@
 /**
- * Drive mode's walk: the live preview's engine walk (the trial loop, with its stumble detector) on a clock that
- * runs only while the player pushes forward, at the share pushed. Letting go holds the walk where it is.
- *
- * Kept in this one file so the drive mode can move onto the game runtime's own drive (engine/profile/runtime.ts:
- * drive(vx, vz, turnRate), turning, planted rest) once that reports stumbles too: the view only calls this.
+ * Drive mode's walk: the game runtime itself (engine/profile/runtime.ts, createRigRuntime) over the course, with
+ * the form's unsaved setup and the stumble detector on, steered the way a game steers it: the stick or keys ask
+ * for a speed along the body's own facing and a turn rate; letting go brings every foot to a planted rest.
  */
 import type { Heightfield } from '../../engine/course/heightfield';
+import { resolveGait } from '../../engine/gait/gait-params';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
-import { STUMBLE_KINDS, type StumbleKind } from '../../engine/metrics/stumble-thresholds';
-import { createLiveWalk } from '../preview/live-walk';
+import { createRigRuntime, RUNTIME_STUMBLE_KINDS, type LegRuntime } from '../../engine/profile/runtime';
+import type { StumbleKind } from '../../engine/metrics/stumble-thresholds';
 import type { WalkPose } from '../trial/walk-scene';
 
-export const DRIVE_STUMBLE_KINDS: readonly StumbleKind[] = STUMBLE_KINDS;
+export const DRIVE_STUMBLE_KINDS: readonly StumbleKind[] = RUNTIME_STUMBLE_KINDS;
+/** Turn rate at a full sideways push, rad/s (about a quarter turn a second: common practice, no source). */
+export const DRIVE_TURN_RATE = 1.5;
 
 export interface DriveWalk {
-  /** Advance by a frame time (s) with the forward share pushed (0–1); the pose to draw. */
-  advance(dt: number, forward: number): WalkPose;
-  /** Stumbles counted since the walk (re)started, in the order of DRIVE_STUMBLE_KINDS. */
+  /** Advance by a frame time (s) with the forward share (0–1) and turn (−1 right … 1 left) asked for; the pose to draw. */
+  advance(dt: number, forward: number, turn: number): WalkPose;
+  /** Stumbles counted so far, in the order of DRIVE_STUMBLE_KINDS. */
   counts(out: Int32Array): Int32Array;
+  /** Every foot planted and the body standing. */
+  readonly resting: boolean;
+  /** The runtime's first problem (its ground), or null. */
+  readonly problem: string | null;
 }
 
 export function createDriveWalk(rig: Rig, setup: LegSetup, course: Heightfield): DriveWalk {
-  const live = createLiveWalk(rig, setup, course);
-  let clock = 0;
+  const legs: LegRuntime = createRigRuntime(rig, setup, course, { standing: true, watchStumbles: true });
+  // Full forward is the setup's own walking speed: the speed its trials are scored at.
+  const fullSpeed = resolveGait(setup.gait, rig).speed;
+  const L = legs.legNames.length;
+  const m = new Float64Array(16);
+  const q = new Float64Array(4);
+  const body = new Float64Array(3);
+  const foot = new Float64Array(3);
+  const feet = new Float64Array(3 * L);
+  const targets = new Float64Array(3 * L);
+  const contact = new Uint8Array(L);
+  const joints = rig.legs.map((l) => new Float64Array(3 * l.chain.joints.length));
+  const pose: WalkPose = { body: [0, 0, 0], pitch: 0, roll: 0, feet, targets, contact, joints, rotation: [0, 0, 0, 1] };
+  const clamp = (v: number, lo: number, hi: number) => (Number.isFinite(v) ? Math.max(lo, Math.min(hi, v)) : 0);
+
   return {
-    advance(dt, forward) {
-      const share = Number.isFinite(forward) ? Math.max(0, Math.min(1, forward)) : 0;
-      if (Number.isFinite(dt) && dt > 0) clock += dt * 1000 * share;
-      return live.advance(clock);
+    advance(dt, forward, turn) {
+      legs.bodyRotation(q);
+      // The body's facing: its +Z turned by the rotation, flattened onto the ground.
+      const [x, y, z, w] = [q[0], q[1], q[2], q[3]];
+      let fx = 2 * (x * z + w * y);
+      let fz = 1 - 2 * (x * x + y * y);
+      const n = Math.hypot(fx, fz) || 1;
+      fx /= n;
+      fz /= n;
+      const v = clamp(forward, 0, 1) * fullSpeed;
+      legs.drive(fx * v, fz * v, clamp(turn, -1, 1) * DRIVE_TURN_RATE);
+      if (Number.isFinite(dt) && dt > 0) legs.update(dt);
+
+      legs.bodyPosition(body);
+      legs.bodyRotation(q);
+      pose.body = [body[0], body[1], body[2]];
+      pose.rotation = [q[0], q[1], q[2], q[3]];
+      for (let i = 0; i < L; i++) {
+        legs.footPosition(i, foot);
+        feet.set(foot, 3 * i);
+        legs.footTarget(i, foot);
+        targets.set(foot, 3 * i);
+        contact[i] = legs.inStance(i) ? 1 : 0;
+        const J = joints[i].length / 3;
+        for (let k = 0; k < J; k++) {
+          legs.jointWorldMatrix(i, k, m);
+          joints[i][3 * k] = m[12];
+          joints[i][3 * k + 1] = m[13];
+          joints[i][3 * k + 2] = m[14];
+        }
+      }
+      return pose;
     },
-    counts(out) {
-      const c = live.counts();
-      DRIVE_STUMBLE_KINDS.forEach((k, i) => (out[i] = c[k]));
-      return out;
+    counts: (out) => legs.stumbleCounts(out),
+    get resting() {
+      return legs.resting;
+    },
+    get problem() {
+      return legs.lastError?.message ?? null;
     },
   };
 }

@@ -19,6 +19,8 @@ export interface WalkPose {
   contact: ArrayLike<number>;
   /** Optional joint positions per leg (hip → last joint), when the solver's pose is at hand. */
   joints?: ArrayLike<number>[];
+  /** The body's whole rotation [x, y, z, w] when it also turns (drive mode); pitch and roll are then unused. */
+  rotation?: [number, number, number, number];
 }
 
 export interface WalkScene {
@@ -137,7 +139,8 @@ export function createStickFigure(rig: Rig, tint?: string): StickFigure {
     update(p) {
       // Pitch is nose up (a rotation about −X when +Z is forward), roll is left side up (about +Z).
       euler.set(-p.pitch, 0, p.roll, 'YXZ');
-      rot.setFromEuler(euler);
+      if (p.rotation) rot.set(p.rotation[0], p.rotation[1], p.rotation[2], p.rotation[3]);
+      else rot.setFromEuler(euler);
       body.position.set(p.body[0], p.body[1], p.body[2]);
       body.quaternion.copy(rot);
       rig.legs.forEach((leg, i) => {

@@ -24,7 +24,7 @@ async function openSetup(page: Page, name = 'Wicket') {
 /** The drive readout's x, z and distance walked, as the user reads them. */
 async function readout(page: Page) {
   const text = (await page.getByTestId('drive-position').first().textContent()) ?? '';
-  const m = /x (\S+) m · z (\S+) m · walked (\S+) m/.exec(text);
+  const m = /x (\S+) m · z (\S+) m · walked (\S+?) m/.exec(text);
   if (!m) throw new Error(`the drive readout says "${text}"`);
   return { text, x: Number(m[1]), z: Number(m[2]), walked: Number(m[3]) };
 }
@@ -73,11 +73,11 @@ describe('drive mode', () => {
     expect(walked.text).not.toMatch(/NaN|Infinity|—/);
     expect(walked.z).toBeGreaterThan(before.z + 0.3);
     expect(walked.walked).toBeGreaterThan(0.3);
-    // Let go: the walk holds where it is (two readings, each after a redraw of the readout).
-    await page.waitForTimeout(600);
+    // Let go: the feet come to a planted rest and the body stays where it stopped.
+    await page.getByTestId('drive-position').getByText('standing', { exact: false }).waitFor({ timeout: 60_000 });
     const held = await readout(page);
     await page.waitForTimeout(600);
-    expect((await readout(page)).z).toBe(held.z);
+    expect((await readout(page)).z).toBeCloseTo(held.z, 2);
   });
 
   it('on a wide screen walks while W is held', async () => {
@@ -97,6 +97,24 @@ describe('drive mode', () => {
     const after = await readout(page);
     expect(after.text).not.toMatch(/NaN|Infinity/);
     expect(after.z).toBeGreaterThan(before.z + 0.3);
+
+    // W with A turns left while walking: the body leaves the straight line, towards +X (the character's left, glTF).
+    await page.keyboard.down('w');
+    await page.keyboard.down('a');
+    await page.waitForFunction(
+      (x0) => {
+        const m = /x (\S+) m/.exec(document.querySelector('[data-testid="drive-position"]')?.textContent ?? '');
+        return !!m && Number(m[1]) > x0 + 0.1;
+      },
+      after.x,
+      { timeout: 60_000 },
+    );
+    await page.keyboard.up('a');
+    await page.keyboard.up('w');
+    const turned = await readout(page);
+    expect(turned.text).not.toMatch(/NaN|Infinity/);
+    expect(turned.x).toBeGreaterThan(after.x + 0.1);
+    await screenshot(page, 'drive-wide-turned');
   });
 });
 

@@ -15,11 +15,14 @@ import { rigOriginOf } from '../../../engine/gait/character-rig';
 import { decodeCourse } from '../../../engine/course/encoding';
 import { flatCourse } from '../../../engine/course/generators';
 import { bindLegProfile as engineBind, loadLegProfile as engineLoad, LegProfileBindError as EngineBindError, LegProfileError as EngineProfileError } from '../../../engine/profile/runtime';
-import { createProfileRuntime, engineBound } from './walker';
-import type { BoundLegProfile, ErrorClass, GroundQuery, HeightfieldGround, LegProfileFile, LegRuntime, LegRuntimeOptions, Skeleton, SkeletonJoint } from './types';
+import { createProfileRuntime, engineBound, STUMBLE_KINDS as KINDS } from './walker';
+import type { BoundLegProfile, ErrorClass, GroundQuery, HeightfieldGround, LegProfileFile, LegRuntime, LegRuntimeOptions, Skeleton, SkeletonJoint, StumbleKindName } from './types';
 
-export type { BoundLegProfile, ErrorClass, GroundQuery, HeightfieldGround, LegProfileFile, LegRuntime, LegRuntimeError, LegRuntimeOptions, Skeleton, SkeletonJoint } from './types';
+export type { BoundLegProfile, ErrorClass, GroundQuery, HeightfieldGround, LegProfileFile, LegRuntime, LegRuntimeError, LegRuntimeOptions, Skeleton, SkeletonJoint, StumbleKindName } from './types';
 export { PROFILE_SCHEMA, PROFILE_SCHEMA_VERSION, RUNTIME_VERSION } from './version';
+
+/** The stumble kinds, in the order stumbleCounts gives them. */
+export const STUMBLE_KINDS: readonly StumbleKindName[] = KINDS;
 
 /** Thrown by loadLegProfile when the file is not a valid leg profile; the message names each problem. */
 export const LegProfileError: ErrorClass = EngineProfileError;

@@ -27,6 +27,8 @@ export interface HeightfieldGround {
   heights: Float64Array;
 }
 
+export type StumbleKindName = 'sink' | 'skid' | 'reach-miss' | 'scuff' | 'snap';
+
 /** A leg profile file as Treadle publishes it (validated by loadProfile); the fields a game usually reads. */
 export interface LegProfileFile {
   schema: string;
@@ -63,7 +65,11 @@ export interface LegRuntimeOptions {
   heading?: number;
   /** Spacing at which a GroundQuery is sampled along swing paths, m. */
   groundSpacing?: number;
-  /** Called once, with the first ground problem. */
+  /** Start standing, every foot planted (a game's spawn); default: walking straight ahead as a trial does. */
+  standing?: boolean;
+  /** Count stumbles as Treadle's trials do (costs a ground query per foot and step); default off. */
+  watchStumbles?: boolean;
+  /** Called once when the ground starts failing (again after it has recovered). */
   onError?: (error: LegRuntimeError) => void;
 }
 
@@ -106,6 +112,8 @@ export interface LegRuntime {
   bodyPosition(out?: Float64Array): Float64Array;
   /** Body rotation [x, y, z, w]: heading, then roll and pitch from the feet. */
   bodyRotation(out?: Float64Array): Float64Array;
+  /** Stumbles seen so far per kind, in the order of STUMBLE_KINDS (all 0 unless options.watchStumbles). */
+  stumbleCounts(out?: Int32Array): Int32Array;
   /**
    * Where the character's rest space sits in the world (column-major 4×4): the character's root goes here, and
    * each leg bone turns by jointWorldMatrix's rotation relative to the body (sample/game.js writes it out).

@@ -5,17 +5,23 @@
  * repository's type check fails when they drift.
  */
 import type { Heightfield } from '../../../engine/course/heightfield';
-import { createLegRuntime, type BoundLegProfile as EngineBound, type GroundQuery as EngineGroundQuery, type LegRuntime as EngineLegRuntime, type LegRuntimeOptions as EngineOptions } from '../../../engine/profile/runtime';
+import { createLegRuntime, RUNTIME_STUMBLE_KINDS, type BoundLegProfile as EngineBound, type GroundQuery as EngineGroundQuery, type LegRuntime as EngineLegRuntime, type LegRuntimeOptions as EngineOptions } from '../../../engine/profile/runtime';
 import type { Skeleton as EngineSkeleton } from '../../../engine/rig/types';
-import type { BoundLegProfile, GroundQuery, HeightfieldGround, LegRuntime, LegRuntimeOptions, Skeleton } from './types';
+import type { BoundLegProfile, GroundQuery, HeightfieldGround, LegRuntime, LegRuntimeOptions, Skeleton, StumbleKindName } from './types';
 
 const heightfieldMatch: HeightfieldGround = {} as Heightfield;
 const heightfieldBack: Heightfield = {} as HeightfieldGround;
 const groundMatch: EngineGroundQuery = {} as GroundQuery;
 const skeletonMatch: EngineSkeleton = {} as Skeleton;
 const runtimeMatch: Omit<LegRuntime, 'characterMatrix'> = {} as EngineLegRuntime;
+const runtimeBack: EngineLegRuntime = {} as LegRuntime;
+const kindsMatch: readonly StumbleKindName[] = RUNTIME_STUMBLE_KINDS;
+const kindsBack: readonly (typeof RUNTIME_STUMBLE_KINDS)[number][] = [] as StumbleKindName[];
 const optionsMatch: EngineOptions = {} as LegRuntimeOptions;
-void heightfieldMatch, heightfieldBack, groundMatch, skeletonMatch, runtimeMatch, optionsMatch;
+void heightfieldMatch, heightfieldBack, groundMatch, skeletonMatch, runtimeMatch, runtimeBack, optionsMatch, kindsMatch, kindsBack;
+
+/** The stumble kinds in the order stumbleCounts gives them. */
+export const STUMBLE_KINDS: readonly StumbleKindName[] = RUNTIME_STUMBLE_KINDS;
 
 /** The rotation of unit quaternion q and the translation t as a column-major 4×4 matrix. */
 function rotationTranslation(q: ArrayLike<number>, t: ArrayLike<number>, out: Float64Array): Float64Array {
