@@ -17,6 +17,7 @@ import { apiNotFound, errorHandler } from './middleware/errors';
 import { authRoutes } from './routes/auth';
 import { meRoutes } from './routes/me';
 import { cliRoutes } from './routes/cli';
+import { runtimeRoutes } from './routes/runtime';
 import { permissionsRoutes, teamRoutes } from './routes/team';
 import { invitesRoutes } from './routes/invites';
 import { appConfigRoutes } from './routes/app-config';
@@ -51,6 +52,7 @@ function apiRoutes(deps: AppDeps): Mounted[] {
     appConfigRoutes(deps),
     meRoutes(deps),
     cliRoutes(),
+    runtimeRoutes(),
     permissionsRoutes(),
     teamRoutes(deps),
     invitesRoutes(deps),
