@@ -10,7 +10,7 @@ import type { Skeleton } from './types';
 import { chainLengths, jointChildren, jointWorldPositions } from './skeleton-world';
 import { isPassengerName, nameHint, nameSide } from './skeleton-names';
 import { formatLength, type LengthUnit } from './skeleton-scale';
-import { proposedLegJoints } from './skeleton-leg-dofs';
+import { findAnkle, proposedLegJoints } from './skeleton-leg-dofs';
 
 export const MIN_LEG_JOINTS = 2;
 export const MAX_LEG_JOINTS = 5;
@@ -134,6 +134,16 @@ function withoutPassengers(skeleton: Skeleton, f: Frame, path: number[]): number
   }
   if (path.length > 1) out.push(path[path.length - 1]);
   return out;
+}
+
+/**
+ * A foot that rolls over toe bones (ankle → ball → toe tip) ends at the ball: the ball of the foot is where it
+ * pushes off, and a bending toe joint at the end of the chain lets the solver fold the sole into the ground
+ * (measured on the exporter corpus: footing score 0 with the toe hinge, 30 ended at the ball, same defaults).
+ */
+function endAtBall(f: Frame, path: number[]): number[] {
+  const ankle = findAnkle(f.positions, path);
+  return ankle >= 0 && path.length - 1 - ankle >= 2 ? path.slice(0, ankle + 2) : path;
 }
 
 /** Walks up from a leaf to where the chain leaves the body; the body joint itself is not part of the chain. */
@@ -284,7 +294,7 @@ export function detectLegs(skeleton: Skeleton, options: DetectOptions = {}): Leg
   // Lowest leaves first, so a foot with several toes keeps its lowest toe.
   leaves.sort((a, b) => y(f, a) - y(f, b) || a - b);
   for (const leaf of leaves) {
-    const path = withoutPassengers(skeleton, f, chainUpFrom(skeleton, f, leaf));
+    const path = endAtBall(f, withoutPassengers(skeleton, f, chainUpFrom(skeleton, f, leaf)));
     if (path.some((j) => taken.has(j))) continue;
     const verdict = judge(skeleton, f, path, unit);
     if ('reason' in verdict) {

@@ -107,11 +107,19 @@ export function rigQuirks({ skeleton, positions, legs, unit = 'metres' }: QuirkI
     const path = legPathOf(leg);
     const ankle = findAnkle(positions, path);
     const toes = ankle >= 0 ? path.slice(ankle + 1, path.length - 1) : [];
+    const beyond = joints.map((_, j) => j).filter((j) => joints[j].parent === leg.end);
     if (toes.length) {
       notes.push({
         code: 'toe_bones',
         severity: 'info',
-        message: `${leg.name} ends in toe bones: ${list(toes.map(name))} bend${toes.length > 1 ? '' : 's'} as a hinge for toe-off and ${name(leg.end)} is the sole point. To keep the foot rigid, end the leg at ${name(toes[0])} in the legs form.`,
+        message: `${leg.name} ends in toe bones: ${list(toes.map(name))} bend${toes.length > 1 ? '' : 's'} as a hinge for toe-off and ${name(leg.end)} is the sole point. If the feet fold into the ground in trials, end the leg at ${name(toes[0])} in the legs form.`,
+        legs: [leg.name],
+      });
+    } else if (ankle === path.length - 2 && beyond.length) {
+      notes.push({
+        code: 'toe_bones',
+        severity: 'info',
+        message: `${leg.name} ends at the ball of its foot, ${name(leg.end)}: Treadle plants it there and leaves the toe bone${beyond.length > 1 ? 's' : ''} beyond it (${list(beyond.map(name))}) at rest, since a bending toe at the end of a leg lets the sole fold into the ground. To plant the toe tip instead, set the leg's end to it in the legs form.`,
         legs: [leg.name],
       });
     }
@@ -130,6 +138,19 @@ export function rigQuirks({ skeleton, positions, legs, unit = 'metres' }: QuirkI
       });
       break;
     }
+  }
+
+  // A leg of one segment turns only at its hip: its foot keeps one distance from it (measured on the exporter
+  // corpus: a six-legged crawler of single segments misses its reach at nearly every touchdown on flat ground).
+  const single = legs.filter((l) => l.joints.length === 1);
+  if (single.length) {
+    const l = single[0];
+    notes.push({
+      code: 'single_segment_leg',
+      severity: 'warning',
+      message: `${single.length > 1 ? `${single.length} legs are` : `${l.name} is`} a single segment (like ${name(l.joints[0].joint)} → ${name(l.end)}): turning only at the hip, the foot keeps one distance from it and meets flat ground only on a circle around the hip, so trials count reach misses where the planned foothold is off that circle. If the rig has a joint partway along, add it as a knee in the legs form; otherwise keep the stride short and the step height low in the leg setup.`,
+      legs: single.map((x) => x.name),
+    });
   }
 
   const stretched = joints

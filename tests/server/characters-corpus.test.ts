@@ -13,7 +13,7 @@ import { jointWorldPositions } from '../../engine/rig/skeleton-world';
 import { scaledSkeleton } from '../../engine/rig/skeleton-scale';
 import { legPath } from '../../engine/rig/detect-legs';
 import { characterDetailSchema, characterSchema } from '../../schemas/characters';
-import { biped, exporterCorpus, type CorpusCase } from '../fixtures/gltf/exporter-corpus';
+import { biped, exporterCorpus, zUpUnconverted, type CorpusCase } from '../fixtures/gltf/exporter-corpus';
 import { buildCharacterDocument } from '../../seeds/characters/rig-builder';
 import { memoryNodeIO } from '../../server/services/gltf-import-library';
 import { testApp, type TestApp } from '../support/test-app';
@@ -130,6 +130,17 @@ describe('validator findings grouped by what they mean for walking', () => {
     const groups = imported.get('non-root-skinned-mesh')!.report.validator.groups!;
     expect(groups.map((g) => [g.code, g.meaning])).toEqual([['NODE_SKINNED_MESH_NON_ROOT', 'mesh']]);
     expect(groups[0].rule.url).toMatch(/#joint-hierarchy$/);
+  });
+});
+
+describe('a Z-up file exported without converting', () => {
+  it('is refused with no legs found, saying it looks authored Z-up and what to do', async () => {
+    // glTF 2.0 §3.4: +Y is up. The same biped stood on its back has no chain hanging down in +Y.
+    const glb = await zUpUnconverted(biped('Pell'));
+    await expect(analyseUpload([{ originalname: 'lying.glb', buffer: Buffer.from(glb) }])).rejects.toMatchObject({
+      code: 'no_legs',
+      message: expect.stringMatching(/looks authored Z-up and exported without converting.*Export with \+Y up/),
+    });
   });
 });
 
