@@ -10,7 +10,7 @@ import type { Db } from '../db';
 import { encodeCourse } from '../../engine/course/encoding';
 import { summariseOutcome, type CandidateOutcome, type CourseOutcome } from '../../engine/dialin/objective';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
-import { loadCourse, type LoadedCourse } from '../services/courses';
+import { loadCourses } from '../services/courses';
 import { loadCharacterRig } from '../services/characters';
 import { settleReservation } from '../services/billing-limits';
 import { dialInParamSchema, type DialInResult, type DialInScores } from '../../schemas/dial-ins';
@@ -58,8 +58,7 @@ export function dialInJobHandler(db: Db, clock: Clock): JobHandler {
   return async (ctx) => {
     const input = dialInJobInputSchema.parse(ctx.input);
     const character = await loadCharacterRig(db, ctx.teamId, input.characterId);
-    const courses: LoadedCourse[] = [];
-    for (const id of input.courseIds) courses.push(await loadCourse(db, ctx.teamId, id));
+    const courses = await loadCourses(db, ctx.teamId, input.courseIds);
     const context: DialInContext = { rig: character.rig, base: input.base, params: input.params, courses: courses.map((c) => encodeCourse(c.heightfield)), options: { duration: input.duration } };
     // While running, the plot follows candidates as they arrive (any order); the final one is in candidate order.
     const arrived: EvaluatedCandidate[] = [];

@@ -7,7 +7,7 @@ import type { Clock } from '../clock';
 import type { Db } from '../db';
 import { encodeCourse } from '../../engine/course/encoding';
 import { LegSetupSchema } from '../../engine/gait/leg-setup';
-import { loadCourse, type LoadedCourse } from '../services/courses';
+import { loadCourses } from '../services/courses';
 import { loadCharacterRig } from '../services/characters';
 import { TRIAL_SECONDS, type TrialJobResult } from '../../schemas/trials';
 import type { TrialTaskResult } from '../workers/trial-worker';
@@ -32,8 +32,7 @@ export function trialJobHandler(db: Db, clock: Clock): JobHandler {
   return async (ctx) => {
     const input = trialJobInputSchema.parse(ctx.input);
     const character = await loadCharacterRig(db, ctx.teamId, input.characterId);
-    const courses: LoadedCourse[] = [];
-    for (const id of input.courseIds) courses.push(await loadCourse(db, ctx.teamId, id));
+    const courses = await loadCourses(db, ctx.teamId, input.courseIds);
     const fractions = courses.map(() => 0);
     const results = await Promise.all(
       courses.map((c, i) =>

@@ -4,7 +4,7 @@ import { viewerOf } from '../middleware/auth';
 import { dialInAcceptSchema, dialInRequestSchema, dialInResultSchema } from '../../schemas/dial-ins';
 import type { JobAccepted } from '../../schemas/jobs';
 import { TRIAL_SECONDS } from '../../schemas/trials';
-import { loadSuiteCourses } from '../services/courses';
+import { loadSuiteCoursesToRun } from '../services/courses';
 import { attachReservation, releaseReservation, reserveAllowance } from '../services/billing-limits';
 import { assertFitsRig, findLegSetup, resolveLegSetup, saveLegSetup } from '../services/leg-setups';
 import { loadCharacterRig } from '../services/characters';
@@ -29,8 +29,7 @@ export function dialInsRoutes(deps: AppDeps) {
     const ask = parseWith(dialInRequestSchema, req.body);
     const character = await loadCharacterRig(deps.db, team.id, ask.characterId);
     const resolved = await resolveLegSetup(deps.db, team.id, character, { legSetupId: ask.legSetupId });
-    const courses = await loadSuiteCourses(deps.db, team.id, ask.suiteId);
-    if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    const courses = await loadSuiteCoursesToRun(deps.db, team.id, ask.suiteId);
     // Whatever the job would fail on is refused now (before any allowance is held), naming the setting and the fix.
     assertRunnable(character.rig, resolved.setup, courses, { field: 'setup', courseField: 'suiteId', options: { duration: TRIAL_SECONDS } });
     // A longer stance needs more course ahead: the longest the search may try must fit too.

@@ -1,11 +1,11 @@
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { HttpError, parseWith } from '../errors';
+import { parseWith } from '../errors';
 import { assertRunnable, parseSubmission } from '../services/submission-checks';
 import { viewerOf } from '../middleware/auth';
 import { trialRequestSchema, TRIAL_SECONDS, type TrialList } from '../../schemas/trials';
 import type { JobAccepted } from '../../schemas/jobs';
-import { loadCourse, loadSuiteCourses } from '../services/courses';
+import { loadCourse, loadSuiteCoursesToRun } from '../services/courses';
 import { resolveLegSetup } from '../services/leg-setups';
 import { loadCharacterRig } from '../services/characters';
 import { listTrials, trialDetail } from '../services/trials';
@@ -30,8 +30,7 @@ export function trialsRoutes(deps: AppDeps) {
     const ask = parseSubmission(trialRequestSchema, req.body);
     const character = await loadCharacterRig(deps.db, team.id, ask.characterId);
     const resolved = await resolveLegSetup(deps.db, team.id, character, ask);
-    const courses = ask.courseId !== undefined ? [await loadCourse(deps.db, team.id, ask.courseId)] : await loadSuiteCourses(deps.db, team.id, ask.suiteId!);
-    if (courses.length === 0) throw new HttpError(400, 'invalid_input', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+    const courses = ask.courseId !== undefined ? [await loadCourse(deps.db, team.id, ask.courseId)] : await loadSuiteCoursesToRun(deps.db, team.id, ask.suiteId!);
     // Whatever the job would fail on is refused now, naming the setting and the fix.
     assertRunnable(character.rig, resolved.setup, courses, { field: ask.legSetup ? 'legSetup' : 'setup', courseField: ask.courseId !== undefined ? 'courseId' : 'suiteId', options: { duration: TRIAL_SECONDS } });
     const courseIds = courses.map((c) => c.id);

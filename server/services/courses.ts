@@ -67,6 +67,20 @@ export async function loadSuiteCourses(db: Conn, teamId: number, suiteId: number
   return rows.map(loaded);
 }
 
+/** The courses a trial, dial-in or suite run walks: a suite without any is a 400 saying so. */
+export async function loadSuiteCoursesToRun(db: Conn, teamId: number, suiteId: number): Promise<LoadedCourse[]> {
+  const courses = await loadSuiteCourses(db, teamId, suiteId);
+  if (courses.length === 0) throw new HttpError(400, 'empty_suite', 'That suite has no courses yet; add one first.', { suiteId: 'This suite has no courses.' });
+  return courses;
+}
+
+/** Courses by id, in that order (as a job's input lists them); one not the team's is a 404. */
+export async function loadCourses(db: Conn, teamId: number, courseIds: readonly number[]): Promise<LoadedCourse[]> {
+  const courses: LoadedCourse[] = [];
+  for (const id of courseIds) courses.push(await loadCourse(db, teamId, id));
+  return courses;
+}
+
 /** The grid figures kept beside the encoding. */
 function figuresOf(hf: Heightfield) {
   const { min, max } = heightRange(hf);

@@ -6,14 +6,15 @@
 import crypto from 'node:crypto';
 import type { Db } from '../db';
 import { HttpError } from '../errors';
-import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
+import { defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import { runSuite, type SuiteRun } from '../../engine/profile/run-suite';
 import { roundProfileNumbers } from '../../engine/profile/export';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { findSuite } from './suites';
-import { loadSuiteCourses, type LoadedCourse } from './courses';
+import { loadSuiteCoursesToRun, type LoadedCourse } from './courses';
 import { rigOf, type TrialCharacter } from './characters';
+import { assertFitsRig } from './leg-setups';
 
 export interface LoadedSuite {
   id: number;
@@ -28,18 +29,13 @@ export interface LoadedSuite {
  */
 export function setupFor(rig: Rig, setup: unknown | undefined): LegSetup {
   const parsed = roundProfileNumbers(setup === undefined ? defaultLegSetup(rig) : LegSetupSchema.parse(setup));
-  try {
-    checkLegSetupForRig(parsed, rig);
-  } catch (err) {
-    throw new HttpError(400, 'invalid_leg_setup', `The leg setup does not fit ${rig.name}: ${(err as Error).message}`, { legSetup: (err as Error).message });
-  }
+  assertFitsRig(parsed, rig, 'legSetup');
   return parsed;
 }
 
 export async function loadSuite(db: Db, teamId: number, suiteId: number): Promise<LoadedSuite> {
   const suite = await findSuite(db, teamId, suiteId);
-  const courses = await loadSuiteCourses(db, teamId, suiteId);
-  if (courses.length === 0) throw new HttpError(400, 'empty_suite', `The suite "${suite.name}" has no courses. Add a course to it first.`, { suiteId: 'This suite has no courses.' });
+  const courses = await loadSuiteCoursesToRun(db, teamId, suiteId);
   return { id: suite.id, name: suite.name, courses };
 }
 
