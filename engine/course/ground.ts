@@ -24,15 +24,24 @@ export interface HeightfieldGround extends Ground {
   readonly heightfield: Heightfield;
 }
 
+/** One class for every heightfield: its methods are one function each, so call sites stay monomorphic across trials. */
+class HeightfieldGroundOf implements HeightfieldGround {
+  readonly heightfield: Heightfield;
+  readonly spacing: number;
+  constructor(hf: Heightfield) {
+    this.heightfield = hf;
+    this.spacing = hf.cellSize;
+  }
+  height(x: number, z: number): number {
+    return heightAt(this.heightfield, x, z);
+  }
+  normal(x: number, z: number, out: Float64Array, o: number): void {
+    normalAt(this.heightfield, x, z, out, o);
+  }
+}
+
 export function heightfieldGround(hf: Heightfield): HeightfieldGround {
-  return {
-    heightfield: hf,
-    spacing: hf.cellSize,
-    height: (x, z) => heightAt(hf, x, z),
-    normal: (x, z, out, o) => {
-      normalAt(hf, x, z, out, o);
-    },
-  };
+  return new HeightfieldGroundOf(hf);
 }
 
 export function isGround(g: Heightfield | Ground): g is Ground {

@@ -10,16 +10,19 @@
  */
 import { quat, vec3 } from 'gl-matrix';
 import * as walkPath from '../course/walk-path';
-import { terrainCost } from './foothold';
-import { CANDIDATE_PATTERN, CANDIDATE_COUNT } from './foothold';
-import { CANDIDATE_MAX, REACH_COST_START } from './reach';
+import * as foothold from './foothold';
+import * as reachRules from './reach';
 import * as swingPath from './swing-path';
-import { DRIVE_PATH, type Walk } from './walk-state';
+import * as walkState from './walk-state';
+import type { Walk } from './walk-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { minimumJerk, planSwing, swingPoint } = swingPath;
 const { transformQuat } = vec3;
 const { trackPoint } = walkPath;
+const { terrainCost, CANDIDATE_PATTERN, CANDIDATE_COUNT } = foothold;
+const { CANDIDATE_MAX, REACH_COST_START } = reachRules;
+const { DRIVE_PATH } = walkState;
 
 /** Winter (1992): minimum toe clearance in swing about 1.29 cm; no swing plans less. */
 export const MIN_TOE_CLEARANCE = 0.0129;

@@ -11,17 +11,13 @@ import type { TrialMetrics } from '../metrics/trial-metrics';
 import { recordJointAngles } from './joint-angles';
 import { createSeries, trimSeries, type TrialSeries } from './series';
 import * as swingPath from './swing-path';
-import {
-  BODY_STEP_UP_MIN,
-  BODY_WINDOW_SECONDS,
-  TOUCHDOWN_MIN_DESCENT,
-  TOUCHDOWN_WINDOW_SECONDS,
-} from './trial-options';
+import * as trialOptions from './trial-options';
 import type { TrialResult } from './trial-state';
 import type { Walk } from './walk-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { descentStart } = swingPath;
+const { BODY_STEP_UP_MIN, BODY_WINDOW_SECONDS, TOUCHDOWN_MIN_DESCENT, TOUCHDOWN_WINDOW_SECONDS } = trialOptions;
 
 export interface TrialRecorder {
   readonly detector: StumbleDetector;

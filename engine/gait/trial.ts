@@ -15,10 +15,10 @@ import { parseOrThrow } from '../course/parse';
 import { createPathTrack } from '../course/walk-path';
 import { resolveGait } from './gait-params';
 import { parseLegSetup } from './leg-setup';
-import { createRecorder, finishRecord, observeSolved, observeStep } from './trial-record';
+import * as trialRecord from './trial-record';
 import { END_MARGIN, TrialOptionsSchema, type TrialOptionsInput } from './trial-options';
 import type { Trial, TrialResult } from './trial-state';
-import { createWalk, solveLegs, stepWalk } from './walk';
+import * as walkModule from './walk';
 
 export type { Trial, TrialResult } from './trial-state';
 export type { TrialRecorder } from './trial-record';
@@ -26,6 +26,8 @@ export * from './trial-options';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { heightfieldGround } = groundQueries;
+const { createRecorder, finishRecord, observeSolved, observeStep } = trialRecord;
+const { createWalk, solveLegs, stepWalk } = walkModule;
 
 /** Set up a trial; the setup and options are validated and bad input throws naming the problem. */
 export function createTrial(rig: import('./rig').Rig, setupInput: unknown, course: Heightfield, optionsInput: TrialOptionsInput = {}): Trial {
