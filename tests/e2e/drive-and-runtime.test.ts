@@ -137,6 +137,14 @@ describe('the runtime package', () => {
     expect([body[0], body[1]]).toEqual([0x1f, 0x8b]);
     await page.getByText('npm install ./' + RUNTIME_TARBALL, { exact: false }).first().scrollIntoViewIfNeeded();
     await screenshot(page, 'profile-runtime-wide');
+    const phone = await studio.newPage(PHONE, { hasTouch: true });
+    await studio.signIn(phone, 'programmer@brassmoth.test');
+    await phone.goto(`${studio.server.url}/profiles/${profile.id}`);
+    const phoneLink = phone.getByRole('link', { name: `Download the runtime package (${RUNTIME_TARBALL})` });
+    await phoneLink.scrollIntoViewIfNeeded();
+    // A link a thumb can hit (touch targets at least 44 px high, product.md).
+    expect((await phoneLink.boundingBox())!.height).toBeGreaterThanOrEqual(44);
+    await screenshot(phone, 'profile-runtime-phone');
 
     const sample = page.getByRole('link', { name: 'Play the sample game with this profile' });
     expect(await sample.getAttribute('href')).toBe(`/api/runtime/sample/${profile.id}`);

@@ -112,7 +112,7 @@ async function start() {
   const skinned = skinOf(gltf.scene);
   const bones = skinned.skeleton.bones;
   gltf.scene.updateMatrixWorld(true);
-  const legs = createLegRuntime(bindLegProfile(profile, skeletonFromBones(bones)), ground);
+  const legs = createLegRuntime(bindLegProfile(profile, skeletonFromBones(bones)), ground, { standing: true }); // spawn at rest
 
   // Rest rotations in the character's own space, once: a moving bone turns by the runtime's rotation from there.
   const sceneInverse = gltf.scene.matrixWorld.clone().invert();
