@@ -4,7 +4,7 @@
  */
 import { generateCourse } from '../../../engine/course';
 import { GAUNTLET, TURN_RADIUS } from '../../../engine/course/gauntlet';
-import { createTrial, defaultLegSetup, finishTrial, PRESET_RIG_NAMES, presetRig, runTrial, stepTrial, type Trial } from '../../../engine/gait';
+import { createTrial, defaultLegSetup, finishTrial, PRESET_RIG_NAMES, presetRig, resolveGait, runTrial, stepTrial, type Trial } from '../../../engine/gait';
 import { detectStumbles } from '../../../engine/metrics/detect-series';
 
 const turn = GAUNTLET.find((c) => c.name === 'turn: 2 m circle')!;
@@ -142,5 +142,33 @@ describe('a setup that cannot keep its feet on a turn', () => {
     const key = (e: { kind: string; time: number; leg: number }) => `${e.kind}/${e.leg}/${Math.round(e.time * 60)}`;
     expect(offline.events().map(key)).toEqual(r.metrics.events.map(key));
     expect(offline.steps).toBe(r.metrics.steps);
+  });
+});
+
+describe('a walk path with a speed of its own', () => {
+  it.each(PRESET_RIG_NAMES)('%s walks an open S-path at its speed, the cadence by the rule, and stops at its end (Alexander 1976: cadence ∝ v^0.4)', (name) => {
+    const rig = presetRig(name);
+    const setup = defaultLegSetup(rig);
+    const gait = resolveGait(setup.gait, rig);
+    const speed = 0.7 * gait.speed;
+    const course = generateCourse({
+      width: 4,
+      segments: [{ kind: 'flat', length: 14 }],
+      walkPath: { points: [{ x: 0, z: 2 }, { x: 0.8, z: 5 }, { x: -0.8, z: 8 }, { x: 0, z: 11 }], speed },
+    });
+    const t = createTrial(rig, setup, course, { duration: 120 });
+    let longest = 0;
+    while (stepTrial(t)) longest = Math.max(longest, t.cycleTime);
+    const r = finishTrial(t);
+    // It ends where the path ends, having walked it at the path's speed (the pace only slows on rough ground).
+    expect(t.motion.s).toBeGreaterThanOrEqual(t.track!.length);
+    expect(t.motion.s).toBeLessThan(t.track!.length + speed / 30);
+    expect(r.metrics.simSeconds).toBeCloseTo(t.track!.length / speed, 0);
+    expect(Math.hypot(t.bodyPos[0], t.bodyPos[2] - 11)).toBeLessThan(0.05);
+    // The cycle is T0·(v/v0)^−0.4 (the fastest foot a little faster on the bends), shortened on sharp turns.
+    const rule = gait.cycleTime * Math.pow(0.7, -0.4);
+    expect(longest).toBeLessThanOrEqual(rule + 1e-12);
+    expect(longest).toBeGreaterThan(0.97 * rule);
+    expect(r.metrics.stumbles.skid.count).toBe(0);
   });
 });
