@@ -7,8 +7,11 @@
  *   const bound = bindLegProfile(profile, skeleton);       // joints by name; names every missing one
  *   const legs = createLegRuntime(bound, ground, {         // ground: a Heightfield, or a GroundQuery callback
  *     position: [0, 0], heading: 0,                        //   where the body starts (x, z; rad about +Y, 0 faces +Z)
+ *     standing: true,                                      //   start with every foot planted (else: walking, as a trial)
  *     onError: (e) => console.warn(e.message),             //   a ground callback that throws or gives NaN: once
  *   });
+ *   // createRigRuntime(rig, legSetup, ground, options): the same for a rig and an unsaved leg setup (drive mode);
+ *   // options.watchStumbles + legs.stumbleCounts(out) count stumbles as trials do (RUNTIME_STUMBLE_KINDS order).
  *   // each game frame, one of:
  *   legs.drive(vx, vz, turnRate);                          // desired planar velocity (world, m/s) and turn rate (rad/s)
  *   legs.follow(x, z, heading);                            // or: the body's world transform the game moved it to
@@ -30,9 +33,11 @@
  * cycle time is T(v) = T0 · (v / v0)^(−0.4), the relation Alexander (1976, Nature 261) fitted to walking animals
  * and people (relative stride ∝ Froude number^0.3, so cadence ∝ v^0.4). The speed is the fastest a foot moves
  * relative to the body (|v| + |turn rate| × the farthest foot's distance from the body's centre), so turning in
- * place steps too. The cycle is kept within [0.6, 2] × T0 (common practice, no source) and the speed at most
- * the walk-to-run transition, Froude number 0.5 (Kram, Domingo & Ferris 1997), or 2 × v0, whichever is more.
- * Below 2 % of v0 the walk stops: each foot finishes its step where the body stands and stays planted.
+ * place steps too. The cycle is kept within [0.6, 2] × T0 (common practice, no source), and short enough on a
+ * turn that one stance turns the body by at most 20°. The speed is at most the walk-to-run transition, Froude
+ * number 0.5 (Kram, Domingo & Ferris 1997), or v0 if that is faster; speed and turn rate ramp over a few cycles
+ * and brake twice as fast. Below 2 % of v0 the walk stops: every foot already within a tenth of a stride of
+ * where a step would put it stays planted, the others take one more step (engine/gait/walk-speed.ts).
  *
  * Each step runs the walk Treadle measures with (engine/gait/walk.ts: gait clock, foot planner, body, and the
  * profile's solver from engine/ik) and no trial recorder: a game sees the feet Treadle scored.
