@@ -249,6 +249,18 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
             <Button label="Set a walk path" tone="quiet" onPress={() => setWalkPath(straightPath(hf))} />
           )}
         </View>
+        {walkPath ? (
+          <ChoiceChips
+            label="At the last point"
+            choices={[
+              { value: 'end', label: 'The walk ends' },
+              { value: 'loop', label: 'It loops to point 1' },
+            ]}
+            value={walkPath.closed ? 'loop' : 'end'}
+            onChange={(v) => setWalkPath({ ...walkPath, closed: v === 'loop' })}
+            error={fieldErrors['encoding.walkPath.points'] ?? fieldErrors['encoding.walkPath']}
+          />
+        ) : null}
       </View>
     ) : null;
   const profile = frame ? <SideProfile hf={hf} frame={frame} revision={revision} depth={profileDepth} /> : null;
