@@ -2,7 +2,8 @@ import { useState } from 'react';
 import { Linking, Platform, Pressable, StyleSheet, Text, View } from 'react-native';
 import type { FindingMeaning, ImportReport, ValidatorFindingGroup } from '../../schemas/characters';
 import { colors, radius, space, touchTarget, type } from '../../constants/theme';
-import { formatMetres } from './format';
+import type { LengthUnit } from '../../engine/rig/skeleton-scale';
+import { formatCharacterLength } from './format';
 
 const SEVERITY_COLOR = { error: colors.danger, warning: '#D99A1E', info: colors.graphite, hint: colors.graphite } as const;
 const SEVERITY_MARK = { error: '✕', warning: '!', info: 'i', hint: '·' } as const;
@@ -73,7 +74,7 @@ function FindingGroups({ groups }: { groups: ValidatorFindingGroup[] }) {
  * What the import found: figures, Treadle's own notes, then the Khronos validator's counts and its findings grouped by
  * what they mean for walking (the raw list behind a toggle). Lengths are shown in metres with the unit fix applied.
  */
-export function ImportReportView({ report, unitScale = 1 }: { report: ImportReport; unitScale?: number }) {
+export function ImportReportView({ report, unitScale = 1, unit = 'metres' }: { report: ImportReport; unitScale?: number; unit?: LengthUnit }) {
   const [all, setAll] = useState(false);
   const { validator, stats } = report;
   // Once the unit fix is stored, the note that asked for it has been answered.
@@ -90,7 +91,7 @@ export function ImportReportView({ report, unitScale = 1 }: { report: ImportRepo
         <Count label="joints" value={stats.joints} tone={colors.ink} />
         <Count label="vertices" value={stats.vertices} tone={colors.ink} />
         <View style={styles.count}>
-          <Text style={styles.countValue}>{formatMetres(stats.height * unitScale)}</Text>
+          <Text style={styles.countValue}>{formatCharacterLength(stats.height * unitScale, unit)}</Text>
           <Text style={styles.countLabel}>skeleton height</Text>
         </View>
       </View>

@@ -3,16 +3,18 @@ import type { DetectedLeg, LegMapping, SkeletonJointSummary } from '../../schema
 import { chainLengths } from '../../engine/rig/skeleton-world';
 import { legPath } from '../../engine/rig/detect-legs';
 import { colors, radius, space, type } from '../../constants/theme';
-import { DOF_LABEL, formatDegrees, formatMetres, sideColor } from './format';
+import type { LengthUnit } from '../../engine/rig/skeleton-scale';
+import { DOF_LABEL, formatCharacterLength, formatDegrees, formatMetres, sideColor } from './format';
 
 function limitText(j: LegMapping['joints'][number]): string {
   if (j.dof === 'ball') return `swing ≤ ${formatDegrees(j.limits[0].max)}, twist ${formatDegrees(j.limits[1].min)}…${formatDegrees(j.limits[1].max)}`;
+  // Slider strokes are the engine's metres, whatever the file's unit.
   if (j.dof === 'slider') return j.limits.map((l) => `${formatMetres(l.min)}…${formatMetres(l.max)}`).join(', ');
   return j.limits.map((l) => `${formatDegrees(l.min)}…${formatDegrees(l.max)}`).join(', ');
 }
 
-/** Each leg with its joints, their DOF kind and limits, segment lengths and reach; the detection's confidence when shown. */
-export function LegList({ legs, joints, detected }: { legs: LegMapping[]; joints: SkeletonJointSummary[]; detected?: DetectedLeg[] }) {
+/** Each leg with its joints, their DOF kind and limits, segment lengths and reach (in `unit`); the detection's confidence when shown. */
+export function LegList({ legs, joints, detected, unit = 'metres' }: { legs: LegMapping[]; joints: SkeletonJointSummary[]; detected?: DetectedLeg[]; unit?: LengthUnit }) {
   const positions = joints.flatMap((j) => j.position);
   return (
     <View style={styles.list} aria-label="Legs">
@@ -25,7 +27,7 @@ export function LegList({ legs, joints, detected }: { legs: LegMapping[]; joints
             <View style={styles.head}>
               <View style={[styles.swatch, { backgroundColor: sideColor[leg.side] }]} />
               <Text style={styles.name}>{leg.name}</Text>
-              <Text style={styles.reach}>{formatMetres(total)}</Text>
+              <Text style={styles.reach}>{formatCharacterLength(total, unit)}</Text>
             </View>
             {leg.joints.map((j, k) => (
               <View key={k} style={styles.joint}>
@@ -33,7 +35,7 @@ export function LegList({ legs, joints, detected }: { legs: LegMapping[]; joints
                   {joints[j.joint]?.name ?? `joint ${j.joint}`}
                 </Text>
                 <Text style={styles.dof}>{DOF_LABEL[j.dof]}</Text>
-                <Text style={styles.figure}>{formatMetres(segments[k])}</Text>
+                <Text style={styles.figure}>{formatCharacterLength(segments[k], unit)}</Text>
                 <Text style={styles.limits}>{limitText(j)}</Text>
               </View>
             ))}

@@ -67,18 +67,26 @@ describe('characters from real exporters', () => {
     await waitForMesh(page);
     const fix = page.getByRole('button', { name: 'Scale by 0.01 (centimetres to metres)' });
     await fix.waitFor();
-    // Read as glTF's metres the skeleton is 86 m tall; the report's figure says so before the fix.
-    await page.getByText('86.0 m', { exact: true }).waitFor();
+    // 86 units tall: until the fix the figures are labelled in the unit the file is in, never centimetres as "m".
+    await page.getByText('86.0 cm', { exact: true }).waitFor();
+    expect(await page.getByText('86.0 m', { exact: true }).count()).toBe(0);
     await page.getByText('This file looks authored in centimetres').waitFor();
     const before = await drawnPixels(page);
     expect(before.drawn).toBeGreaterThan(500);
     expect(before.top).toBe(0);
     await screenshot(page, 'character-units-before-phone');
+    await page.setViewportSize(WIDE);
+    await fix.waitFor();
+    await screenshot(page, 'character-units-before-wide');
+    await page.getByLabel('Import report').scrollIntoViewIfNeeded();
+    await screenshot(page, 'character-units-report-before-wide');
+    await page.setViewportSize(PHONE);
+    await page.getByRole('button', { name: 'Scale by 0.01 (centimetres to metres)' }).scrollIntoViewIfNeeded();
 
     await fix.click();
     await page.getByText('Scaled by 0.01 to metres').waitFor();
     await page.getByText('0.860 m', { exact: true }).waitFor();
-    expect(await page.getByText('86.0 m', { exact: true }).count()).toBe(0);
+    expect(await page.getByText('86.0 cm', { exact: true }).count()).toBe(0);
     expect(await fix.count()).toBe(0);
     // The legs' evidence is measured again in metres.
     expect(await page.getByText(/hangs \d+\.\d cm/).count()).toBe(0);
@@ -89,6 +97,12 @@ describe('characters from real exporters', () => {
     await screenshot(page, 'character-units-after-phone');
     await page.getByLabel('Import report').scrollIntoViewIfNeeded();
     await screenshot(page, 'character-units-report-phone');
+
+    // Undo brings the file's own reading back, and the offer with it.
+    await page.getByRole('button', { name: 'Undo the scale' }).click();
+    await fix.waitFor();
+    await page.getByText('86.0 cm', { exact: true }).waitFor();
+    expect(await page.getByText('Scaled by 0.01 to metres').count()).toBe(0);
     await page.close();
   });
 
