@@ -10,7 +10,7 @@ import { Button } from '../ui/Button';
 import { SectionHeading } from '../ui/SectionHeading';
 import { formatMoment } from '../ui/format';
 import { CharacterViewer } from '../viewer/CharacterViewer';
-import { formatBytes } from './format';
+import { displayUnitOf, formatBytes } from './format';
 import { ImportReportView } from './ImportReportView';
 import { LegList } from './LegList';
 import { LegMappingForm } from './LegMappingForm';
@@ -24,6 +24,8 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
   const { character, skeleton, report, detectedLegs } = detail;
   const lede = `${character.legCount} legs · ${character.jointCount} joints · ${formatBytes(character.byteSize)} · uploaded by ${character.uploadedBy.name}, ${formatMoment(character.createdAt)}`;
 
+  // Lengths in the file's apparent unit until a unit fix is stored, then in metres.
+  const unit = displayUnitOf(detail);
   // Rig quirks and detection doubts that concern particular legs, with what to do about them (engine/rig/rig-quirks.ts).
   const legNotes = report.notes.filter((n) => n.legs?.length);
   const legs = (
@@ -45,7 +47,7 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
           }}
         />
       ) : (
-        <LegList legs={character.legs} joints={skeleton.joints} detected={character.legsEdited ? undefined : detectedLegs} />
+        <LegList legs={character.legs} joints={skeleton.joints} detected={character.legsEdited ? undefined : detectedLegs} unit={unit} />
       )}
       {legNotes.length ? (
         <View style={styles.legNotes} aria-label="What to know about these legs">
@@ -62,7 +64,7 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
   const reportCard = (
     <Card>
       <SectionHeading>Import report</SectionHeading>
-      <ImportReportView report={report} unitScale={character.unitScale} />
+      <ImportReportView report={report} unitScale={character.unitScale} unit={unit} />
     </Card>
   );
   return (
