@@ -2,6 +2,10 @@
  * GET /api/runtime…: the runtime package as the Profiles screen links it, built on the first request and then
  * served as it is; the sample game page for a profile; clear refusals for anything else.
  */
+import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { gunzipSync } from 'node:zlib';
 import request from 'supertest';
 import { testApp, type TestApp } from '../support/test-app';
@@ -42,6 +46,20 @@ describe('the runtime routes', () => {
     expect(tar.subarray(0, 100).toString('latin1').replace(/\0+$/, '')).toMatch(/^package\//);
     const again = await request(t.app).get(`/api/runtime/${RUNTIME_TARBALL}`).buffer(true).parse(binary).expect(200);
     expect(Buffer.compare(again.body as Buffer, body)).toBe(0);
+
+    // The downloaded file is the package a programmer installs: into an empty folder, offline, and its example runs.
+    const game = fs.mkdtempSync(path.join(os.tmpdir(), 'treadle-download-'));
+    try {
+      fs.writeFileSync(path.join(game, RUNTIME_TARBALL), body);
+      fs.writeFileSync(path.join(game, 'package.json'), '{ "name": "downloaded", "private": true }\n');
+      const env = { PATH: process.env.PATH ?? '', HOME: game, npm_config_offline: 'true', npm_config_cache: path.join(game, '.npm'), npm_config_audit: 'false', npm_config_fund: 'false', npm_config_update_notifier: 'false' } as unknown as NodeJS.ProcessEnv;
+      expect(spawnSync('npm', ['install', '--offline', `./${RUNTIME_TARBALL}`], { cwd: game, env, encoding: 'utf8' }).status).toBe(0);
+      const run = spawnSync(process.execPath, ['node_modules/treadle-runtime/example.mjs'], { cwd: game, env, encoding: 'utf8' });
+      expect(run.stderr).toBe('');
+      expect(run.stdout).toContain(`treadle-runtime ${RUNTIME_VERSION}: Wicket v1`);
+    } finally {
+      fs.rmSync(game, { recursive: true, force: true });
+    }
   });
 
   it('refuse another file name, naming the package that is here', async () => {
