@@ -24,7 +24,18 @@ function rigProblem(err: LegSetupError): SetupProblem {
   if (!m) return { path: '', message: `${err.message}.` };
   const path = m[1].replace(/\[(\d+)\]/g, '.$1');
   const { label } = nameOf(path);
-  return { path, message: `${label} does not fit this character: ${m[2]}. Change it in the leg setup form.` };
+  return { path, message: `${label}: ${m[2]}. Change it in the leg setup form.` };
+}
+
+/** The rig check alone (leg and joint names, phase offsets per leg) for a setup that already parsed, as a sentence; null when it fits. */
+export function rigFitProblem(setup: LegSetup, rig: Rig): SetupProblem | null {
+  try {
+    checkLegSetupForRig(setup, rig);
+    return null;
+  } catch (err) {
+    if (err instanceof LegSetupError) return rigProblem(err);
+    throw err;
+  }
 }
 
 /** Every problem with a leg setup for a rig: the schema first (all its issues), then the checks that need the rig. */

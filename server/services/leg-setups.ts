@@ -6,7 +6,8 @@
 import type { Knex } from 'knex';
 import type { Db } from '../db';
 import { HttpError, notFound } from '../errors';
-import { checkLegSetupForRig, defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
+import { defaultLegSetup, LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
+import { rigFitProblem } from '../../engine/gait/setup-problems';
 import type { Rig } from '../../engine/gait/rig';
 import type { LegSetupSource, LegSetupVersion } from '../../schemas/leg-setups';
 import { roundProfileNumbers } from '../../engine/profile/export';
@@ -55,13 +56,8 @@ export async function findLegSetup(db: Conn, teamId: number, id: number): Promis
 
 /** The setup must fit the rig (leg and joint names, phase offsets per leg): a 400 whose field names the setting. */
 export function assertFitsRig(setup: LegSetup, rig: Rig, field = 'setup'): void {
-  try {
-    checkLegSetupForRig(setup, rig);
-  } catch (err) {
-    const message = (err as Error).message;
-    const [path] = message.split(':');
-    throw new HttpError(400, 'invalid_input', `This leg setup does not fit the character: ${message}.`, { [`${field}.${path}`]: message });
-  }
+  const problem = rigFitProblem(setup, rig);
+  if (problem) throw new HttpError(400, 'invalid_input', problem.message, { [problem.path ? `${field}.${problem.path}` : field]: problem.message });
 }
 
 /** Saves a new version (numbered after the character's newest) in one transaction. */

@@ -80,7 +80,7 @@ describe('refused at submission', () => {
     const setup = defaultLegSetup(character.rig);
     const offsets = await agent.post('/api/trials').send({ characterId: studio.characters.burrow, courseId: studio.courses.curb, legSetup: { ...setup, gait: { ...setup.gait, phaseOffsets: [0, 0.5] } } });
     expect(offsets.status).toBe(400);
-    expect(offsets.body.error.fields['legSetup.gait.phaseOffsets']).toMatch(/gait\.phaseOffsets: .*4 legs, got 2 offsets; give one offset per leg/);
+    expect(offsets.body.error.fields['legSetup.gait.phaseOffsets']).toMatch(/^Phase offsets: rig .* has 4 legs, got 2 offsets; give one offset per leg, or none to use the pattern's\. Change it in the leg setup form\.$/);
     const short = await agent.post('/api/trials').send({ characterId: studio.characters.burrow, courseId: shortCourse });
     expect(short.status).toBe(400);
     expect(short.body.error.fields.courseId).toMatch(/“Doormat” is too short for this character.*Lengthen the course/);
