@@ -186,13 +186,16 @@ export async function updateCharacterLegs(db: Db, input: { teamId: number; id: n
 }
 
 /**
- * Stores a unit fix (the file stays as uploaded). The detected legs' evidence is measured again in metres; the legs
- * themselves do not change, since detection judges by proportions, not sizes.
+ * Stores a unit fix (the file stays as uploaded). The detected legs' evidence is measured again, in metres once a fix
+ * is stored; the legs themselves do not change, since detection judges by proportions, not sizes.
  */
 export async function updateCharacterUnitScale(db: Db, input: { teamId: number; id: number; unitScale: number; now: number }): Promise<Character> {
   const row = await getCharacterRow(db, input.teamId, input.id);
   const detected = JSON.parse(row.detected_legs_json) as DetectedLeg[];
-  const again = detectLegs(scaledSkeleton({ joints: skeletonOf(row).joints }, input.unitScale), { unit: 'metres' }).legs;
+  // Undone on a file that looks authored in another unit: the evidence goes back to that unit, as at import.
+  const guess = reportOf(row).units?.guess;
+  const unit = input.unitScale === 1 && guess?.certainty === 'likely' ? guess.unit : 'metres';
+  const again = detectLegs(scaledSkeleton({ joints: skeletonOf(row).joints }, input.unitScale), { unit }).legs;
   const sameLegs = again.length === detected.length && again.every((l, i) => l.end === detected[i].end && l.joints.length === detected[i].joints.length);
   const refreshed = sameLegs ? detected.map((l, i) => ({ ...l, evidence: again[i].evidence })) : detected;
   await db.transaction(async (trx) => {

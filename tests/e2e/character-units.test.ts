@@ -102,6 +102,7 @@ describe('characters from real exporters', () => {
     await page.getByRole('button', { name: 'Undo the scale' }).click();
     await fix.waitFor();
     await page.getByText('86.0 cm', { exact: true }).waitFor();
+    await page.getByText(/hangs 60\.0 cm over a length of/).first().waitFor();
     expect(await page.getByText('Scaled by 0.01 to metres').count()).toBe(0);
     await page.close();
   });

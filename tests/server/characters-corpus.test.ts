@@ -205,6 +205,16 @@ describe('the one-tap unit fix, through the API', () => {
     expect(Buffer.compare(fileAfter, Buffer.from(bytes.get('quadruped-centimetres')!))).toBe(0);
   });
 
+  it('undoes the fix with 1: positions and evidence back in the file’s centimetres', async () => {
+    const agent = await signedIn(t.app, studio.members.designer.email);
+    expect((await agent.put(`/api/characters/${id}/unit-scale`).send({ unitScale: 1 })).status).toBe(200);
+    const undone = characterDetailSchema.parse((await agent.get(`/api/characters/${id}`)).body);
+    expect(undone.character.unitScale).toBe(1);
+    expect(Math.max(...undone.skeleton.joints.map((j) => j.position[1]))).toBeGreaterThan(50);
+    for (const leg of undone.detectedLegs) for (const e of leg.evidence.filter((x) => /hangs/.test(x))) expect(e).toMatch(/ cm over a length of \d+(\.\d)? cm$/);
+    expect((await agent.put(`/api/characters/${id}/unit-scale`).send({ unitScale: 0.01 })).status).toBe(200);
+  });
+
   it('refuses a scale that is not a positive number with a field message, changing nothing', async () => {
     const agent = await signedIn(t.app, studio.members.designer.email);
     for (const unitScale of [0, -0.01, 'a lot', 1e9]) {
