@@ -3,7 +3,7 @@ import { resetPasswordSchema, resetRequestSchema, signInSchema, signUpConfirmSch
 import type { AppDeps } from '../deps';
 import type { Db } from '../db';
 import { HttpError, parseWith } from '../errors';
-import { defaultTeamOf, verifyCredentials } from '../services/accounts';
+import { defaultTeamOf, endEverySession, sessionGenerationOf, verifyCredentials } from '../services/accounts';
 import { confirmSignUp, requestSignUp, signUpAnswer } from '../services/sign-up';
 import { requestReset, resetPassword } from '../services/password-reset';
 import { SESSION_COOKIE } from '../middleware/session';
@@ -23,7 +23,7 @@ const RESET = permission('auth.reset', 'Set a new password', 'public');
 
 /** A fresh session id at every sign-in, so a session id planted before sign-in is worthless after it. */
 export async function startSession(db: Db, req: Request, userId: number, teamId: number): Promise<void> {
-  const { session_generation: generation } = await db('users').where({ id: userId }).first('session_generation');
+  const generation = await sessionGenerationOf(db, userId);
   await new Promise<void>((resolve, reject) => {
     req.session.regenerate((err) => {
       if (err) return reject(err);
@@ -75,7 +75,7 @@ export function authRoutes(deps: AppDeps) {
 
   routes.post('/sign-out-everywhere', SIGN_OUT_EVERYWHERE, async (req, res) => {
     const { user } = viewerOf(req);
-    await deps.db('users').where({ id: user.id }).increment('session_generation', 1);
+    await endEverySession(deps.db, user.id);
     await endSession(req);
     res.clearCookie(SESSION_COOKIE);
     res.json({ ok: true });

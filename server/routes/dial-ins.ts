@@ -1,14 +1,14 @@
 import type { AppDeps } from '../deps';
-import { HttpError, notFound, parseWith } from '../errors';
+import { HttpError, parseWith } from '../errors';
 import { viewerOf } from '../middleware/auth';
-import { dialInAcceptSchema, dialInRequestSchema, dialInResultSchema } from '../../schemas/dial-ins';
+import { dialInAcceptSchema, dialInRequestSchema } from '../../schemas/dial-ins';
 import type { JobAccepted } from '../../schemas/jobs';
 import { TRIAL_SECONDS } from '../../schemas/trials';
 import { loadSuiteCoursesToRun } from '../services/courses';
 import { attachReservation, releaseReservation, reserveAllowance } from '../services/billing-limits';
-import { assertFitsRig, findLegSetup, resolveLegSetup, saveLegSetup } from '../services/leg-setups';
+import { findLegSetup, resolveLegSetup } from '../services/leg-setups';
+import { acceptDialIn } from '../services/dial-in-accept';
 import { loadCharacterRig } from '../services/characters';
-import { findJobRow } from '../jobs/job-rows';
 import type { DialInJobInput } from '../jobs/dial-in-job';
 import { jobRunnerOf } from './job-runner-of';
 import { assertRunnable } from '../services/submission-checks';
@@ -65,27 +65,7 @@ export function dialInsRoutes(deps: AppDeps) {
     const { team, user } = viewerOf(req);
     const id = idOf(req);
     const { note } = parseWith(dialInAcceptSchema, req.body);
-    const legSetupId = await deps.db.transaction(async (trx) => {
-      const row = await findJobRow(trx, team.id, id);
-      if (row.kind !== 'dial-in') throw notFound('That dial-in');
-      if (row.status !== 'done' || !row.result) throw new HttpError(409, 'not_finished', 'This dial-in has not finished; accept it once it is done.');
-      const result = dialInResultSchema.parse(JSON.parse(row.result));
-      if (result.acceptedLegSetupId) throw new HttpError(409, 'already_accepted', 'This dial-in was already accepted as a leg setup version.');
-      const character = await loadCharacterRig(trx, team.id, result.characterId);
-      assertFitsRig(result.bestSetup!, character.rig);
-      const gain = (result.after!.footingScore - result.before!.footingScore).toFixed(1);
-      const saved = await saveLegSetup(trx, {
-        teamId: team.id,
-        characterId: character.id,
-        userId: user.id,
-        setup: result.bestSetup!,
-        note: note || `Dial-in ${row.id}: footing score ${result.before!.footingScore.toFixed(1)} → ${result.after!.footingScore.toFixed(1)} (${Number(gain) >= 0 ? '+' : ''}${gain})`,
-        source: 'dial-in',
-        now: deps.clock.now(),
-      });
-      await trx('jobs').where({ id: row.id }).update({ result: JSON.stringify({ ...result, acceptedLegSetupId: saved }), updated_at: deps.clock.now() });
-      return saved;
-    });
+    const legSetupId = await acceptDialIn(deps.db, { teamId: team.id, userId: user.id, jobId: id, note, now: deps.clock.now() });
     res.status(201).json({ legSetup: await findLegSetup(deps.db, team.id, legSetupId) });
   });
 

@@ -5,7 +5,7 @@ import type { AppDeps } from '../deps';
 import { routeTableOf } from '../permissions';
 import { declareRoutes, permission } from './declare';
 import { notFound, parseWith } from '../errors';
-import { teamsOf } from '../services/members';
+import { isMemberOf, teamsOf } from '../services/members';
 
 const READ = permission('me.read', 'See your own account', 'member');
 /** The app's probe on every load: public, so a signed-out visitor gets an answer rather than a 401. */
@@ -28,8 +28,7 @@ export function meRoutes(deps: AppDeps) {
   routes.post('/team', SWITCH_TEAM, async (req, res) => {
     const { user } = viewerOf(req);
     const { teamId } = parseWith(switchTeamSchema, req.body);
-    const member = await deps.db('memberships').where({ team_id: teamId, user_id: user.id }).first();
-    if (!member) throw notFound('That studio');
+    if (!(await isMemberOf(deps.db, teamId, user.id))) throw notFound('That studio');
     req.session.teamId = teamId;
     res.json({ ok: true });
   });

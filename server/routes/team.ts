@@ -4,6 +4,7 @@ import { viewerOf } from '../middleware/auth';
 import { parseWith } from '../errors';
 import { changeRole, listMembers, removeMember } from '../services/members';
 import { createInvite, pendingInvites, resendInvite, revokeInvite } from '../services/invites';
+import { auditEntries } from '../services/audit';
 import { routeTableOf } from '../permissions';
 import { OWNER } from '../role-sets';
 import { declareRoutes, idOf, permission } from './declare';
@@ -61,13 +62,7 @@ export function teamRoutes(deps: AppDeps) {
 
   routes.get('/audit', AUDIT, async (req, res) => {
     const { team } = viewerOf(req);
-    const rows = await deps.db('audit_log as a')
-      .leftJoin('users as u', 'u.id', 'a.actor_user_id')
-      .where('a.team_id', team.id)
-      .orderBy('a.id', 'desc')
-      .limit(200)
-      .select('a.id', 'a.created_at as at', 'u.name as actor', 'a.action', 'a.subject', 'a.detail');
-    const entries: AuditEntry[] = rows.map((r) => ({ ...r, at: Number(r.at), actor: r.actor ?? 'A former member' }));
+    const entries: AuditEntry[] = await auditEntries(deps.db, team.id);
     res.json({ entries });
   });
 

@@ -59,3 +59,14 @@ export async function defaultTeamOf(db: Db, userId: number): Promise<number | nu
   const row = await db('memberships').where({ user_id: userId }).orderBy('created_at').orderBy('team_id').first('team_id');
   return row ? (row.team_id as number) : null;
 }
+
+/** The user's session generation: a session started under an older one is no longer valid. */
+export async function sessionGenerationOf(db: Db, userId: number): Promise<number> {
+  const { session_generation: generation } = await db('users').where({ id: userId }).first('session_generation');
+  return generation as number;
+}
+
+/** Ends every session of the user, on every device, by moving the generation on. */
+export async function endEverySession(db: Db, userId: number): Promise<void> {
+  await db('users').where({ id: userId }).increment('session_generation', 1);
+}

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { AuditEntry } from '../../schemas/team';
 
 export type AuditAction =
   | 'member.role_changed'
@@ -21,4 +22,15 @@ export async function audit(
     detail: entry.detail ?? '',
     created_at: entry.at,
   });
+}
+
+/** The team log, newest first (the last 200 entries); a member who has left shows as "A former member". */
+export async function auditEntries(db: Knex, teamId: number): Promise<AuditEntry[]> {
+  const rows = await db('audit_log as a')
+    .leftJoin('users as u', 'u.id', 'a.actor_user_id')
+    .where('a.team_id', teamId)
+    .orderBy('a.id', 'desc')
+    .limit(200)
+    .select('a.id', 'a.created_at as at', 'u.name as actor', 'a.action', 'a.subject', 'a.detail');
+  return rows.map((r) => ({ ...r, at: Number(r.at), actor: r.actor ?? 'A former member' }));
 }

@@ -56,3 +56,8 @@ export async function teamsOf(db: Db, userId: number): Promise<{ id: number; nam
     .orderBy('m.created_at')
     .select('t.id', 't.name', 'm.role');
 }
+
+/** Whether the user belongs to the team. */
+export async function isMemberOf(db: Db, teamId: number, userId: number): Promise<boolean> {
+  return Boolean(await db('memberships').where({ team_id: teamId, user_id: userId }).first('user_id'));
+}
