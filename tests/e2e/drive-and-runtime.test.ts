@@ -115,6 +115,17 @@ describe('drive mode', () => {
     expect(turned.text).not.toMatch(/NaN|Infinity/);
     expect(turned.x).toBeGreaterThan(after.x + 0.1);
     await screenshot(page, 'drive-wide-turned');
+
+    // An unsaved setup that cannot reach: one solver iteration per frame misses its touchdown targets, and the
+    // drive shows each stumble as it is counted, by name and glyph.
+    await page.getByLabel('Iteration budget', { exact: true }).fill('1');
+    await page.getByRole('button', { name: 'Back to the start' }).click();
+    await page.keyboard.down('w');
+    const flash = page.getByTestId('drive-flash');
+    await flash.waitFor({ timeout: 60_000 });
+    await page.keyboard.up('w');
+    expect(await flash.textContent()).toMatch(/^(Sink|Skid|Reach-miss|Scuff|Snap)$/);
+    await screenshot(page, 'drive-wide-stumble');
   });
 });
 
