@@ -22,14 +22,14 @@ import type { Rig } from '../gait/rig';
 import { END_MARGIN } from '../gait/trial-options';
 import { advanceWalk, createWalk, driveWalk, DRIVE_POSE, DRIVE_VELOCITY, poseWalk, walkResting, type Walk } from '../gait/walk';
 import { createWalkSnapshot, restoreWalk, saveWalk } from '../gait/walk-snapshot';
-import * as ik from '../ik';
+import * as quatMath from '../math/quat';
 import { StumbleDetector } from '../metrics/stumble-detector';
 import { DEFAULT_STUMBLE_THRESHOLDS } from '../metrics/stumble-thresholds';
 import type { GroundQuery, LegRuntimeError, LegRuntimeOptions } from './runtime';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { heightfieldGround, isGround, queryGround, GroundQueryError } = groundQueries;
-const { jointWorldMatrix } = ik;
+const { fromMat3: quatFromMat3 } = quatMath;
 
 /** Longest stretch of game time one update catches up, s. */
 export const MAX_CATCH_UP_SECONDS = 0.25;
@@ -69,7 +69,6 @@ interface Frame {
   bodyRot: Float64Array;
 }
 
-const m4 = new Float64Array(16);
 const qa = new Float64Array(4);
 const qb = new Float64Array(4);
 const p3 = new Float64Array(3);
@@ -154,12 +153,11 @@ export function createDrivenWalk(rig: Rig, setup: unknown, ground: Heightfield |
       const ws = walk.solvers[i];
       for (let k = 0; k < jointCount[i]; k++) {
         const j = jointFirst[i] + k;
-        jointWorldMatrix(ws, k, m4);
-        f.jointPos[3 * j] = m4[12];
-        f.jointPos[3 * j + 1] = m4[13];
-        f.jointPos[3 * j + 2] = m4[14];
-        mat4.getRotation(qa as unknown as quat, m4 as unknown as mat4);
-        f.jointRot.set(qa, 4 * j);
+        // The joint's world position and rotation straight from the solver (gl-matrix's getRotation allocates).
+        f.jointPos[3 * j] = ws.jPos[3 * k];
+        f.jointPos[3 * j + 1] = ws.jPos[3 * k + 1];
+        f.jointPos[3 * j + 2] = ws.jPos[3 * k + 2];
+        quatFromMat3(f.jointRot, 4 * j, ws.jRot, 9 * k);
       }
     }
   };
