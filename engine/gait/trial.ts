@@ -39,7 +39,13 @@ export function createTrial(rig: import('./rig').Rig, setupInput: unknown, cours
   let lastBodyZ = Infinity;
   let lastS = Infinity;
   if (track) {
-    if (!track.closed) lastS = track.length;
+    if (!track.closed) {
+      lastS = track.length;
+      const stride = resolveGait(setup.gait, rig).stride;
+      if (track.length < stride) {
+        throw new Error(`course too short: its walk path is ${track.length.toFixed(2)} m long, less than one ${stride.toFixed(2)} m stride`);
+      }
+    }
   } else {
     // Checked here before the walk is built, so a course too short is named before anything else.
     const gait = resolveGait(setup.gait, rig);

@@ -172,3 +172,11 @@ describe('a walk path with a speed of its own', () => {
     expect(r.metrics.stumbles.skid.count).toBe(0);
   });
 });
+
+describe('a walk path too short to walk', () => {
+  it('is refused, naming its length and the stride (common practice, no source)', () => {
+    const rig = presetRig('biped');
+    const course = generateCourse({ segments: [{ kind: 'flat', length: 4 }], walkPath: { points: [{ x: 0, z: 1 }, { x: 0, z: 1.3 }] } });
+    expect(() => createTrial(rig, defaultLegSetup(rig), course)).toThrow(/course too short: its walk path is 0\.30 m long, less than one 1\.\d\d m stride/);
+  });
+});
