@@ -8,6 +8,7 @@ import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { ImportReportView } from './ImportReportView';
+import { displayUnitOf } from './format';
 
 /** Pick a .glb, or a .gltf together with its .bin and images, send it with progress, then show what the import found. */
 export function UploadPanel() {
@@ -58,7 +59,7 @@ export function UploadPanel() {
           <Link href={`/characters/${result.character.id}`} style={styles.open}>
             Open {result.character.name}
           </Link>
-          <ImportReportView report={result.report} />
+          <ImportReportView report={result.report} unitScale={result.character.unitScale} unit={displayUnitOf(result)} />
         </View>
       ) : null}
     </Card>
