@@ -4,7 +4,7 @@
  */
 import * as Q from '../math/quat';
 import { forwardKinematics as forwardKinematicsImport } from './kinematics';
-import * as L from './layout';
+import { JOINT_HINGE as JOINT_HINGE_, JOINT_BALL as JOINT_BALL_, JOINT_SLIDER as JOINT_SLIDER_, S_CHANGE as S_CHANGE_, S_MOVE as S_MOVE_ } from './layout';
 import { clampBall as clampBallImport } from './limits';
 import type { IKWorkspace } from './workspace';
 
@@ -13,11 +13,11 @@ const forwardKinematics = forwardKinematicsImport;
 const clampBall = clampBallImport;
 const fromRotationVector = Q.fromRotationVector;
 const premultiplyUnit = Q.premultiplyUnit;
-const JOINT_HINGE = L.JOINT_HINGE;
-const JOINT_BALL = L.JOINT_BALL;
-const JOINT_SLIDER = L.JOINT_SLIDER;
-const S_CHANGE = L.S_CHANGE;
-const S_MOVE = L.S_MOVE;
+const JOINT_HINGE = JOINT_HINGE_;
+const JOINT_BALL = JOINT_BALL_;
+const JOINT_SLIDER = JOINT_SLIDER_;
+const S_CHANGE = S_CHANGE_;
+const S_MOVE = S_MOVE_;
 
 /** Sole and target this close to the line through a ball's pivot: no turn toward the target is defined. */
 const BALL_DEGENERATE_BELOW = 1e-14;

@@ -5,12 +5,12 @@
  */
 import * as Q from '../math/quat';
 import { forwardKinematics } from './kinematics';
-import * as L from './layout';
+import { DOF_BALL as DOF_BALL_, DOF_SLIDE as DOF_SLIDE_ } from './layout';
 import { expRotationVector } from './pose';
 import type { IKWorkspace } from './workspace';
 
-const DOF_BALL = L.DOF_BALL;
-const DOF_SLIDE = L.DOF_SLIDE;
+const DOF_BALL = DOF_BALL_;
+const DOF_SLIDE = DOF_SLIDE_;
 
 /**
  * Analytic geometric Jacobian at the current FK (call forwardKinematics first).

@@ -7,19 +7,19 @@
 import { vec3 } from 'gl-matrix';
 import * as M3 from '../math/mat3';
 import * as Q from '../math/quat';
-import * as L from './layout';
+import { JOINT_HINGE as JOINT_HINGE_, JOINT_UNIVERSAL as JOINT_UNIVERSAL_, JOINT_BALL as JOINT_BALL_, JOINT_SLIDER as JOINT_SLIDER_, AXIS_NEGATIVE as AXIS_NEGATIVE_, AXIS_GENERAL as AXIS_GENERAL_ } from './layout';
 import type { IKWorkspace } from './workspace';
 
 // Local bindings: transpiled ES module imports become getter calls on every
 // access, which costs more than the arithmetic here.
 const fromAxisCosSin = M3.fromAxisCosSin;
 const quatFromMat3 = Q.fromMat3;
-const JOINT_HINGE = L.JOINT_HINGE;
-const JOINT_UNIVERSAL = L.JOINT_UNIVERSAL;
-const JOINT_BALL = L.JOINT_BALL;
-const JOINT_SLIDER = L.JOINT_SLIDER;
-const AXIS_NEGATIVE = L.AXIS_NEGATIVE;
-const AXIS_GENERAL = L.AXIS_GENERAL;
+const JOINT_HINGE = JOINT_HINGE_;
+const JOINT_UNIVERSAL = JOINT_UNIVERSAL_;
+const JOINT_BALL = JOINT_BALL_;
+const JOINT_SLIDER = JOINT_SLIDER_;
+const AXIS_NEGATIVE = AXIS_NEGATIVE_;
+const AXIS_GENERAL = AXIS_GENERAL_;
 
 /** Incremental cos/sin updates before an exact recompute. */
 const TRIG_REFRESH = 64;

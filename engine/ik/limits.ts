@@ -3,10 +3,10 @@
  * cone about their twist axis and a twist range (swing–twist decomposition).
  */
 import * as Q from '../math/quat';
-import * as L from './layout';
+import { DOF_BALL as DOF_BALL_ } from './layout';
 import type { IKWorkspace } from './workspace';
 
-const DOF_BALL = L.DOF_BALL;
+const DOF_BALL = DOF_BALL_;
 const multiply = Q.multiply;
 
 /** Below this |q| of the twist part, the twist is taken as 0 (a swing of π: the twist is undefined). */

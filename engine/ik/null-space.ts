@@ -4,12 +4,12 @@
  * foot. Jacobian methods only (not CCD).
  */
 import * as Q from '../math/quat';
-import * as L from './layout';
+import { DOF_BALL as DOF_BALL_, DOF_SLIDE as DOF_SLIDE_ } from './layout';
 import type { IKWorkspace } from './workspace';
 
 const toRotationVector = Q.toRotationVector;
-const DOF_BALL = L.DOF_BALL;
-const DOF_SLIDE = L.DOF_SLIDE;
+const DOF_BALL = DOF_BALL_;
+const DOF_SLIDE = DOF_SLIDE_;
 
 /** Below this hip→foot length (m) the knee's pull is not made sideways (no line to be sideways to). */
 const NO_HIP_FOOT_LINE_BELOW = 1e-12;

@@ -4,11 +4,11 @@
  * refreshed by syncBallPose).
  */
 import * as Q from '../math/quat';
-import * as L from './layout';
+import { DOF_BALL as DOF_BALL_ } from './layout';
 import { clampBall } from './limits';
 import type { IKWorkspace } from './workspace';
 
-const DOF_BALL = L.DOF_BALL;
+const DOF_BALL = DOF_BALL_;
 const fromRotationVector = Q.fromRotationVector;
 const toRotationVector = Q.toRotationVector;
 

@@ -7,15 +7,15 @@
  */
 import * as C from '../math/cholesky';
 import * as SV from '../math/svd';
-import * as L from './layout';
+import { DOF_SLIDE as DOF_SLIDE_, S_LAMBDA2 as S_LAMBDA2_ } from './layout';
 import type { IKWorkspace } from './workspace';
 
 // Local bindings (transpiled imports are getter calls on every use).
 const choleskyDecompose = C.choleskyDecompose;
 const choleskySolve = C.choleskySolve;
 const svdJacobi = SV.svdJacobi;
-const DOF_SLIDE = L.DOF_SLIDE;
-const S_LAMBDA2 = L.S_LAMBDA2;
+const DOF_SLIDE = DOF_SLIDE_;
+const S_LAMBDA2 = S_LAMBDA2_;
 
 /** A ← Σ w_i·j_i·j_iᵀ (m×m row-major). */
 export function weightedGram(J: Float64Array, w: Float64Array, n: number, m: number, A: Float64Array): void {
