@@ -17,7 +17,6 @@ const KNOB = 56;
  */
 export function Thumbstick({ value, label }: { value: { current: StickValue }; label: string }) {
   const [knob, setKnob] = useState({ x: 0, y: 0 });
-  const pad = useRef<View>(null);
   const origin = useRef({ x: 0, y: 0 });
   const place = (e: GestureResponderEvent, start: boolean) => {
     const { pageX, pageY, locationX, locationY } = e.nativeEvent;
@@ -50,7 +49,7 @@ export function Thumbstick({ value, label }: { value: { current: StickValue }; l
     }),
   ).current;
   return (
-    <View ref={pad} style={styles.pad} {...responder.panHandlers} role="slider" aria-label={label} aria-valuenow={Math.round(-knob.y)} testID="drive-stick">
+    <View style={styles.pad} {...responder.panHandlers} role="slider" aria-label={label} aria-valuemin={-100} aria-valuemax={100} aria-valuenow={Math.round((-knob.y / (SIZE / 2 - KNOB / 2)) * 100)} testID="drive-stick">
       <View pointerEvents="none" style={[styles.knob, { transform: [{ translateX: knob.x }, { translateY: knob.y }] }]} />
     </View>
   );
