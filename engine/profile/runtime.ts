@@ -25,6 +25,9 @@
  *   type GroundQuery = (x: number, z: number, normal: Float64Array) => number;
  *     // returns the ground height under (x, z) and writes its unit normal into normal[0..2]
  *     // (like a physics raycast down); a query that leaves the normal untouched gets one estimated from heights.
+ *     // While walking, a query that throws or returns a non-finite height undoes that step, is reported once
+ *     // (onError and lastError) and the last good pose is held; while the feet are first placed (in
+ *     // createLegRuntime) it throws a GroundQueryError naming the point instead.
  *
  * Until the game first calls drive() or follow(), the body walks straight ahead at the profile's gait speed,
  * exactly as Treadle's trials walk (`step()` advances one fixed step without interpolation, as before).
