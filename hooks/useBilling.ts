@@ -41,3 +41,9 @@ function useBillingChange<V>(path: string, body: (v: V) => unknown) {
 export const useChangePlan = () => useBillingChange<PlanId>('/billing/plan', (plan) => ({ plan }));
 export const useCancelSubscription = () => useBillingChange<void>('/billing/cancel', () => ({}));
 export const useResumeSubscription = () => useBillingChange<void>('/billing/resume', () => ({}));
+
+/** The owner's four plan changes, held by the billing screen and handed to its page. */
+export function useBillingChanges() {
+  return { checkout: useStartCheckout(), change: useChangePlan(), cancel: useCancelSubscription(), resume: useResumeSubscription() };
+}
+export type BillingChanges = ReturnType<typeof useBillingChanges>;

@@ -116,3 +116,6 @@ export function useUploadCharacter() {
 
   return { upload, progress, phase, result, error, reset, busy: phase === 'sending' || phase === 'importing' };
 }
+
+/** An upload in progress as the characters screen hands it to the upload panel. */
+export type CharacterUpload = ReturnType<typeof useUploadCharacter>;

@@ -1,5 +1,4 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { CourseCreateInput, CourseDetail, CourseList, CourseUpdate, SuiteCreate, SuiteList, SuiteResponse, SuiteUpdate } from '../schemas/courses';
 import type { StarterCoursesResponse } from '../schemas/starter-courses';
 import { api, ApiError } from './api';
@@ -9,8 +8,6 @@ const courseKey = (id: number) => ['courses', id] as const;
 export const suitesKey = ['suites'] as const;
 
 /** The actions behind the course and suite buttons (server/routes/courses.rules.ts, suites.rules.ts). */
-export const canEditCourses = (me: Me | null | undefined) => !!me?.permissions.includes('courses.edit');
-export const canEditSuites = (me: Me | null | undefined) => !!me?.permissions.includes('suites.edit');
 
 export function useCourses() {
   return useQuery({ queryKey: coursesKey, queryFn: () => api<CourseList>('/courses') });

@@ -1,12 +1,10 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { DialInRequest } from '../schemas/dial-ins';
 import type { DialInAllowance } from '../schemas/dial-in-allowance';
 import type { JobAccepted } from '../schemas/jobs';
 import type { LegSetupVersion } from '../schemas/leg-setups';
 import { api, ApiError } from './api';
 
-export const canDialIn = (me: Me | null | undefined) => !!me?.permissions.includes('dial-ins.run');
 
 export function useStartDialIn() {
   const client = useQueryClient();

@@ -1,9 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { LegSetupCreate, LegSetupList, LegSetupVersion } from '../schemas/leg-setups';
 import { api, ApiError } from './api';
 
-export const canSaveLegSetups = (me: Me | null | undefined) => !!me?.permissions.includes('leg-setups.save');
 const key = (characterId: number) => ['leg-setups', characterId] as const;
 
 export function useLegSetups(characterId: number) {

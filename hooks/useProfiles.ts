@@ -1,5 +1,4 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { ProfileDetail, ProfileList, PublishProfileInput } from '../schemas/profiles';
 import type { ProfileDiff } from '../engine/profile/diff';
 import type { LegProfile } from '../engine/profile/schema';
@@ -7,7 +6,6 @@ import { api, ApiError } from './api';
 
 export const profilesKey = ['profiles'] as const;
 
-export const canPublishProfiles = (me: Me | null | undefined) => !!me?.permissions.includes('profiles.publish');
 
 export function useProfiles() {
   return useQuery({ queryKey: profilesKey, queryFn: () => api<ProfileList>('/profiles') });
@@ -46,3 +44,6 @@ export function usePublishProfile() {
     onSuccess: () => client.invalidateQueries({ queryKey: profilesKey }),
   });
 }
+
+/** The difference between two versions, as the profile screen hands it to VersionDiff. */
+export type ProfileDiffQuery = ReturnType<typeof useProfileDiff>;

@@ -1,11 +1,9 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { ApiToken, ApiTokenList, CreatedToken, CreateTokenInput } from '../schemas/tokens';
 import { api, ApiError } from './api';
 
 const key = ['tokens'] as const;
 
-export const canManageTokens = (me: Me | null | undefined) => !!me?.permissions.includes('tokens.manage');
 
 export function useTokens(enabled = true) {
   return useQuery({ queryKey: key, queryFn: () => api<ApiTokenList>('/tokens'), enabled });

@@ -1,10 +1,8 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Me } from '../schemas/auth';
 import type { JobAccepted } from '../schemas/jobs';
 import type { TrialDetail, TrialList, TrialRequest } from '../schemas/trials';
 import { api, ApiError } from './api';
 
-export const canRunTrials = (me: Me | null | undefined) => !!me?.permissions.includes('trials.run');
 
 export function useTrial(id: number) {
   return useQuery({ queryKey: ['trials', id], queryFn: () => api<TrialDetail>(`/trials/${id}`), enabled: Number.isInteger(id) && id > 0 });

@@ -1,5 +1,7 @@
 import { ResetRequestForm } from '../../components/forms/ResetRequestForm';
+import { useResetRequest } from '../../hooks/useAccountLinks';
 
 export default function ForgotPasswordScreen() {
-  return <ResetRequestForm />;
+  const request = useResetRequest();
+  return <ResetRequestForm request={request} />;
 }

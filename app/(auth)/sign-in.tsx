@@ -1,5 +1,7 @@
 import { SignInForm } from '../../components/forms/SignInForm';
+import { useSignIn } from '../../hooks/useSession';
 
 export default function SignInScreen() {
-  return <SignInForm />;
+  const signIn = useSignIn();
+  return <SignInForm signIn={signIn} />;
 }

@@ -1,5 +1,9 @@
 import { SignUpForm } from '../../components/forms/SignUpForm';
+import { useAppConfig } from '../../hooks/useAccountLinks';
+import { useSignUp } from '../../hooks/useSession';
 
 export default function SignUpScreen() {
-  return <SignUpForm />;
+  const signUp = useSignUp();
+  const config = useAppConfig();
+  return <SignUpForm signUp={signUp} localInboxUrl={config.data?.localInboxUrl} />;
 }

@@ -3,11 +3,12 @@ import { AuthFrame } from '../../components/layout/AuthFrame';
 import { LoadingPage } from '../../components/layout/LoadingPage';
 import { AcceptInviteForm } from '../../components/forms/AcceptInviteForm';
 import { LinkProblem } from '../../components/forms/LinkProblem';
-import { useInvitePreview } from '../../hooks/useAccountLinks';
+import { useAcceptInvite, useInvitePreview } from '../../hooks/useAccountLinks';
 
 export default function InviteScreen() {
   const { token } = useLocalSearchParams<{ token: string }>();
   const invite = useInvitePreview(token);
+  const accept = useAcceptInvite(token);
   return (
     <AuthFrame>
       {invite.isPending ? (
@@ -15,7 +16,7 @@ export default function InviteScreen() {
       ) : invite.isError ? (
         <LinkProblem title="This invite cannot be used" message={invite.error.message} />
       ) : (
-        <AcceptInviteForm token={token} invite={invite.data} />
+        <AcceptInviteForm invite={invite.data} accept={accept} />
       )}
     </AuthFrame>
   );

@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import type { OwnerBilling, Plan, PlanId } from '../../schemas/billing';
+import type { BillingView, OwnerBilling, Plan, PlanId } from '../../schemas/billing';
 import { colors, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
-import { useBilling, useCancelSubscription, useChangePlan, usePlans, useResumeSubscription, useStartCheckout } from '../../hooks/useBilling';
+import type { BillingChanges } from '../../hooks/useBilling';
 import { Screen } from '../layout/Screen';
-import { LoadingPage } from '../layout/LoadingPage';
+import { SplitColumns } from '../layout/SplitColumns';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { SectionHeading } from '../ui/SectionHeading';
@@ -21,13 +21,7 @@ import { readOnlyAfter } from './impact';
 export type CheckoutReturn = 'done' | 'cancelled' | undefined;
 
 /** Team → Billing: the owner's plan, usage, plan changes and invoices; every other role sees the plan's name. */
-export function BillingPage({ checkoutReturn }: { checkoutReturn: CheckoutReturn }) {
-  const billing = useBilling(checkoutReturn === 'done');
-  const plans = usePlans();
-  if (billing.isPending || plans.isPending) return <LoadingPage />;
-  if (billing.isError) return <LoadingPage problem={billing.error.message} onRetry={() => billing.refetch()} />;
-  if (plans.isError) return <LoadingPage problem={plans.error.message} onRetry={() => plans.refetch()} />;
-  const view = billing.data;
+export function BillingPage({ view, plans, changes, checkoutReturn }: { view: BillingView; plans: Plan[]; changes: BillingChanges; checkoutReturn: CheckoutReturn }) {
   if (view.view === 'member') {
     return (
       <Screen title="Billing" lede="The studio’s plan.">
@@ -40,18 +34,15 @@ export function BillingPage({ checkoutReturn }: { checkoutReturn: CheckoutReturn
       </Screen>
     );
   }
-  return <OwnerBillingPage billing={view} plans={plans.data.plans} checkoutReturn={checkoutReturn} />;
+  return <OwnerBillingPage billing={view} plans={plans} changes={changes} checkoutReturn={checkoutReturn} />;
 }
 
-function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBilling; plans: Plan[]; checkoutReturn: CheckoutReturn }) {
+function OwnerBillingPage({ billing, plans, changes, checkoutReturn }: { billing: OwnerBilling; plans: Plan[]; changes: BillingChanges; checkoutReturn: CheckoutReturn }) {
   const wide = useIsWide();
   const [confirming, setConfirming] = useState<PlanId | 'cancel' | null>(null);
   // The note about the way back from checkout is about that moment; the next action makes it old news.
   const [returnNote, setReturnNote] = useState(checkoutReturn);
-  const checkout = useStartCheckout();
-  const change = useChangePlan();
-  const cancel = useCancelSubscription();
-  const resume = useResumeSubscription();
+  const { checkout, change, cancel, resume } = changes;
   const problem = [checkout, change, cancel, resume].find((m) => m.isError)?.error?.message;
   const paid = billing.plan.monthlyPrice > 0;
   const solo = plans.find((p) => p.monthlyPrice === 0)!;
@@ -84,8 +75,8 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
       {problem ? <Notice message={problem} /> : null}
       <BillingCautions testMode={billing.testMode} />
 
-      <View style={[styles.pair, wide && styles.pairWide]}>
-        <View style={wide && styles.half}>
+      <SplitColumns
+        main={
           <CurrentPlanCard
             billing={billing}
             freePlan={solo}
@@ -102,16 +93,16 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
               resume.mutate();
             }}
           />
-        </View>
-        <View style={wide && styles.half}>
+        }
+        side={
           <Card>
             <SectionHeading>Usage</SectionHeading>
             {billing.usage.map((u) => (
               <UsageMeter key={u.kind} usage={u} />
             ))}
           </Card>
-        </View>
-      </View>
+        }
+      />
 
       <SectionHeading>Plans</SectionHeading>
       <View style={[styles.plans, wide && styles.plansWide]}>
@@ -150,9 +141,6 @@ function OwnerBillingPage({ billing, plans, checkoutReturn }: { billing: OwnerBi
 }
 
 const styles = StyleSheet.create({
-  pair: { gap: space.lg },
-  pairWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  half: { flex: 1, minWidth: 0 },
   plans: { gap: space.md },
   plansWide: { flexDirection: 'row', alignItems: 'stretch' },
   memberPlan: { ...type.body, color: colors.ink },

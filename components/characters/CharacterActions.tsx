@@ -1,12 +1,9 @@
 import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
-import { useMe } from '../../hooks/useSession';
-import { canDialIn } from '../../hooks/useDialIn';
 
 /** Where to go from a character: its leg setup with live preview and trials, and the tuner. */
-export function CharacterActions({ characterId }: { characterId: number }) {
-  const me = useMe();
+export function CharacterActions({ characterId, mayDialIn }: { characterId: number; mayDialIn: boolean }) {
   return (
     <View style={styles.row}>
       <Link href={`/characters/setup/${characterId}`} style={styles.primary}>
@@ -14,7 +11,7 @@ export function CharacterActions({ characterId }: { characterId: number }) {
         {'\n'}
         <Text style={styles.primaryBody}>Tune by hand with a live preview, run trials over courses.</Text>
       </Link>
-      {canDialIn(me.data) && (
+      {mayDialIn && (
         <Link href={`/characters/dial-in/${characterId}`} style={styles.secondary}>
           <Text style={styles.secondaryTitle}>Dial-in</Text>
           {'\n'}

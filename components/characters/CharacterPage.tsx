@@ -18,7 +18,7 @@ import { CharacterActions } from './CharacterActions';
 import { UnitFix } from './UnitFix';
 
 /** A character: the 3D view, its legs (and the form to correct them), and the import report. */
-export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail: CharacterDetail; fileUrl: string; mayEdit: boolean; onSaveLegs(legs: LegMapping[]): Promise<void> }) {
+export function CharacterPage({ detail, fileUrl, mayEdit, mayDialIn, onSaveLegs }: { detail: CharacterDetail; fileUrl: string; mayEdit: boolean; mayDialIn: boolean; onSaveLegs(legs: LegMapping[]): Promise<void> }) {
   const wide = useIsWide();
   const [editing, setEditing] = useState(false);
   const { character, skeleton, report, detectedLegs } = detail;
@@ -69,7 +69,7 @@ export function CharacterPage({ detail, fileUrl, mayEdit, onSaveLegs }: { detail
   );
   return (
     <Screen title={character.name} lede={lede} actions={<Link href="/characters" style={styles.back}>All characters</Link>}>
-      <CharacterActions characterId={character.id} />
+      <CharacterActions characterId={character.id} mayDialIn={mayDialIn} />
       <UnitFix detail={detail} mayEdit={mayEdit} />
       {wide ? (
         <View style={styles.columns}>

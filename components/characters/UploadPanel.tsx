@@ -3,7 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { Link } from 'expo-router';
 import * as DocumentPicker from 'expo-document-picker';
 import { colors, radius, space, type } from '../../constants/theme';
-import { useUploadCharacter, type PickedFile } from '../../hooks/useCharacters';
+import type { CharacterUpload, PickedFile } from '../../hooks/useCharacters';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
@@ -11,8 +11,7 @@ import { ImportReportView } from './ImportReportView';
 import { displayUnitOf } from './format';
 
 /** Pick a .glb, or a .gltf together with its .bin and images, send it with progress, then show what the import found. */
-export function UploadPanel() {
-  const { upload, progress, phase, result, error, reset, busy } = useUploadCharacter();
+export function UploadPanel({ upload: { upload, progress, phase, result, error, reset, busy } }: { upload: CharacterUpload }) {
   const [picking, setPicking] = useState(false);
 
   async function pick() {

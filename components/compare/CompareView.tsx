@@ -2,8 +2,8 @@ import type { ReactNode } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, space, type } from '../../constants/theme';
 import type { CompareResult } from '../../hooks/useCompare';
-import { useIsWide } from '../../hooks/useLayout';
 import { FOOTING_SCORE_FORMULA } from '../../engine/metrics/footing-score';
+import { SplitColumns } from '../layout/SplitColumns';
 import { Card } from '../ui/Card';
 import { SectionHeading } from '../ui/SectionHeading';
 import { MetricsTable } from './MetricsTable';
@@ -16,24 +16,28 @@ import type { CompareFocus } from './focus';
  * cursor points at (in the plot, or the walk's playhead); the plot reports its own through `onFocus`.
  */
 export function CompareView({ result, focus, onFocus, children }: { result: CompareResult; focus?: CompareFocus | null; onFocus?: (f: CompareFocus | null) => void; children?: ReactNode }) {
-  const wide = useIsWide();
   const n = result.suite.courses.length;
   return (
     <View style={styles.sections}>
-      <View style={[styles.cols, wide && styles.wide]}>
-        <Card style={wide ? styles.tableCol : undefined}>
-          <SectionHeading>{`On the suite ${result.suite.name}`}</SectionHeading>
-          <Text style={styles.of}>
-            {`Suite figures pool all ${n} ${n === 1 ? 'course' : 'courses'}; the rows under "Per course" are each course on its own, as its trial shows it.`}
-          </Text>
-          <MetricsTable entries={result.entries} focus={focus} />
-          <Text style={styles.formula}>{FOOTING_SCORE_FORMULA.text}</Text>
-        </Card>
-        <Card style={wide ? styles.plotCol : undefined}>
-          <SectionHeading>Along the course</SectionHeading>
-          <OverlayPlot entries={result.entries} courses={result.suite.courses} focus={focus} onFocus={onFocus} />
-        </Card>
-      </View>
+      <SplitColumns
+        weights={[3, 2]}
+        main={
+          <Card>
+            <SectionHeading>{`On the suite ${result.suite.name}`}</SectionHeading>
+            <Text style={styles.of}>
+              {`Suite figures pool all ${n} ${n === 1 ? 'course' : 'courses'}; the rows under "Per course" are each course on its own, as its trial shows it.`}
+            </Text>
+            <MetricsTable entries={result.entries} focus={focus} />
+            <Text style={styles.formula}>{FOOTING_SCORE_FORMULA.text}</Text>
+          </Card>
+        }
+        side={
+          <Card>
+            <SectionHeading>Along the course</SectionHeading>
+            <OverlayPlot entries={result.entries} courses={result.suite.courses} focus={focus} onFocus={onFocus} />
+          </Card>
+        }
+      />
       {children}
     </View>
   );
@@ -41,10 +45,6 @@ export function CompareView({ result, focus, onFocus, children }: { result: Comp
 
 const styles = StyleSheet.create({
   sections: { gap: space.lg },
-  cols: { gap: space.lg },
   of: { ...type.small, color: colors.ink },
-  wide: { flexDirection: 'row', alignItems: 'flex-start' },
-  tableCol: { flex: 3, minWidth: 0 },
-  plotCol: { flex: 2, minWidth: 0 },
   formula: { ...type.small, color: colors.graphite },
 });

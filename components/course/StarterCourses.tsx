@@ -1,6 +1,7 @@
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, radius, space, type } from '../../constants/theme';
-import { useAddStarterCourses } from '../../hooks/useCourses';
+import type { Mutation } from '../../hooks/mutation';
+import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { Button } from '../ui/Button';
 import { Notice } from '../ui/Notice';
 
@@ -11,8 +12,7 @@ const STARTER_POINTS = ['Level ground', 'A gentle 6° slope', 'Three steps at bu
  * The way out of an empty studio: one tap adds four starter courses and a suite of them. `reason` says why the
  * screen needs them (e.g. "Run trial needs ground to walk over"); without the right to make courses it says who can.
  */
-export function StarterCourses({ reason, mayEdit, compact = false }: { reason: string; mayEdit: boolean; compact?: boolean }) {
-  const add = useAddStarterCourses();
+export function StarterCourses({ reason, mayEdit, add, compact = false }: { reason: string; mayEdit: boolean; add: Mutation<void, StarterCoursesResponse>; compact?: boolean }) {
   return (
     <View style={[styles.box, compact && styles.compact]} testID="starter-courses">
       <Text style={styles.reason}>{reason}</Text>

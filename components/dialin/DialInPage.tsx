@@ -1,18 +1,21 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
-import { dialInRequestSchema, TUNABLE_SETTINGS, type DialInResult } from '../../schemas/dial-ins';
+import { dialInRequestSchema, TUNABLE_SETTINGS, type DialInRequest, type DialInResult } from '../../schemas/dial-ins';
 import { fieldMessages } from '../../schemas/errors';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { canEditCourses, useSuites } from '../../hooks/useCourses';
-import { useAcceptDialIn, useDialInAllowance, useStartDialIn } from '../../hooks/useDialIn';
-import { cancelJob, useJob } from '../../hooks/useJobs';
 import { useIsWide } from '../../hooks/useLayout';
-import { useLegSetups } from '../../hooks/useLegSetups';
-import { useMe } from '../../hooks/useSession';
+import type { Mutation, QueryState } from '../../hooks/mutation';
+import type { SuiteList } from '../../schemas/courses';
+import type { LegSetupList, LegSetupVersion } from '../../schemas/leg-setups';
+import type { Job, JobAccepted } from '../../schemas/jobs';
+import type { TrialSummary } from '../../schemas/trials';
+import type { DialInAllowance } from '../../schemas/dial-in-allowance';
+import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { LinePlot } from '../charts/LinePlot';
 import { StarterCourses } from '../course/StarterCourses';
 import { Screen } from '../layout/Screen';
+import { SplitColumns } from '../layout/SplitColumns';
 import { ProgressBar } from '../trial/ProgressBar';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
@@ -46,22 +49,48 @@ function scrollIntoView(ref: React.RefObject<View | null>) {
 }
 
 /** Dial-in: what to tune and in which bounds (each with its value now), the suite, the budget and its cost; progress in view once started; before/after, and accept only when it found something. */
-export function DialInPage({ characterId, characterName, mayRun }: { characterId: number; characterName: string; mayRun: boolean }) {
+export function DialInPage({
+  characterId,
+  characterName,
+  mayRun,
+  mayEditCourses,
+  suites,
+  setups,
+  allowance,
+  start,
+  accept,
+  jobId,
+  onJob,
+  job,
+  onCancel,
+  trials,
+  addStarters,
+}: {
+  characterId: number;
+  characterName: string;
+  mayRun: boolean;
+  mayEditCourses: boolean;
+  suites: QueryState<SuiteList>;
+  setups: QueryState<LegSetupList>;
+  allowance: QueryState<DialInAllowance>;
+  start: Mutation<DialInRequest, JobAccepted>;
+  accept: Mutation<{ jobId: number; note?: string }, { legSetup: LegSetupVersion }>;
+  /** The dial-in started from this page, and its job as it runs. */
+  jobId: number | null;
+  onJob: (id: number) => void;
+  job: QueryState<Job>;
+  onCancel: (jobId: number) => Promise<unknown>;
+  /** The character's trials (for why a dial-in found nothing). */
+  trials: readonly TrialSummary[] | undefined;
+  addStarters: Mutation<void, StarterCoursesResponse>;
+}) {
   const wide = useIsWide();
-  const me = useMe();
-  const suites = useSuites();
-  const setups = useLegSetups(characterId);
-  const allowance = useDialInAllowance(mayRun);
   const [suiteId, setSuiteId] = useState<string | undefined>();
   const [bounds, setBounds] = useState<Bounds>(initialBounds);
   const [candidates, setCandidates] = useState('200');
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const [jobId, setJobId] = useState<number | null>(null);
   const [startSetup, setStartSetup] = useState<unknown>(undefined);
   const progressRef = useRef<View>(null);
-  const start = useStartDialIn();
-  const accept = useAcceptDialIn(characterId);
-  const job = useJob(jobId);
   useEffect(() => {
     if (!suiteId && suites.data?.suites.length) setSuiteId(String(suites.data.suites[0].id));
   }, [suiteId, suites.data]);
@@ -108,7 +137,7 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
     });
     if (accepted) {
       setStartSetup(current);
-      setJobId(accepted.job.id);
+      onJob(accepted.job.id);
     }
   }
 
@@ -154,7 +183,7 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
       })}
       {errors.params ? <Notice message={errors.params} /> : null}
       {noSuite ? (
-        <StarterCourses mayEdit={canEditCourses(me.data)} reason="A dial-in runs over a suite, and this studio has none yet." />
+        <StarterCourses mayEdit={mayEditCourses} add={addStarters} reason="A dial-in runs over a suite, and this studio has none yet." />
       ) : (
         <ChoiceChips label="Suite" choices={(suites.data?.suites ?? []).map((s) => ({ value: String(s.id), label: s.name }))} value={suiteId} onChange={setSuiteId} error={errors.suiteId} disabled={running} />
       )}
@@ -185,7 +214,7 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
           Best so far <Text style={styles.fig}>{result.bestSoFar.toFixed(1)}</Text>
         </Text>
       ) : null}
-      {running ? <Button tone="quiet" label="Cancel" onPress={() => jobId && cancelJob(jobId).then(() => job.refetch())} /> : null}
+      {running ? <Button tone="quiet" label="Cancel" onPress={() => jobId && onCancel(jobId).then(() => job.refetch())} /> : null}
       {status === 'failed' ? <Notice message={job.data.error ?? 'The dial-in failed.'} /> : null}
       {status === 'cancelled' ? <Notice tone="info" message="The dial-in was cancelled; nothing was saved." /> : null}
       {result?.history.length ? (
@@ -203,7 +232,7 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
         <>
           <BeforeAfter result={result} startSetup={startSetup} />
           {gainless ? (
-            <NoGainPanel result={result} characterId={characterId} />
+            <NoGainPanel result={result} trials={trials} />
           ) : accepted ? (
             <View style={styles.onward} testID="dial-in-accepted">
               <Notice tone="info" message={`Saved as leg setup version ${accept.data?.legSetup.version ?? ''}. It is now the newest version, so trials and publishing start from it.`} />
@@ -230,30 +259,25 @@ export function DialInPage({ characterId, characterName, mayRun }: { characterId
   );
   return (
     <Screen title={`${characterName}: dial-in`} lede="The tuner searches the chosen settings within their bounds (Nelder–Mead) to raise the footing score over a suite.">
-      {wide ? (
-        <View style={[styles.split, styles.splitWide]}>
-          <View style={[styles.col, styles.half]}>{setup}</View>
-          <View style={[styles.col, styles.half, styles.stickySide]}>{progressBlock}</View>
-        </View>
-      ) : (
+      <SplitColumns
+        main={setup}
+        side={progressBlock}
+        stickySide
         // Phone: once started, progress comes first so it is in view, not under the long form.
-        <View style={styles.split}>
-          {progress ? progressBlock : null}
-          {setup}
-          {progress ? null : progressBlock}
-        </View>
-      )}
+        narrow={
+          <>
+            {progress ? progressBlock : null}
+            {setup}
+            {progress ? null : progressBlock}
+          </>
+        }
+      />
     </Screen>
   );
 }
 
 const styles = StyleSheet.create({
-  split: { gap: space.lg },
-  splitWide: { flexDirection: 'row', alignItems: 'flex-start' },
   col: { gap: space.lg },
-  half: { flex: 1, minWidth: 0 },
-  // Wide: the progress column stays in view while the form beside it scrolls (a web value react-native-web passes on).
-  stickySide: { position: 'sticky' as 'relative', top: 0 },
   param: { gap: space.xs },
   pair: { flexDirection: 'row', gap: space.md },
   cell: { flex: 1 },

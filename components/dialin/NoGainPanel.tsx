@@ -3,7 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import { STUMBLE_KINDS } from '../../engine/metrics/stumble-thresholds';
 import type { DialInResult } from '../../schemas/dial-ins';
 import { colors, fonts, radius, space, type } from '../../constants/theme';
-import { useTrials } from '../../hooks/useTrials';
+import type { TrialSummary } from '../../schemas/trials';
 import { StumbleGlyph } from '../trial/StumbleGlyph';
 import { STUMBLE_LABELS } from '../trial/stumble-glyphs';
 import { penalties, startStumbles, stopReasonText, type StumbleRates } from './outcome';
@@ -22,15 +22,14 @@ interface CourseWhy {
  * stumbles on every course (from the result, or from the newest stored trial of the same leg setup there).
  * No Accept: there is nothing to save.
  */
-export function NoGainPanel({ result, characterId }: { result: DialInResult; characterId: number }) {
-  const trials = useTrials(characterId);
+export function NoGainPanel({ result, trials: characterTrials }: { result: DialInResult; trials: readonly TrialSummary[] | undefined }) {
   const before = result.before!;
   const after = result.after!;
   const why: CourseWhy[] = before.perCourse.map((c) => {
     const own = startStumbles(result, c.courseId);
     if (own) return { courseId: c.courseId, courseName: c.courseName, score: c.footingScore, rates: own, trialId: null };
     const stored = result.baseLegSetupId
-      ? (trials.data?.trials ?? []).filter((t) => t.courseId === c.courseId && t.legSetupId === result.baseLegSetupId).sort((a, b) => b.createdAt - a.createdAt)[0]
+      ? (characterTrials ?? []).filter((t) => t.courseId === c.courseId && t.legSetupId === result.baseLegSetupId).sort((a, b) => b.createdAt - a.createdAt)[0]
       : undefined;
     const rates = stored ? (Object.fromEntries(STUMBLE_KINDS.map((k) => [k, stored.metrics.stumbles[k]?.per100Steps ?? 0])) as StumbleRates) : null;
     return { courseId: c.courseId, courseName: c.courseName, score: c.footingScore, rates, trialId: stored?.id ?? null };

@@ -4,15 +4,15 @@ import { acceptInviteNewAccountSchema, acceptInviteSchema, type InvitePreview } 
 import { PASSWORD_MIN } from '../../schemas/auth';
 import { roleLabels } from '../../schemas/roles';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useAcceptInvite } from '../../hooks/useAccountLinks';
+import type { Mutation } from '../../hooks/mutation';
+import type { AcceptInviteInput } from '../../schemas/team';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { Button } from '../ui/Button';
 import { Notice } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 
-export function AcceptInviteForm({ token, invite }: { token: string; invite: InvitePreview }) {
+export function AcceptInviteForm({ invite, accept }: { invite: InvitePreview; accept: Mutation<AcceptInviteInput> }) {
   const router = useRouter();
-  const accept = useAcceptInvite(token);
   const form = useSchemaForm(invite.hasAccount ? acceptInviteSchema : acceptInviteNewAccountSchema, { name: '', password: '' });
 
   function submit() {

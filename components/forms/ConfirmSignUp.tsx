@@ -1,7 +1,7 @@
 import { useRouter } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, space, type } from '../../constants/theme';
-import { useConfirmSignUp } from '../../hooks/useSession';
+import type { Mutation } from '../../hooks/mutation';
 import { Button } from '../ui/Button';
 import { LinkProblem } from './LinkProblem';
 
@@ -9,9 +9,8 @@ import { LinkProblem } from './LinkProblem';
  * The mailed sign-up link. It asks for one tap rather than acting on page load, so a mail scanner that opens
  * links ahead of the reader cannot spend it.
  */
-export function ConfirmSignUp({ token }: { token: string }) {
+export function ConfirmSignUp({ confirm }: { confirm: Mutation }) {
   const router = useRouter();
-  const confirm = useConfirmSignUp(token);
   if (confirm.isError) return <LinkProblem title="This sign-up link cannot be used" message={confirm.error.message} />;
   return (
     <View style={styles.stack}>

@@ -2,14 +2,14 @@ import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { PASSWORD_MIN, resetPasswordSchema } from '../../schemas/auth';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useResetPassword } from '../../hooks/useAccountLinks';
+import type { Mutation } from '../../hooks/mutation';
+import type { ResetPasswordInput } from '../../schemas/auth';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { Button } from '../ui/Button';
 import { Notice } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 
-export function NewPasswordForm({ token }: { token: string }) {
-  const reset = useResetPassword();
+export function NewPasswordForm({ token, reset }: { token: string; reset: Mutation<ResetPasswordInput> }) {
   const form = useSchemaForm(resetPasswordSchema, { token, password: '' });
 
   function submit() {

@@ -2,14 +2,14 @@ import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { resetRequestSchema } from '../../schemas/auth';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useResetRequest } from '../../hooks/useAccountLinks';
+import type { Mutation } from '../../hooks/mutation';
+import type { ResetRequestInput } from '../../schemas/auth';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { Button } from '../ui/Button';
 import { Notice } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 
-export function ResetRequestForm() {
-  const request = useResetRequest();
+export function ResetRequestForm({ request }: { request: Mutation<ResetRequestInput, { message: string }> }) {
   const form = useSchemaForm(resetRequestSchema, { email: '' });
 
   function submit() {

@@ -1,16 +1,16 @@
 import { Link, useRouter } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { signInSchema } from '../../schemas/auth';
-import { useSignIn } from '../../hooks/useSession';
+import type { Mutation } from '../../hooks/mutation';
+import type { SignInInput } from '../../schemas/auth';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { colors, fonts, space, type } from '../../constants/theme';
 import { Button } from '../ui/Button';
 import { TextField } from '../ui/TextField';
 import { Notice } from '../ui/Notice';
 
-export function SignInForm() {
+export function SignInForm({ signIn }: { signIn: Mutation<SignInInput> }) {
   const router = useRouter();
-  const signIn = useSignIn();
   const form = useSchemaForm(signInSchema, { email: '', password: '' });
 
   function submit() {

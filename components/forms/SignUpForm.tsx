@@ -1,17 +1,15 @@
 import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { PASSWORD_MIN, signUpSchema } from '../../schemas/auth';
-import { useSignUp } from '../../hooks/useSession';
-import { useAppConfig } from '../../hooks/useAccountLinks';
+import type { Mutation } from '../../hooks/mutation';
+import type { SignUpAnswer, SignUpInput } from '../../schemas/auth';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { colors, fonts, space, type } from '../../constants/theme';
 import { Button } from '../ui/Button';
 import { TextField } from '../ui/TextField';
 import { Notice } from '../ui/Notice';
 
-export function SignUpForm() {
-  const signUp = useSignUp();
-  const config = useAppConfig();
+export function SignUpForm({ signUp, localInboxUrl }: { signUp: Mutation<SignUpInput, SignUpAnswer>; localInboxUrl: string | undefined }) {
   const form = useSchemaForm(signUpSchema, { name: '', email: '', password: '', teamName: '' });
 
   function submit() {
@@ -21,7 +19,7 @@ export function SignUpForm() {
   }
 
   if (signUp.data) {
-    const inbox = config.data?.localInboxUrl;
+    const inbox = localInboxUrl;
     return (
       <View style={styles.stack}>
         <Text role="heading" aria-level={1} style={styles.title}>

@@ -3,11 +3,9 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Character } from '../../schemas/characters';
 import type { TrialSummary } from '../../schemas/trials';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
-import { useCharacters } from '../../hooks/useCharacters';
-import { useRecentTrials } from '../../hooks/useHome';
-import { useMe } from '../../hooks/useSession';
+import type { Mutation } from '../../hooks/mutation';
+import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { Screen } from '../layout/Screen';
-import { LoadingPage } from '../layout/LoadingPage';
 import { EmptyState } from '../ui/EmptyState';
 import { formatMoment } from '../ui/format';
 import { footingTrends, type FootingTrend } from './footing-trend';
@@ -81,17 +79,27 @@ function CharacterFooting({ character, trend }: { character: Character; trend?: 
   );
 }
 
-export function HomeOverview() {
-  const me = useMe();
-  const characters = useCharacters();
-  const trials = useRecentTrials();
-  if (characters.isPending || trials.isPending) return <LoadingPage />;
-  if (characters.isError) return <LoadingPage problem={characters.error.message} onRetry={() => characters.refetch()} />;
-  const trends = footingTrends(trials.data?.trials ?? []);
-  const list = characters.data.characters;
+/** Each character's latest footing score and its trend, under the first steps a new studio takes. */
+export function HomeOverview({
+  teamName,
+  characters: list,
+  trials,
+  courseCount,
+  mayEditCourses,
+  addStarters,
+}: {
+  teamName: string | undefined;
+  characters: Character[];
+  trials: TrialSummary[];
+  /** Undefined while the course list loads. */
+  courseCount: number | undefined;
+  mayEditCourses: boolean;
+  addStarters: Mutation<void, StarterCoursesResponse>;
+}) {
+  const trends = footingTrends(trials);
   return (
-    <Screen title="Home" lede={me.data ? `${me.data.team.name}: each character's latest trial, scored 0–100 (higher is steadier), against its last trial on the same course.` : undefined}>
-      <NextSteps characters={list} hasTrial={(trials.data?.trials.length ?? 0) > 0} />
+    <Screen title="Home" lede={teamName ? `${teamName}: each character's latest trial, scored 0–100 (higher is steadier), against its last trial on the same course.` : undefined}>
+      <NextSteps characters={list} hasTrial={trials.length > 0} courseCount={courseCount} mayEditCourses={mayEditCourses} addStarters={addStarters} />
       {list.length === 0 ? (
         <EmptyState
           heading="No characters walking yet"

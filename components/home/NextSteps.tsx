@@ -2,8 +2,8 @@ import { Link, type Href } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import type { Character } from '../../schemas/characters';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
-import { canEditCourses, useCourses } from '../../hooks/useCourses';
-import { useMe } from '../../hooks/useSession';
+import type { Mutation } from '../../hooks/mutation';
+import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { StarterCourses } from '../course/StarterCourses';
 
 interface Step {
@@ -19,11 +19,9 @@ interface Step {
  * What a studio does first, in order, each step a link to where it is done: a character, ground to walk
  * over (one tap for the starter courses), a first trial. Hidden once all three are done.
  */
-export function NextSteps({ characters, hasTrial }: { characters: Character[]; hasTrial: boolean }) {
-  const me = useMe();
-  const courses = useCourses();
-  if (!courses.isSuccess) return null;
-  const hasCourse = courses.data.courses.length > 0;
+export function NextSteps({ characters, hasTrial, courseCount, mayEditCourses, addStarters }: { characters: Character[]; hasTrial: boolean; courseCount: number | undefined; mayEditCourses: boolean; addStarters: Mutation<void, StarterCoursesResponse> }) {
+  if (courseCount === undefined) return null;
+  const hasCourse = courseCount > 0;
   const first = characters[0];
   const steps: Step[] = [
     { key: 'character', done: characters.length > 0, title: 'Bring a character', body: 'Upload a glTF character; Treadle finds its legs.', href: '/characters', action: 'Go to the character list' },
@@ -57,7 +55,7 @@ export function NextSteps({ characters, hasTrial }: { characters: Character[]; h
                 {s.action} →
               </Link>
             )}
-            {s.key === 'course' && !s.done ? <StarterCourses compact mayEdit={canEditCourses(me.data)} reason="Four starter courses and a suite of them, made for you:" /> : null}
+            {s.key === 'course' && !s.done ? <StarterCourses compact mayEdit={mayEditCourses} add={addStarters} reason="Four starter courses and a suite of them, made for you:" /> : null}
           </View>
         </View>
       ))}

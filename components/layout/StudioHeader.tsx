@@ -2,14 +2,15 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Me } from '../../schemas/auth';
 import { colors, fonts, radius, space, touchTarget } from '../../constants/theme';
 import { TreadleMark } from '../ui/TreadleMark';
+import type { Mutation } from '../../hooks/mutation';
 import { TeamSwitcher } from './TeamSwitcher';
 
 /** The strip above every studio page: which studio, who you are in it, and the way out. */
-export function StudioHeader({ me, wide, onSignOut, signingOut }: { me: Me; wide: boolean; onSignOut(): void; signingOut: boolean }) {
+export function StudioHeader({ me, wide, onSignOut, signingOut, switchTeam }: { me: Me; wide: boolean; onSignOut(): void; signingOut: boolean; switchTeam: Mutation<number> }) {
   return (
     <View role="banner" style={styles.bar}>
       {!wide && <TreadleMark size={24} />}
-      <TeamSwitcher me={me} align={wide ? 'start' : 'end'} />
+      <TeamSwitcher me={me} align={wide ? 'start' : 'end'} switchTeam={switchTeam} />
       <Pressable
         accessibilityRole="button"
         onPress={onSignOut}

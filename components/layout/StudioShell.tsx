@@ -4,20 +4,19 @@ import { usePathname, useRouter } from 'expo-router';
 import type { Me } from '../../schemas/auth';
 import { colors } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
-import { useSignOut } from '../../hooks/useSession';
+import type { Mutation } from '../../hooks/mutation';
 import { sectionOfPath } from './navigation';
 import { SideRail } from './SideRail';
 import { StudioHeader } from './StudioHeader';
 import { TabBar } from './TabBar';
 
-/** Phone: header, page, bottom tabs. Wide: side rail, then header and page. */
-export function StudioShell({ me, children }: { me: Me; children: ReactNode }) {
+/** Phone: header, page, bottom tabs. Wide: side rail, then header and page. The studio layout holds the sign-out and studio switch. */
+export function StudioShell({ me, children, signOut, switchTeam }: { me: Me; children: ReactNode; signOut: Mutation; switchTeam: Mutation<number> }) {
   const wide = useIsWide();
   const active = sectionOfPath(usePathname());
   const router = useRouter();
-  const signOut = useSignOut();
   const header = (
-    <StudioHeader me={me} wide={wide} signingOut={signOut.isPending} onSignOut={() => signOut.mutate(undefined, { onSuccess: () => router.replace('/sign-in') })} />
+    <StudioHeader me={me} wide={wide} signingOut={signOut.isPending} onSignOut={() => signOut.mutate(undefined, { onSuccess: () => router.replace('/sign-in') })} switchTeam={switchTeam} />
   );
   if (wide) {
     return (

@@ -3,12 +3,11 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { Me } from '../../schemas/auth';
 import { roleLabels } from '../../schemas/roles';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
-import { useSwitchTeam } from '../../hooks/useTeam';
+import type { Mutation } from '../../hooks/mutation';
 
 /** The studio name in the header; for people in several studios, it opens a list to switch between them. */
-export function TeamSwitcher({ me, align }: { me: Me; align: 'start' | 'end' }) {
+export function TeamSwitcher({ me, align, switchTeam }: { me: Me; align: 'start' | 'end'; switchTeam: Mutation<number> }) {
   const [open, setOpen] = useState(false);
-  const switchTeam = useSwitchTeam();
   const others = me.teams.filter((t) => t.id !== me.team.id);
   const label = (
     <>

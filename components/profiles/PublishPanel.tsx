@@ -2,9 +2,8 @@ import { useState } from 'react';
 import { StyleSheet, Text } from 'react-native';
 import { useRouter } from 'expo-router';
 import { colors, space, type } from '../../constants/theme';
-import { useCharacters } from '../../hooks/useCharacters';
-import { useSuites } from '../../hooks/useCourses';
-import { usePublishProfile } from '../../hooks/useProfiles';
+import type { Mutation } from '../../hooks/mutation';
+import type { PublishProfileInput } from '../../schemas/profiles';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { ChoiceChips } from '../ui/ChoiceChips';
@@ -13,11 +12,8 @@ import { SectionHeading } from '../ui/SectionHeading';
 import { TextField } from '../ui/TextField';
 
 /** Publishes a character's newest saved leg setup (or its defaults) as the next immutable profile version. */
-export function PublishPanel() {
+export function PublishPanel({ characters, suites, publish }: { characters: readonly { id: number; name: string }[]; suites: readonly { id: number; name: string }[]; publish: Mutation<PublishProfileInput, { profileId: number; version: number }> }) {
   const router = useRouter();
-  const characters = useCharacters();
-  const suites = useSuites();
-  const publish = usePublishProfile();
   const [characterId, setCharacterId] = useState<string>();
   const [suiteId, setSuiteId] = useState<string>();
   const [notes, setNotes] = useState('');
@@ -28,8 +24,8 @@ export function PublishPanel() {
       <Text style={styles.body}>
         Treadle walks the character over the suite with its newest saved leg setup and stores the result as the next version. A published version never changes.
       </Text>
-      <ChoiceChips label="Character" choices={(characters.data?.characters ?? []).map((c) => ({ value: String(c.id), label: c.name }))} value={characterId} onChange={setCharacterId} error={fields.characterId} />
-      <ChoiceChips label="Suite" choices={(suites.data?.suites ?? []).map((s) => ({ value: String(s.id), label: s.name }))} value={suiteId} onChange={setSuiteId} error={fields.suiteId} />
+      <ChoiceChips label="Character" choices={characters.map((c) => ({ value: String(c.id), label: c.name }))} value={characterId} onChange={setCharacterId} error={fields.characterId} />
+      <ChoiceChips label="Suite" choices={suites.map((s) => ({ value: String(s.id), label: s.name }))} value={suiteId} onChange={setSuiteId} error={fields.suiteId} />
       <TextField label="What changed" value={notes} onChangeText={setNotes} placeholder="e.g. More damping for the dock steps" error={fields.notes} multiline />
       {publish.error && !Object.keys(fields).length ? <Notice message={publish.error.message} /> : null}
       <Button

@@ -1,10 +1,9 @@
-import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import type { ProfileVersionSummary } from '../../schemas/profiles';
 import type { MetricDelta } from '../../engine/profile/metric-rows';
 import type { ValueChange } from '../../engine/profile/diff';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useProfileDiff } from '../../hooks/useProfiles';
+import type { ProfileDiffQuery } from '../../hooks/useProfiles';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { Notice } from '../ui/Notice';
 
@@ -50,12 +49,19 @@ function MetricChanges({ deltas }: { deltas: MetricDelta[] }) {
   );
 }
 
+/** Which two versions are compared: the screen holds the pick and fetches their difference. */
+export interface DiffPick {
+  from: number | null;
+  to: number | null;
+}
+
 /** What changed between two versions: every setting, the rig mapping, the character file, and the metrics. */
-export function VersionDiff({ profileId, versions }: { profileId: number; versions: ProfileVersionSummary[] }) {
+export function VersionDiff({ versions, pick, onPick, diff }: { versions: ProfileVersionSummary[]; pick: DiffPick; onPick(pick: DiffPick): void; diff: ProfileDiffQuery }) {
   const choices = versions.map((v) => ({ value: String(v.version), label: `v${v.version}` }));
-  const [from, setFrom] = useState(versions[1] ? String(versions[1].version) : undefined);
-  const [to, setTo] = useState(versions[0] ? String(versions[0].version) : undefined);
-  const diff = useProfileDiff(profileId, from ? Number(from) : null, to ? Number(to) : null);
+  const from = pick.from === null ? undefined : String(pick.from);
+  const to = pick.to === null ? undefined : String(pick.to);
+  const setFrom = (v: string) => onPick({ ...pick, from: Number(v) });
+  const setTo = (v: string) => onPick({ ...pick, to: Number(v) });
   if (versions.length < 2) return <Text style={styles.none}>Publish a second version to see what changed.</Text>;
   const d = diff.data?.diff;
   return (

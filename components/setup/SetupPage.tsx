@@ -5,8 +5,8 @@ import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { LegSetupList } from '../../schemas/leg-setups';
 import { colors, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
-import { useSaveLegSetup } from '../../hooks/useLegSetups';
 import { Screen } from '../layout/Screen';
+import { SplitColumns } from '../layout/SplitColumns';
 import { LivePreview } from '../preview/LivePreview';
 import { RunTrialPanel } from '../trial/RunTrialPanel';
 import { Button } from '../ui/Button';
@@ -15,29 +15,30 @@ import { Notice } from '../ui/Notice';
 import { SectionHeading } from '../ui/SectionHeading';
 import { TextField } from '../ui/TextField';
 import { StarterCourses } from '../course/StarterCourses';
-import { useCourses, useSuites } from '../../hooks/useCourses';
+import type { Mutation } from '../../hooks/mutation';
+import type { TrialRunner } from '../../hooks/useTrialRunner';
+import type { LegSetupCreate, LegSetupVersion } from '../../schemas/leg-setups';
+import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { LegSetupForm } from './LegSetupForm';
 import type { LimitLeg } from './LegLimitsEditor';
 import { checkDraft, draftOf, type Draft } from './setup-draft';
 import { VersionList } from './VersionList';
 
 /** The leg setup of one character: the form, the live preview beside it, saved versions, and running a trial. */
-export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn, mayEditCourses = false }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean; mayEditCourses?: boolean }) {
+export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn, mayEditCourses = false, addStarters, save, runner }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean; mayEditCourses?: boolean; addStarters: Mutation<void, StarterCoursesResponse>; save: Mutation<LegSetupCreate, { legSetup: LegSetupVersion }>; runner: TrialRunner }) {
   const wide = useIsWide();
   const start = list.versions[0]?.setup ?? list.defaults;
   const [draft, setDraft] = useState<Draft>(() => draftOf(start));
   const [note, setNote] = useState('');
   const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'info' | 'problem'; text: string } | null>(null);
-  const save = useSaveLegSetup(characterId);
   const checked = useMemo(() => checkDraft(draft), [draft]);
   const lastValid = useRef<LegSetup>(start);
   if (checked.setup) lastValid.current = checked.setup;
   const previewSetup = checked.setup ?? lastValid.current;
   const errors = { ...(checked.errors ?? {}), ...serverErrors };
   const legs: LimitLeg[] = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => ({ name: j.name, slider: j.kind === 'slider' })) }));
-  const courses = useCourses();
-  const suites = useSuites();
+  const { courses, suites } = runner;
   const noGround = courses.isSuccess && suites.isSuccess && courses.data.courses.length === 0 && suites.data.suites.length === 0;
   const preview = (compact: boolean) => <LivePreview rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} compact={compact} />;
 
@@ -85,11 +86,11 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
       <SectionHeading>Trial of record</SectionHeading>
       {noGround ? (
         // "Run trial" would sit there disabled; say why and offer the way out instead.
-        <StarterCourses mayEdit={mayEditCourses} reason="“Run trial” needs ground to walk over, and this studio has no course or suite yet." />
+        <StarterCourses mayEdit={mayEditCourses} add={addStarters} reason="“Run trial” needs ground to walk over, and this studio has no course or suite yet." />
       ) : (
         <>
           <Text style={styles.note}>Runs the settings in the form (saved or not) on the server.</Text>
-          <RunTrialPanel characterId={characterId} legSetup={checked.setup ?? undefined} onFieldErrors={(f) => setServerErrors(Object.fromEntries(Object.entries(f).map(([k, v]) => [k.replace(/^(legSetup|setup)\./, ''), v])))} />
+          <RunTrialPanel runner={runner} characterId={characterId} legSetup={checked.setup ?? undefined} onFieldErrors={(f) => setServerErrors(Object.fromEntries(Object.entries(f).map(([k, v]) => [k.replace(/^(legSetup|setup)\./, ''), v])))} />
         </>
       )}
     </Card>
@@ -116,31 +117,27 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
   );
   return (
     <Screen title={`${characterName}: leg setup`} lede="Every setting of the legs: the solver, the gait and the body. Changes show in the preview at once.">
-      {wide ? (
-        <View style={[styles.split, styles.splitWide]}>
-          <View style={[styles.col, styles.formCol]}>{form}</View>
-          <View style={[styles.col, styles.sideCol]}>{side}</View>
-        </View>
-      ) : (
+      <SplitColumns
+        weights={[3, 2]}
+        main={form}
+        side={side}
         // Phone: a small preview sticks to the top of the page while the form scrolls under it.
-        <View style={styles.col}>
-          <View style={styles.sticky} testID="sticky-preview">
-            {preview(true)}
-          </View>
-          {form}
-          {side}
-        </View>
-      )}
+        narrow={
+          <>
+            <View style={styles.sticky} testID="sticky-preview">
+              {preview(true)}
+            </View>
+            {form}
+            {side}
+          </>
+        }
+      />
     </Screen>
   );
 }
 
 const styles = StyleSheet.create({
-  split: { gap: space.lg },
-  splitWide: { flexDirection: 'row', alignItems: 'flex-start' },
   col: { gap: space.lg },
-  formCol: { flex: 3, minWidth: 0 },
-  sideCol: { flex: 2, minWidth: 0 },
   actions: { gap: space.md },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   note: { ...type.small, color: colors.graphite },

@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import { createInviteSchema } from '../../schemas/team';
+import { createInviteSchema, type CreateInviteInput } from '../../schemas/team';
 import type { Role } from '../../schemas/roles';
 import { colors, space, type } from '../../constants/theme';
-import { useInvite } from '../../hooks/useTeam';
+import type { Mutation } from '../../hooks/mutation';
 import { useSchemaForm } from '../../hooks/useSchemaForm';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
@@ -12,8 +12,7 @@ import { Notice } from '../ui/Notice';
 import { TextField } from '../ui/TextField';
 import { roleChoices, roleDuties } from './roleChoices';
 
-export function InviteForm({ localInboxUrl }: { localInboxUrl?: string }) {
-  const invite = useInvite();
+export function InviteForm({ localInboxUrl, invite }: { localInboxUrl?: string; invite: Mutation<CreateInviteInput> }) {
   const form = useSchemaForm(createInviteSchema, { email: '', role: '' });
   const [sentTo, setSentTo] = useState<string | null>(null);
   const role = (form.values.role || undefined) as Role | undefined;

@@ -3,7 +3,7 @@ import { Platform, StyleSheet, Text, View } from 'react-native';
 import type { Member } from '../../schemas/team';
 import { roleLabels, type Role } from '../../schemas/roles';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useChangeRole, useRemoveMember } from '../../hooks/useTeam';
+import type { Mutation } from '../../hooks/mutation';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { ChoiceChips } from '../ui/ChoiceChips';
@@ -32,12 +32,19 @@ function RoleConfirm({ label, children }: { label: string; children: React.React
   );
 }
 
-function MemberRow({ member, manage, isYou, onlyOwner }: { member: Member; manage: boolean; isYou: boolean; onlyOwner: boolean }) {
-  const changeRole = useChangeRole();
-  const remove = useRemoveMember();
+/** A member's role change and removal, as the screen holds them. */
+export interface MemberChanges {
+  changeRole: Mutation<{ userId: number; role: Role }>;
+  remove: Mutation<number>;
+}
+
+function MemberRow({ member, manage, isYou, onlyOwner, changes: { changeRole, remove } }: { member: Member; manage: boolean; isYou: boolean; onlyOwner: boolean; changes: MemberChanges }) {
   const [confirming, setConfirming] = useState(false);
   const [pendingRole, setPendingRole] = useState<Role | null>(null);
-  const problem = changeRole.error?.message ?? remove.error?.message;
+  // One pair of mutations serves every row: a row shows only the progress and failure of its own member's change.
+  const changingThis = changeRole.variables?.userId === member.userId;
+  const removingThis = remove.variables === member.userId;
+  const problem = (changingThis ? changeRole.error?.message : undefined) ?? (removingThis ? remove.error?.message : undefined);
   // The server refuses it too (409 last_owner); the screen does not offer it.
   const locked = onlyOwner;
   return (
@@ -72,7 +79,7 @@ function MemberRow({ member, manage, isYou, onlyOwner }: { member: Member; manag
               <View style={styles.confirmButtons}>
                 <Button
                   label={`Make ${isYou ? 'me' : member.name.split(' ')[0]} ${roleLabels[pendingRole]}`}
-                  busy={changeRole.isPending}
+                  busy={changeRole.isPending && changingThis}
                   onPress={() => changeRole.mutate({ userId: member.userId, role: pendingRole }, { onSettled: () => setPendingRole(null) })}
                 />
                 <Button label="Keep the role" tone="quiet" onPress={() => setPendingRole(null)} />
@@ -85,7 +92,7 @@ function MemberRow({ member, manage, isYou, onlyOwner }: { member: Member; manag
                 {isYou ? 'Leave the studio? You lose access at once; your work stays.' : `Remove ${member.name} from the studio? They lose access at once; their work stays.`}
               </Text>
               <View style={styles.confirmButtons}>
-                <Button label={isYou ? 'Leave' : 'Remove'} tone="danger" busy={remove.isPending} onPress={() => remove.mutate(member.userId, { onSettled: () => setConfirming(false) })} />
+                <Button label={isYou ? 'Leave' : 'Remove'} tone="danger" busy={remove.isPending && removingThis} onPress={() => remove.mutate(member.userId, { onSettled: () => setConfirming(false) })} />
                 <Button label="Keep" tone="quiet" onPress={() => setConfirming(false)} />
               </View>
             </View>
@@ -99,13 +106,13 @@ function MemberRow({ member, manage, isYou, onlyOwner }: { member: Member; manag
   );
 }
 
-export function MemberList({ members, manage, viewerId }: { members: Member[]; manage: boolean; viewerId: number }) {
+export function MemberList({ members, manage, viewerId, changes }: { members: Member[]; manage: boolean; viewerId: number; changes: MemberChanges }) {
   const owners = members.filter((m) => m.role === 'owner').length;
   return (
     <Card>
       {members.map((m, i) => (
         <View key={m.userId} style={i > 0 ? styles.divider : undefined}>
-          <MemberRow member={m} manage={manage} isYou={m.userId === viewerId} onlyOwner={m.role === 'owner' && owners <= 1} />
+          <MemberRow member={m} manage={manage} isYou={m.userId === viewerId} onlyOwner={m.role === 'owner' && owners <= 1} changes={changes} />
         </View>
       ))}
     </Card>

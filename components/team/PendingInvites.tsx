@@ -2,14 +2,12 @@ import { StyleSheet, Text, View } from 'react-native';
 import type { Invite } from '../../schemas/team';
 import { roleLabels } from '../../schemas/roles';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useResendInvite, useRevokeInvite } from '../../hooks/useTeam';
+import type { Mutation } from '../../hooks/mutation';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { formatDay } from '../ui/format';
 
-export function PendingInvites({ invites }: { invites: Invite[] }) {
-  const resend = useResendInvite();
-  const revoke = useRevokeInvite();
+export function PendingInvites({ invites, resend, revoke }: { invites: Invite[]; resend: Mutation<number>; revoke: Mutation<number> }) {
   if (!invites.length) return <Text style={styles.none}>No invites waiting.</Text>;
   return (
     <Card>

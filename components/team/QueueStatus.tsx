@@ -1,18 +1,14 @@
 /**
  * The owner's view of where trials and dial-ins run: inside the server (embedded threads) or on worker
- * processes over Redis, the workers connected, and the tasks waiting and running. Refreshes every few seconds.
- * Renders nothing for other roles.
+ * processes over Redis, the workers connected, and the tasks waiting and running (the screen refreshes it).
+ * The screen shows it to owners only.
  */
-import { useQuery } from '@tanstack/react-query';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useCan } from '../../hooks/useCan';
-import { api } from '../../hooks/api';
+import type { QueryState } from '../../hooks/mutation';
 import type { QueueStatus as QueueStatusShape } from '../../schemas/queue';
 import { Card } from '../ui/Card';
 import { SectionHeading } from '../ui/SectionHeading';
-
-const REFRESH_MS = 3000;
 
 function Figure({ label, value }: { label: string; value: number }) {
   return (
@@ -23,10 +19,7 @@ function Figure({ label, value }: { label: string; value: number }) {
   );
 }
 
-export function QueueStatusSection() {
-  const allowed = useCan('queue.read');
-  const status = useQuery({ queryKey: ['queue'], queryFn: () => api<QueueStatusShape>('/queue'), enabled: allowed, refetchInterval: REFRESH_MS });
-  if (!allowed) return null;
+export function QueueStatusSection({ status }: { status: QueryState<QueueStatusShape> }) {
   const s = status.data;
   return (
     <>

@@ -1,15 +1,9 @@
 import { Link } from 'expo-router';
 import { StyleSheet, Text, View } from 'react-native';
 import { colors, fonts, radius, space, touchTarget, type } from '../../constants/theme';
-import { useBilling } from '../../hooks/useBilling';
-import { useMe } from '../../hooks/useSession';
 
 /** The studio's plan and the programmers' API tokens, one tap from the Team page. */
-export function StudioLinks() {
-  const me = useMe();
-  const billing = useBilling();
-  const role = me.data?.role;
-  const planName = billing.data?.plan.name;
+export function StudioLinks({ planName, mayManageBilling, mayManageTokens }: { planName: string | undefined; mayManageBilling: boolean; mayManageTokens: boolean }) {
   return (
     <View style={styles.row}>
       <Link href="/team/billing" style={styles.tile}>
@@ -17,10 +11,10 @@ export function StudioLinks() {
         {'\n'}
         <Text style={styles.tileBody}>
           {planName ? `On ${planName}. ` : ''}
-          {role === 'owner' ? 'Usage, upgrades, invoices.' : 'Only the owner changes the plan.'}
+          {mayManageBilling ? 'Usage, upgrades, invoices.' : 'Only the owner changes the plan.'}
         </Text>
       </Link>
-      {(role === 'owner' || role === 'programmer') && (
+      {mayManageTokens && (
         <Link href="/tokens" style={styles.tile}>
           <Text style={styles.tileTitle}>API tokens</Text>
           {'\n'}

@@ -1,8 +1,9 @@
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import type { ApiToken, CreatedToken } from '../../schemas/tokens';
+import type { ApiToken, ApiTokenList, CreatedToken } from '../../schemas/tokens';
 import { colors, fonts, radius, space, type } from '../../constants/theme';
-import { useCreateToken, useRevokeToken, useTokens } from '../../hooks/useTokens';
+import type { Mutation, QueryState } from '../../hooks/mutation';
+import type { CreateTokenInput } from '../../schemas/tokens';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
@@ -11,8 +12,7 @@ import { TextField } from '../ui/TextField';
 import { formatDay, formatMoment } from '../ui/format';
 import { CopyBlock } from '../profiles/CopyBlock';
 
-function NewToken() {
-  const create = useCreateToken();
+function NewToken({ create }: { create: Mutation<CreateTokenInput, CreatedToken> }) {
   const [name, setName] = useState('');
   const [made, setMade] = useState<CreatedToken | null>(null);
   return (
@@ -48,8 +48,9 @@ function NewToken() {
   );
 }
 
-function TokenRow({ token }: { token: ApiToken }) {
-  const revoke = useRevokeToken();
+function TokenRow({ token, revoke }: { token: ApiToken; revoke: Mutation<number, { token: ApiToken }> }) {
+  // One revoke serves every row: a row shows only its own token's progress and failure.
+  const mine = revoke.variables === token.id;
   const [confirming, setConfirming] = useState(false);
   const revoked = token.revokedAt !== null;
   return (
@@ -64,31 +65,30 @@ function TokenRow({ token }: { token: ApiToken }) {
       {revoked ? null : confirming ? (
         <View style={styles.actions}>
           <Button label="Keep" tone="quiet" onPress={() => setConfirming(false)} />
-          <Button label="Revoke now" tone="danger" busy={revoke.isPending} accessibilityLabel={`Revoke ${token.name} now`} onPress={() => revoke.mutate(token.id)} />
+          <Button label="Revoke now" tone="danger" busy={revoke.isPending && mine} accessibilityLabel={`Revoke ${token.name} now`} onPress={() => revoke.mutate(token.id)} />
         </View>
       ) : (
         <Button label="Revoke" tone="danger" accessibilityLabel={`Revoke ${token.name}`} onPress={() => setConfirming(true)} />
       )}
       {confirming && !revoked ? <Text style={styles.meta}>Builds using this token stop working at once.</Text> : null}
-      {revoke.error ? <Notice message={revoke.error.message} /> : null}
+      {mine && revoke.error ? <Notice message={revoke.error.message} /> : null}
     </View>
   );
 }
 
 /** API tokens for build scripts: make one (shown once), see when each was last used, revoke. */
-export function TokensPage() {
-  const tokens = useTokens();
+export function TokensPage({ tokens, create, revoke }: { tokens: QueryState<ApiTokenList>; create: Mutation<CreateTokenInput, CreatedToken>; revoke: Mutation<number, { token: ApiToken }> }) {
   const list = tokens.data?.tokens ?? [];
   return (
     <View style={styles.wrap}>
-      <NewToken />
+      <NewToken create={create} />
       <Card>
         <SectionHeading>Tokens</SectionHeading>
         {tokens.isError ? <Notice message={tokens.error.message} /> : null}
         {tokens.isSuccess && list.length === 0 ? <Text style={styles.body}>No tokens yet.</Text> : null}
         <View role="list" aria-label="API tokens" style={styles.list}>
           {list.map((t) => (
-            <TokenRow key={t.id} token={t} />
+            <TokenRow key={t.id} token={t} revoke={revoke} />
           ))}
         </View>
       </Card>

@@ -4,9 +4,7 @@ import { useRouter } from 'expo-router';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { TrialJobResult } from '../../schemas/trials';
 import { colors, space, type } from '../../constants/theme';
-import { useCourses, useSuites } from '../../hooks/useCourses';
-import { useJob } from '../../hooks/useJobs';
-import { useRunTrial } from '../../hooks/useTrials';
+import type { TrialRunner } from '../../hooks/useTrialRunner';
 import { Button } from '../ui/Button';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { Notice } from '../ui/Notice';
@@ -14,7 +12,7 @@ import { ProgressBar } from './ProgressBar';
 
 /**
  * Run a trial as a background job: pick a course or a suite, start, watch the progress bar (the job is
- * polled through React Query), then open the stored trial.
+ * polled through React Query), then open the stored trial. The screen holds the `runner` (useTrialRunner).
  */
 export function RunTrialPanel({
   characterId,
@@ -22,7 +20,9 @@ export function RunTrialPanel({
   legSetup,
   initialCourseId,
   onFieldErrors,
+  runner,
 }: {
+  runner: TrialRunner;
   characterId: number;
   legSetupId?: number;
   legSetup?: LegSetup;
@@ -31,12 +31,8 @@ export function RunTrialPanel({
   onFieldErrors?: (fields: Record<string, string>) => void;
 }) {
   const router = useRouter();
-  const courses = useCourses();
-  const suites = useSuites();
   const [target, setTarget] = useState<string | undefined>(initialCourseId ? `course:${initialCourseId}` : undefined);
-  const [jobId, setJobId] = useState<number | null>(null);
-  const run = useRunTrial();
-  const job = useJob(jobId);
+  const { courses, suites, run, setJobId, job } = runner;
   const choices = [
     ...(courses.data?.courses ?? []).map((c) => ({ value: `course:${c.id}`, label: c.name })),
     ...(suites.data?.suites ?? []).map((s) => ({ value: `suite:${s.id}`, label: `Suite: ${s.name}` })),

@@ -5,10 +5,12 @@ import { decodeSeries } from '../../engine/gait/series-encoding';
 import type { TrialDetail } from '../../schemas/trials';
 import { colors, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
-import { useCharacterMesh } from '../../hooks/useCharacterMesh';
+import type { QueryState } from '../../hooks/mutation';
+import type { TrialRunner } from '../../hooks/useTrialRunner';
 import { useWalkReplay } from '../viewer/useWalkReplay';
 import type { StageFocus } from '../viewer/WalkStage';
 import { Screen } from '../layout/Screen';
+import { SplitColumns } from '../layout/SplitColumns';
 import { Card } from '../ui/Card';
 import { Notice } from '../ui/Notice';
 import { SectionHeading } from '../ui/SectionHeading';
@@ -19,7 +21,7 @@ import { TrialPlayback } from './TrialPlayback';
 import { TrialPlots } from './TrialPlots';
 
 /** A stored trial: playback, stumble timeline, metric cards, plots, and running it again. Wide screens put playback and figures side by side. */
-export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDetail; characterName: string; mayRun: boolean }) {
+export function TrialPage({ detail, characterName, mayRun, mesh, runner }: { detail: TrialDetail; characterName: string; mayRun: boolean; /** The character's glTF file, for the playback's mesh. */ mesh: QueryState<ArrayBuffer>; runner: TrialRunner }) {
   const wide = useIsWide();
   const series = useMemo(() => decodeSeries(detail.series), [detail.series]);
   const course = useMemo(() => (detail.course ? decodeCourse(detail.course) : null), [detail.course]);
@@ -33,7 +35,6 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
   const setupLabel = trial.legSetupVersion ? `leg setup v${trial.legSetupVersion}` : 'an unsaved leg setup';
 
   const replayState = useWalkReplay(detail.rig, detail.setup, course, series);
-  const mesh = useCharacterMesh(trial.characterId);
   const [focus, setFocus] = useState<StageFocus | null>(null);
   const focusSeq = useRef(0);
   const replay = replayState.state === 'ready' ? replayState.replay : null;
@@ -68,28 +69,29 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
   return (
     <Screen title={`${characterName} on ${trial.courseName}`} lede={`Trial ${trial.id}: ${setupLabel}, ${trial.metrics.simSeconds.toFixed(1)} s simulated, ${trial.metrics.steps} steps.`}>
       {detail.courseChanged ? <Notice tone="info" message={`The course was edited after this trial (it ran version ${trial.courseVersion}); the playback shows the course as it is now.`} /> : null}
-      <View style={[styles.split, wide && styles.splitWide]}>
-        <View style={[styles.col, wide && styles.main]}>
-          {playback}
-          <Card>
-            <SectionHeading>Stumbles</SectionHeading>
-            <StumbleTimeline
-              events={trial.metrics.events}
-              duration={duration}
-              time={time}
-              onSeek={setTime}
-              onStumble={(e) => {
-                setTime(e.time);
-                setFocus({ walker: 'trial', leg: e.leg, time: e.time, seq: ++focusSeq.current });
-              }}
-              legNames={trial.legNames}
-            />
-          </Card>
-        </View>
-        <View style={[styles.col, wide && styles.side]}>
-          <MetricCards metrics={trial.metrics} />
-        </View>
-      </View>
+      <SplitColumns
+        weights={[3, 2]}
+        main={
+          <>
+            {playback}
+            <Card>
+              <SectionHeading>Stumbles</SectionHeading>
+              <StumbleTimeline
+                events={trial.metrics.events}
+                duration={duration}
+                time={time}
+                onSeek={setTime}
+                onStumble={(e) => {
+                  setTime(e.time);
+                  setFocus({ walker: 'trial', leg: e.leg, time: e.time, seq: ++focusSeq.current });
+                }}
+                legNames={trial.legNames}
+              />
+            </Card>
+          </>
+        }
+        side={<MetricCards metrics={trial.metrics} />}
+      />
       <Card>
         <SectionHeading>Plots</SectionHeading>
         <TrialPlots series={series} legNames={trial.legNames} time={time} rig={detail.rig} setup={detail.setup} course={course} duration={trial.metrics.simSeconds} />
@@ -98,7 +100,7 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
         <Card>
           <SectionHeading>Run again</SectionHeading>
           <Text style={styles.note}>The same character and setup as a new trial of record.</Text>
-          <RunTrialPanel characterId={trial.characterId} legSetupId={trial.legSetupId ?? undefined} legSetup={trial.legSetupId ? undefined : detail.setup} initialCourseId={trial.courseId} />
+          <RunTrialPanel runner={runner} characterId={trial.characterId} legSetupId={trial.legSetupId ?? undefined} legSetup={trial.legSetupId ? undefined : detail.setup} initialCourseId={trial.courseId} />
         </Card>
       ) : null}
     </Screen>
@@ -106,10 +108,5 @@ export function TrialPage({ detail, characterName, mayRun }: { detail: TrialDeta
 }
 
 const styles = StyleSheet.create({
-  split: { gap: space.lg },
-  splitWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  col: { gap: space.lg },
-  main: { flex: 3, minWidth: 0 },
-  side: { flex: 2, minWidth: 0 },
   note: { ...type.small, color: colors.graphite },
 });

@@ -1,13 +1,14 @@
 import { useLocalSearchParams } from 'expo-router';
 import { CharacterPage } from '../../../components/characters/CharacterPage';
 import { LoadingPage } from '../../../components/layout/LoadingPage';
-import { useMe } from '../../../hooks/useSession';
-import { canEditLegs, characterFileUrl, useCharacter, useSaveLegs } from '../../../hooks/useCharacters';
+import { useCan } from '../../../hooks/useCan';
+import { characterFileUrl, useCharacter, useSaveLegs } from '../../../hooks/useCharacters';
 
 export default function CharacterScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const characterId = Number(id);
-  const me = useMe();
+  const mayEdit = useCan('characters.legs.edit');
+  const mayDialIn = useCan('dial-ins.run');
   const detail = useCharacter(characterId);
   const save = useSaveLegs(characterId);
   if (detail.isPending) return <LoadingPage />;
@@ -16,7 +17,8 @@ export default function CharacterScreen() {
     <CharacterPage
       detail={detail.data}
       fileUrl={characterFileUrl(characterId)}
-      mayEdit={canEditLegs(me.data)}
+      mayEdit={mayEdit}
+      mayDialIn={mayDialIn}
       onSaveLegs={async (legs) => {
         await save.mutateAsync(legs);
         await detail.refetch();

@@ -6,22 +6,26 @@ import { Notice } from '../../../components/ui/Notice';
 import { CharacterList } from '../../../components/characters/CharacterList';
 import { UploadPanel } from '../../../components/characters/UploadPanel';
 import { LoadingPage } from '../../../components/layout/LoadingPage';
-import { useMe } from '../../../hooks/useSession';
-import { canUploadCharacters, useCharacters } from '../../../hooks/useCharacters';
+import { useCan } from '../../../hooks/useCan';
+import { useCharacters, useUploadCharacter } from '../../../hooks/useCharacters';
 
 export default function CharactersScreen() {
-  const me = useMe();
   const characters = useCharacters();
-  const mayUpload = canUploadCharacters(me.data);
+  const mayUpload = useCan('characters.upload');
+  const upload = useUploadCharacter();
   const [uploading, setUploading] = useState(false);
   const list = characters.data?.characters ?? [];
   return (
     <Screen
       title="Characters"
       lede="Your studio's rigged characters, their legs and their leg setups."
-      actions={mayUpload ? <Button label={uploading ? 'Close upload' : 'Upload character'} tone={uploading ? 'quiet' : 'action'} onPress={() => setUploading(!uploading)} /> : null}
+      actions={mayUpload ? <Button label={uploading ? 'Close upload' : 'Upload character'} tone={uploading ? 'quiet' : 'action'} onPress={() => {
+            // A closed panel starts afresh next time, as before the upload moved up to this screen.
+            if (uploading) upload.reset();
+            setUploading(!uploading);
+          }} /> : null}
     >
-      {uploading && mayUpload ? <UploadPanel /> : null}
+      {uploading && mayUpload ? <UploadPanel upload={upload} /> : null}
       {characters.isPending ? <LoadingPage /> : null}
       {characters.isError ? <Notice message={characters.error.message} /> : null}
       {characters.isSuccess && list.length === 0 ? (

@@ -1,14 +1,14 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { CourseEditor } from '../../../components/course/CourseEditor';
 import { LoadingPage } from '../../../components/layout/LoadingPage';
-import { useMe } from '../../../hooks/useSession';
-import { canEditCourses, useCourse, useCreateCourse, useDeleteCourse, useSaveCourse } from '../../../hooks/useCourses';
+import { useCan } from '../../../hooks/useCan';
+import { useCourse, useCreateCourse, useDeleteCourse, useSaveCourse } from '../../../hooks/useCourses';
 
 export default function CourseScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const courseId = Number(id);
   const router = useRouter();
-  const me = useMe();
+  const mayEdit = useCan('courses.edit');
   const detail = useCourse(courseId);
   const save = useSaveCourse(courseId);
   const create = useCreateCourse();
@@ -19,7 +19,7 @@ export default function CourseScreen() {
     <CourseEditor
       key={courseId}
       detail={detail.data}
-      mayEdit={canEditCourses(me.data)}
+      mayEdit={mayEdit}
       onSave={(update) => save.mutateAsync(update)}
       onReload={async () => {
         const fresh = await detail.refetch({ throwOnError: true });

@@ -9,19 +9,20 @@ import { CourseList } from '../../../components/course/CourseList';
 import { GeneratorForm } from '../../../components/course/GeneratorForm';
 import { SuitesSection } from '../../../components/course/SuitesSection';
 import { StarterCourses } from '../../../components/course/StarterCourses';
-import { useMe } from '../../../hooks/useSession';
-import { canEditCourses, canEditSuites, useCourses, useCreateCourse, useCreateSuite, useDeleteSuite, useSuites, useUpdateSuite } from '../../../hooks/useCourses';
+import { useCan } from '../../../hooks/useCan';
+import { useAddStarterCourses, useCourses, useCreateCourse, useCreateSuite, useDeleteSuite, useSuites, useUpdateSuite } from '../../../hooks/useCourses';
 
 export default function CoursesScreen() {
   const router = useRouter();
-  const me = useMe();
   const courses = useCourses();
   const suites = useSuites();
   const create = useCreateCourse();
   const createSuite = useCreateSuite();
   const updateSuite = useUpdateSuite();
   const deleteSuite = useDeleteSuite();
-  const mayEdit = canEditCourses(me.data);
+  const addStarters = useAddStarterCourses();
+  const mayEdit = useCan('courses.edit');
+  const mayEditSuites = useCan('suites.edit');
   const [making, setMaking] = useState(false);
   const list = courses.data?.courses ?? [];
   return (
@@ -44,7 +45,7 @@ export default function CoursesScreen() {
       {courses.isPending ? <LoadingPage /> : null}
       {courses.isError ? <Notice message={courses.error.message} /> : null}
       {courses.isSuccess && list.length === 0 && !making ? (
-        <StarterCourses mayEdit={mayEdit} reason="No courses yet. Start with the starter set in one tap, or make your own from a generator." />
+        <StarterCourses mayEdit={mayEdit} add={addStarters} reason="No courses yet. Start with the starter set in one tap, or make your own from a generator." />
       ) : null}
       {courses.isSuccess && list.length === 0 && !making ? (
         <EmptyState
@@ -58,7 +59,7 @@ export default function CoursesScreen() {
         <SuitesSection
           suites={suites.data.suites}
           courses={list}
-          mayEdit={canEditSuites(me.data)}
+          mayEdit={mayEditSuites}
           onCreate={(s) => createSuite.mutateAsync(s)}
           onUpdate={(id, s) => updateSuite.mutateAsync({ id, ...s })}
           onDelete={(id) => deleteSuite.mutateAsync(id)}

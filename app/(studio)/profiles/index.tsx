@@ -4,14 +4,18 @@ import { EmptyState } from '../../../components/ui/EmptyState';
 import { Notice } from '../../../components/ui/Notice';
 import { ProfileList } from '../../../components/profiles/ProfileList';
 import { PublishPanel } from '../../../components/profiles/PublishPanel';
-import { useMe } from '../../../hooks/useSession';
-import { canPublishProfiles, useProfiles } from '../../../hooks/useProfiles';
+import { useCan } from '../../../hooks/useCan';
+import { usePublishProfile, useProfiles } from '../../../hooks/useProfiles';
+import { useCharacters } from '../../../hooks/useCharacters';
+import { useSuites } from '../../../hooks/useCourses';
 
 export default function ProfilesScreen() {
-  const me = useMe();
   const profiles = useProfiles();
   const list = profiles.data?.profiles ?? [];
-  const mayPublish = canPublishProfiles(me.data);
+  const mayPublish = useCan('profiles.publish');
+  const characters = useCharacters();
+  const suites = useSuites();
+  const publish = usePublishProfile();
   return (
     <Screen title="Profiles" lede="Published leg profiles: the versioned JSON your game's runtime reads.">
       {profiles.isPending ? <LoadingPage /> : null}
@@ -23,7 +27,7 @@ export default function ProfilesScreen() {
         />
       ) : null}
       {list.length ? <ProfileList profiles={list} /> : null}
-      {mayPublish ? <PublishPanel /> : null}
+      {mayPublish ? <PublishPanel characters={characters.data?.characters ?? []} suites={suites.data?.suites ?? []} publish={publish} /> : null}
     </Screen>
   );
 }

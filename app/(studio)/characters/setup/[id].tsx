@@ -2,16 +2,21 @@ import { useLocalSearchParams } from 'expo-router';
 import { LoadingPage } from '../../../../components/layout/LoadingPage';
 import { SetupPage } from '../../../../components/setup/SetupPage';
 import { useCharacter } from '../../../../hooks/useCharacters';
-import { canEditCourses } from '../../../../hooks/useCourses';
-import { canDialIn } from '../../../../hooks/useDialIn';
-import { canSaveLegSetups, useLegSetups } from '../../../../hooks/useLegSetups';
-import { useMe } from '../../../../hooks/useSession';
-import { canRunTrials } from '../../../../hooks/useTrials';
+import { useCan } from '../../../../hooks/useCan';
+import { useAddStarterCourses } from '../../../../hooks/useCourses';
+import { useLegSetups, useSaveLegSetup } from '../../../../hooks/useLegSetups';
+import { useTrialRunner } from '../../../../hooks/useTrialRunner';
 
 export default function LegSetupScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const characterId = Number(id);
-  const me = useMe();
+  const mayEdit = useCan('leg-setups.save');
+  const mayRun = useCan('trials.run');
+  const mayDialIn = useCan('dial-ins.run');
+  const mayEditCourses = useCan('courses.edit');
+  const addStarters = useAddStarterCourses();
+  const save = useSaveLegSetup(characterId);
+  const runner = useTrialRunner();
   const character = useCharacter(characterId);
   const list = useLegSetups(characterId);
   if (list.isPending) return <LoadingPage />;
@@ -21,10 +26,13 @@ export default function LegSetupScreen() {
       characterId={characterId}
       characterName={character.data?.character.name ?? 'Character'}
       list={list.data}
-      mayEdit={canSaveLegSetups(me.data)}
-      mayRun={canRunTrials(me.data)}
-      mayDialIn={canDialIn(me.data)}
-      mayEditCourses={canEditCourses(me.data)}
+      mayEdit={mayEdit}
+      mayRun={mayRun}
+      mayDialIn={mayDialIn}
+      mayEditCourses={mayEditCourses}
+      addStarters={addStarters}
+      save={save}
+      runner={runner}
     />
   );
 }
