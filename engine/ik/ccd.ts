@@ -32,7 +32,9 @@ const TURN_QUAT = new Float64Array(4);
  * One CCD sweep, foot → hip: each DOF in turn moves the sole toward the target
  * (hinge: the angle between the projections on the plane ⟂ axis; ball: the
  * shortest rotation; slider: the projection on its axis), clamped to its limits.
- * Returns limit hits; the largest change goes to ws.scalars[S_CHANGE].
+ * Returns limit hits; the largest change goes to ws.scalars[S_CHANGE]. The
+ * hinge and slider moves are written out in the loop (as functions they cost
+ * CCD a few per cent); a ball's turn, rarer, is its own function.
  */
 export function ccdSweep(ws: IKWorkspace): number {
   let hits = 0;
@@ -49,10 +51,43 @@ export function ccdSweep(ws: IKWorkspace): number {
       continue;
     }
     const nd = kind === JOINT_SLIDER || kind === JOINT_HINGE ? 1 : 2;
+    const t = ws.target;
     for (let d = d0 + nd - 1; d >= d0; d--) {
-      if (kind === JOINT_SLIDER) slideTowardTarget(ws, d);
-      else if (!hingeAngleTowardTarget(ws, j, d)) continue;
-      let v = ws.pose[d] + ws.scalars[S_MOVE];
+      const ax = ws.dAxisW[3 * d];
+      const ay = ws.dAxisW[3 * d + 1];
+      const az = ws.dAxisW[3 * d + 2];
+      let delta: number;
+      if (kind === JOINT_SLIDER) {
+        // A slider's best move: the error's projection on its axis.
+        delta = ax * (t[0] - ws.foot[0]) + ay * (t[1] - ws.foot[1]) + az * (t[2] - ws.foot[2]);
+      } else {
+        // A hinge's: the angle between pivot→sole and pivot→target projected on the plane ⟂ its axis.
+        const px = ws.jPos[3 * j];
+        const py = ws.jPos[3 * j + 1];
+        const pz = ws.jPos[3 * j + 2];
+        let r1x = ws.foot[0] - px;
+        let r1y = ws.foot[1] - py;
+        let r1z = ws.foot[2] - pz;
+        let r2x = t[0] - px;
+        let r2y = t[1] - py;
+        let r2z = t[2] - pz;
+        const p1 = r1x * ax + r1y * ay + r1z * az;
+        const p2 = r2x * ax + r2y * ay + r2z * az;
+        r1x -= p1 * ax;
+        r1y -= p1 * ay;
+        r1z -= p1 * az;
+        r2x -= p2 * ax;
+        r2y -= p2 * ay;
+        r2z -= p2 * az;
+        const cx = r1y * r2z - r1z * r2y;
+        const cy = r1z * r2x - r1x * r2z;
+        const cz = r1x * r2y - r1y * r2x;
+        const s = ax * cx + ay * cy + az * cz;
+        const c = r1x * r2x + r1y * r2y + r1z * r2z;
+        if (Math.abs(s) < HINGE_ALIGNED_BELOW && c >= 0) continue;
+        delta = Math.atan2(s, c);
+      }
+      let v = ws.pose[d] + delta;
       if (v < ws.lo[d]) {
         v = ws.lo[d];
         hits++;
@@ -104,51 +139,5 @@ function turnBallTowardTarget(ws: IKWorkspace, j: number, d0: number): boolean {
   fromRotationVector(TURN_QUAT, 0, TURN, 0);
   premultiplyUnit(ws.quat, 4 * ws.jBall[j], TURN_QUAT, 0);
   ws.scalars[S_MOVE] = ang;
-  return true;
-}
-
-/** A slider's move bringing the sole nearest the target (the error's projection on its axis) into ws.scalars[S_MOVE]. */
-function slideTowardTarget(ws: IKWorkspace, d: number): void {
-  const t = ws.target;
-  const ax = ws.dAxisW[3 * d];
-  const ay = ws.dAxisW[3 * d + 1];
-  const az = ws.dAxisW[3 * d + 2];
-  ws.scalars[S_MOVE] = ax * (t[0] - ws.foot[0]) + ay * (t[1] - ws.foot[1]) + az * (t[2] - ws.foot[2]);
-}
-
-/**
- * The turn of rotational DOF d (pivot: joint j) between the projections of
- * pivot→sole and pivot→target on the plane ⟂ its axis, into ws.scalars[S_MOVE];
- * false when already aligned.
- */
-function hingeAngleTowardTarget(ws: IKWorkspace, j: number, d: number): boolean {
-  const t = ws.target;
-  const ax = ws.dAxisW[3 * d];
-  const ay = ws.dAxisW[3 * d + 1];
-  const az = ws.dAxisW[3 * d + 2];
-  const px = ws.jPos[3 * j];
-  const py = ws.jPos[3 * j + 1];
-  const pz = ws.jPos[3 * j + 2];
-  let r1x = ws.foot[0] - px;
-  let r1y = ws.foot[1] - py;
-  let r1z = ws.foot[2] - pz;
-  let r2x = t[0] - px;
-  let r2y = t[1] - py;
-  let r2z = t[2] - pz;
-  const p1 = r1x * ax + r1y * ay + r1z * az;
-  const p2 = r2x * ax + r2y * ay + r2z * az;
-  r1x -= p1 * ax;
-  r1y -= p1 * ay;
-  r1z -= p1 * az;
-  r2x -= p2 * ax;
-  r2y -= p2 * ay;
-  r2z -= p2 * az;
-  const cx = r1y * r2z - r1z * r2y;
-  const cy = r1z * r2x - r1x * r2z;
-  const cz = r1x * r2y - r1y * r2x;
-  const s = ax * cx + ay * cy + az * cz;
-  const c = r1x * r2x + r1y * r2y + r1z * r2z;
-  if (Math.abs(s) < HINGE_ALIGNED_BELOW && c >= 0) return false;
-  ws.scalars[S_MOVE] = Math.atan2(s, c);
   return true;
 }

@@ -24,13 +24,21 @@ export function multiply(out: Float64Array, o: number, a: ArrayLike<number>, ao:
  * q ← a ⊗ q for unit a and q, renormalised. |a ⊗ q|² = 1 + ε with ε at
  * rounding level, so the first-order 1/√(1+ε) ≈ 1 − ε/2 is exact to O(ε²)
  * without a square root or a division; the exact one is the fallback if ever far off.
+ * The product is multiply's, written out: the solver calls this every iteration per ball joint.
  */
 export function premultiplyUnit(q: Float64Array, o: number, a: ArrayLike<number>, ao: number): void {
-  multiply(q, o, a, ao, q, o);
-  const x = q[o];
-  const y = q[o + 1];
-  const z = q[o + 2];
-  const w = q[o + 3];
+  const ax = a[ao];
+  const ay = a[ao + 1];
+  const az = a[ao + 2];
+  const aw = a[ao + 3];
+  const bx = q[o];
+  const by = q[o + 1];
+  const bz = q[o + 2];
+  const bw = q[o + 3];
+  const x = aw * bx + ax * bw + ay * bz - az * by;
+  const y = aw * by - ax * bz + ay * bw + az * bx;
+  const z = aw * bz + ax * by - ay * bx + az * bw;
+  const w = aw * bw - ax * bx - ay * by - az * bz;
   const n2 = x * x + y * y + z * z + w * w;
   const k = n2 > 0.999 && n2 < 1.001 ? 1.5 - 0.5 * n2 : 1 / Math.sqrt(n2);
   q[o] = x * k;
