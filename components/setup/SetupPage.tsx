@@ -7,7 +7,7 @@ import { colors, space, type } from '../../constants/theme';
 import { useIsWide } from '../../hooks/useLayout';
 import { Screen } from '../layout/Screen';
 import { SplitColumns } from '../layout/SplitColumns';
-import { LivePreview } from '../preview/LivePreview';
+import { PreviewOrDrive } from '../drive/PreviewOrDrive';
 import { RunTrialPanel } from '../trial/RunTrialPanel';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
@@ -40,7 +40,7 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
   const legs: LimitLeg[] = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => ({ name: j.name, slider: j.kind === 'slider' })) }));
   const { courses, suites } = runner;
   const noGround = courses.isSuccess && suites.isSuccess && courses.data.courses.length === 0 && suites.data.suites.length === 0;
-  const preview = (compact: boolean) => <LivePreview rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} compact={compact} />;
+  const preview = (compact: boolean) => <PreviewOrDrive rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} compact={compact} />;
 
   const change = (path: string, value: string) => {
     setDraft((d) => ({ ...d, [path]: value }));
