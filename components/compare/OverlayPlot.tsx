@@ -158,7 +158,11 @@ export function OverlayPlot({ entries, courses, focus, onFocus }: { entries: Ent
           ? at?.time !== undefined
             ? `At ${at.time.toFixed(2)} s: ${shown.map((m) => `${entries[m.i].label} ${m.v.toFixed(q.unit === 'mm' ? 1 : 2)} ${q.unit} at ${m.d.toFixed(1)} m`).join(' · ')}`
             : `At ${shown[0].d.toFixed(1)} m: ${shown.map((m) => `${entries[m.i].label} ${m.v.toFixed(q.unit === 'mm' ? 1 : 2)} ${q.unit}`).join(' · ')}`
-          : Platform.OS === 'web' ? 'Point at the plot (or tap it) to light up its rows in the table.' : 'Touch the plot to light up its rows in the table.'}
+          : focus && focus.at.course !== course
+            ? `The walk below is on ${focus.at.course}; pick that course here to see its instant on the plot.`
+            : Platform.OS === 'web'
+              ? 'Point at the plot (or tap it) to light up its rows in the table.'
+              : 'Touch the plot to light up its rows in the table.'}
       </Text>
       <Text style={styles.axis}>
         {q.label} ({q.unit}) against distance along the course (m)

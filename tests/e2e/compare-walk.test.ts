@@ -133,7 +133,13 @@ describe('the table row under the cursor', () => {
       expect(cells.length).toBeGreaterThan(0);
     }
     const { at } = await clock(page);
+    // The plot shows the same instant when it shows the walk's course, and says which course the walk is on otherwise.
     if (walkCourse.trim() === plotCourses[1]) expect(await readout(page)).toContain(`At ${at.toFixed(2)} s:`);
+    else {
+      expect(await readout(page)).toBe(`The walk below is on ${walkCourse.trim()}; pick that course here to see its instant on the plot.`);
+      await page.getByRole('radiogroup', { name: 'Course' }).first().getByRole('radio', { name: walkCourse.trim() }).click();
+    }
+    expect(await readout(page)).toMatch(new RegExp(`^At ${at.toFixed(2)} s: .*Wicket.* [\\d.]+ mm at [\\d.]+ m · .*Skitter.* [\\d.]+ mm at [\\d.]+ m$`));
     await page.getByTestId('compare-walk').scrollIntoViewIfNeeded();
     await screenshot(page, 'compare-focus-walk-wide');
     await page.getByTestId(`metric-row-course.${walkCourse.trim()}`).scrollIntoViewIfNeeded();
