@@ -17,7 +17,7 @@ import * as walkState from './walk-state';
 import type { Walk } from './walk-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
-const { minimumJerk, planSwing, swingPoint } = swingPath;
+const { createFoldGuard, minimumJerk, planSwing, swingPoint } = swingPath;
 const { transformQuat } = vec3;
 const { trackPoint } = walkPath;
 const { terrainCost, CANDIDATE_PATTERN, CANDIDATE_COUNT } = foothold;
@@ -26,6 +26,8 @@ const { DRIVE_PATH } = walkState;
 
 /** Winter (1992): minimum toe clearance in swing about 1.29 cm; no swing plans less. */
 export const MIN_TOE_CLEARANCE = 0.0129;
+/** A swing keeps the sole this many times the fold limit from the hip (common practice, no source). */
+const FOLD_SWING_MARGIN = 1;
 
 const landing = new Float64Array(3);
 /** Times the search radius is doubled when nothing inside it is reachable. */
@@ -34,6 +36,8 @@ const terrain = new Float64Array(1);
 const hipLocal = new Float64Array(3);
 const hipOffset = new Float64Array(3);
 const predicted = new Float64Array(3);
+/** The swing's hip at liftoff and at touchdown (chooseFoothold's prediction), against which its fold is checked. */
+const foldGuard = createFoldGuard();
 
 /** The body moves at a constant velocity (no path to follow, no turn): the plain arithmetic of a straight walk. */
 function steadyVelocity(t: Walk): boolean {
@@ -191,7 +195,7 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
       const pz = CANDIDATE_PATTERN[2 * k + 1];
       const cx = landing[0] + (c * px + s * pz) * radius;
       const cz = landing[2] + (c * pz - s * px) * radius;
-      const cost = terrainCost(t.ground, cx, cz, soleHalf, w, terrain);
+      const cost = terrainCost(t.ground, cx, cz, soleHalf, reach, w, terrain);
       const cy = terrain[0];
       const hy = (others + cy) / t.legs + lift;
       const dx = cx - hx;
@@ -225,11 +229,20 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
   out[0] = bx;
   out[1] = by;
   out[2] = bz;
+  const hipAt = foldGuard.hip1;
+  hipAt[0] = hx;
+  hipAt[1] = (others + by) / t.legs + lift;
+  hipAt[2] = hzDown;
 }
 
 /** Plan leg i's swing from where its foot is to the foothold chosen for the touchdown at `landTime`. */
 export function startSwing(t: Walk, i: number, landTime: number): void {
   chooseFoothold(t, i, landTime, landing);
+  const hip = t.solvers[i].rootPos;
+  foldGuard.hip0[0] = hip[0];
+  foldGuard.hip0[1] = hip[1];
+  foldGuard.hip0[2] = hip[2];
+  foldGuard.least = FOLD_SWING_MARGIN * t.foldLimit[i] * t.rig.legs[i].chain.reach;
   // After a stumble (the foot is not where it was planted) the swing starts from where the foot really is.
   const foot = t.solvers[i].foot;
   const p = t.plant;
@@ -250,6 +263,8 @@ export function startSwing(t: Walk, i: number, landTime: number): void {
     landing[2],
     Math.max(t.gait.stepHeight, MIN_TOE_CLEARANCE),
     MIN_TOE_CLEARANCE,
+    // Before the walk has started the hips are not placed yet.
+    t.started ? foldGuard : null,
   );
   for (let k = 0; k < 3; k++) t.liftNormal[3 * i + k] = t.plantNormal[3 * i + k];
   t.ground.normal(landing[0], landing[2], t.landNormal, 3 * i);

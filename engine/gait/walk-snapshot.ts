@@ -11,9 +11,9 @@ const { forwardKinematics } = ik;
 
 type Numbers = Float64Array | Uint8Array | Int32Array;
 
-/** Scalars of the walk, its motion and its four filters, before the swing plans (9 numbers per leg). */
+/** Scalars of the walk, its motion and its four filters, before the swing plans (10 numbers per leg). */
 const SCALARS = 31;
-const SWING_NUMBERS = 9;
+const SWING_NUMBERS = 10;
 
 export interface WalkSnapshot {
   readonly live: Numbers[];
@@ -87,6 +87,7 @@ export function saveWalk(w: Walk, snap: WalkSnapshot): void {
     s[n++] = sw.apex;
     s[n++] = sw.boxiness;
     s[n++] = sw.clearance;
+    s[n++] = sw.rise;
   }
 }
 
@@ -137,6 +138,7 @@ export function restoreWalk(w: Walk, snap: WalkSnapshot): void {
     sw.apex = s[n++];
     sw.boxiness = s[n++];
     sw.clearance = s[n++];
+    sw.rise = s[n++];
   }
   for (let i = 0; i < w.legs; i++) forwardKinematics(w.solvers[i]);
 }

@@ -1,7 +1,8 @@
-import { curbCourse, flatCourse, heightAt, maxHeightAlong } from '../../engine/course';
+import { curbCourse, flatCourse, generateCourse, heightAt, maxHeightAlong } from '../../engine/course';
 import {
   CRITICAL_SETTLE_2PCT,
   createDampedState,
+  createFoldGuard,
   createSwingPlan,
   omegaForSettleTime,
   planSwing,
@@ -42,6 +43,48 @@ describe('swing path (common practice, no source)', () => {
     expect(lowestClearance(course, plan)).toBeGreaterThan(-1e-3);
     const flat = planSwing(flatCourse(4), createSwingPlan(), 0, 0, 1, 0, 0, 2, 0.05);
     expect(flat.boxiness).toBe(0);
+  });
+});
+
+describe('a swing kept clear of the fold (common practice, no source: a leg is not asked to fold tighter than it can)', () => {
+  // A quadruped's rear foot stepping from the flat onto a 20° ramp, its hip rising 17 cm over the swing:
+  // held at the landing height plus the step height, the sole passes within 0.44 m of a hip that can fold to 0.49 m.
+  const course = generateCourse({ cellSize: 0.04, segments: [{ kind: 'flat', length: 3 }, { kind: 'ramp', length: 3, angleDeg: 20 }] });
+  const from = [-0.2, 0, 2.883] as const;
+  const to = [-0.2, heightAt(course, -0.2, 3.787), 3.787] as const;
+  const guard = createFoldGuard();
+  guard.hip0.set([-0.185, 0.727, 3.209]);
+  guard.hip1.set([-0.19, 0.897, 3.541]);
+  guard.least = 0.49;
+  /** Closest approach of the sole to the hip (moving evenly from hip0 to hip1) over the middle half of the swing. */
+  function closest(plan: ReturnType<typeof createSwingPlan>): number {
+    const a = [0, 0, 0];
+    let least = Infinity;
+    for (let k = 100; k <= 300; k++) {
+      const tau = k / 400;
+      swingPoint(plan, tau, a);
+      const h = [0, 1, 2].map((c) => guard.hip0[c] + (guard.hip1[c] - guard.hip0[c]) * tau);
+      least = Math.min(least, Math.hypot(a[0] - h[0], a[1] - h[1], a[2] - h[2]));
+    }
+    return least;
+  }
+  it('folds past the limit as a plain swing, and keeps outside it, over the ground, when guarded', () => {
+    const plain = planSwing(course, createSwingPlan(), ...from, ...to, 0.072, 0.0129);
+    expect(closest(plain)).toBeLessThan(guard.least - 0.02);
+    const kept = planSwing(course, createSwingPlan(), ...from, ...to, 0.072, 0.0129, guard);
+    expect(closest(kept)).toBeGreaterThan(guard.least - 1e-3);
+    expect(lowestClearance(course, kept)).toBeGreaterThan(-1e-3);
+    const end = [0, 0, 0];
+    swingPoint(kept, 1, end);
+    expect(end[1]).toBeCloseTo(to[1], 12);
+  });
+  it('leaves a swing that stays clear of the fold exactly as it was', () => {
+    const far = createFoldGuard();
+    far.hip0.set([-0.185, 1.5, 3.209]);
+    far.hip1.set([-0.19, 1.7, 3.541]);
+    far.least = 0.49;
+    const plain = planSwing(course, createSwingPlan(), ...from, ...to, 0.072, 0.0129);
+    expect(planSwing(course, createSwingPlan(), ...from, ...to, 0.072, 0.0129, far)).toEqual(plain);
   });
 });
 

@@ -82,6 +82,37 @@ describe('a gap narrower than the leg can reach across', () => {
   });
 });
 
+describe('a trench the legs could reach down into', () => {
+  // Two 20 cm trenches, 30 cm deep: shallow enough that every preset leg reaches the floor from its hip, so
+  // reach alone does not keep a foot out; nothing under a sole in the middle is an edge either. The pit term
+  // of the foothold cost must (common practice, no source: a foot is not set down in a trench it can step over).
+  const course = generateCourse({ cellSize: 0.02, segments: [{ kind: 'flat', length: LEAD }, { kind: 'trench', length: 1.5, width: 0.2, depth: 0.3 }, { kind: 'flat', length: 1.5 }, { kind: 'trench', length: 1.5, width: 0.2, depth: 0.3 }, { kind: 'flat', length: LEAD }] });
+  const trenches = [LEAD + 0.65, LEAD + 3 + 0.65].map((a) => [a, a + 0.2]);
+  it.each<PresetRigName>(['biped', 'quadruped', 'hexapod'])('%s: no foothold is chosen inside a trench (common practice, no source)', (name) => {
+    const rig = presetRig(name);
+    const t = createTrial(rig, defaultLegSetup(rig), course, { duration: 40 });
+    let inside = 0;
+    let plants = 0;
+    let pastBoth = 0;
+    const was = Uint8Array.from(t.stance);
+    walk(t, (tr) => {
+      for (let i = 0; i < tr.legs; i++) {
+        if (tr.stance[i] && !was[i]) {
+          plants++;
+          const z = tr.plant[3 * i + 2];
+          if (trenches.some(([a, b]) => z > a && z < b)) inside++;
+          if (z > trenches[1][1]) pastBoth++;
+        }
+        was[i] = tr.stance[i];
+      }
+    });
+    // Every leg got across both trenches, and none was set down in one.
+    expect(pastBoth).toBeGreaterThanOrEqual(rig.legs.length);
+    expect(plants).toBeGreaterThan(10);
+    expect(inside).toBe(0);
+  });
+});
+
 describe('recovery after a constructed reach-miss', () => {
   it.each<PresetRigName>(['biped', 'quadruped', 'hexapod'])('%s: a leg thrown off its target tracks within 1 cm again within two steps (common practice, no source)', (name) => {
     const rig = presetRig(name);
