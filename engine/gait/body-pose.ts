@@ -6,6 +6,7 @@ import { quat, vec3 } from 'gl-matrix';
 import * as ik from '../ik';
 import * as bodyFilter from './body-filter';
 import { COMFORT_MAX, STANCE_FOLD_MIN } from './reach';
+import { fixedLengthLeg } from './walk-height';
 import { minimumJerk } from './swing-path';
 import type { Walk } from './walk-state';
 
@@ -133,7 +134,9 @@ function stanceHeightCap(t: Walk, share: number): number {
   let cap = Infinity;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
-    let top = heightAtDistance(t, i, share * t.rig.legs[i].chain.reach);
+    const chain = t.rig.legs[i].chain;
+    // A leg that cannot fold stands at its full length or not at all.
+    let top = heightAtDistance(t, i, (fixedLengthLeg(chain) ? 1 : share) * chain.reach);
     // Out of reach already: no height helps, so hold the hip level with the foot's side of the sphere.
     if (top !== top) top = t.plant[3 * i + 1] - hipWorld[1];
     if (top < cap) cap = top;
@@ -146,8 +149,9 @@ function stanceHeightFloor(t: Walk, share: number): number {
   let floor = -Infinity;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
+    const chain = t.rig.legs[i].chain;
     const fold = t.foldLimit[i] + FOLD_TO_STANCE;
-    const low = heightAtDistance(t, i, (share > fold ? share : fold) * t.rig.legs[i].chain.reach);
+    const low = heightAtDistance(t, i, (fixedLengthLeg(chain) ? 1 : share > fold ? share : fold) * chain.reach);
     if (low > floor) floor = low;
   }
   return floor;

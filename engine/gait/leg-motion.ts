@@ -134,6 +134,12 @@ export function findStraightKnee(ws: IKWorkspace, kneeJoint: number | undefined,
 /** A knee within this of its straight limit, rad, is preshaped. */
 const KNEE_NEAR_STRAIGHT = 0.15;
 
+/** Whether leg i's knee (if it has a hinge knee) is within KNEE_NEAR_STRAIGHT of its straight limit. */
+export function kneeNearStraight(t: Walk, i: number): boolean {
+  const d = t.kneeDof[i];
+  return d >= 0 && Math.abs(t.solvers[i].pose[d] - t.kneeStraight[2 * i]) <= KNEE_NEAR_STRAIGHT;
+}
+
 /**
  * Two-bone preshaping of the warm start: the knee is set to the bend that
  * makes the hip-to-sole distance what the aim asks for (law of cosines over
@@ -144,12 +150,12 @@ const KNEE_NEAR_STRAIGHT = 0.15;
  * the knee; at full extension the knee's Jacobian column has no component
  * along the leg at all, so a straight knee never bends by itself.
  */
-export function preshapeKnee(t: Walk, i: number, aim: Float64Array): void {
+export function preshapeKnee(t: Walk, i: number, aim: Float64Array, always = false): void {
   const d = t.kneeDof[i];
   if (d < 0) return;
   const ws = t.solvers[i];
   // Only a knee near its straight limit: a bent one is left to the solver, which follows it smoothly.
-  if (Math.abs(ws.pose[d] - t.kneeStraight[2 * i]) > KNEE_NEAR_STRAIGHT) return;
+  if (!always && !kneeNearStraight(t, i)) return;
   forwardKinematics(ws);
   const k = 3 * (t.rig.legs[i].chain.knee as number);
   const p = ws.jPos;

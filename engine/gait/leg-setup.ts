@@ -9,6 +9,7 @@ import { DEFAULT_OPTIONS, SOLVER_METHODS, type SolverMethod, type SolverOptions 
 import { dofCount } from '../ik/workspace';
 import { GAIT_PATTERNS, PRESET_GAITS, defaultPatternFor, evenPhaseOffsets } from './patterns';
 import type { Rig } from './rig';
+import { fixedLengthLeg } from './walk-height';
 import { DEFAULT_FROUDE, alexanderStride, speedForFroude } from './stride';
 
 export const LEG_SETUP_VERSION = 1;
@@ -314,6 +315,26 @@ export const PLANNED_SWING_SPEED = 300;
 /** Peak over mean speed of a minimum-jerk move (Flash & Hogan 1985): 15/8. */
 const MIN_JERK_PEAK = 15 / 8;
 
+/** How far a fixed-length leg's hip may drift from its distance to the planted foot over a stance, m (under the 1 cm sink and reach-miss thresholds). */
+const FIXED_LENGTH_DRIFT = 0.004;
+
+/**
+ * Longest stance travel over which every fixed-length leg (walk-height.ts) keeps its planted foot within
+ * FIXED_LENGTH_DRIFT of its length: with the hip over the neutral spot at full length, a foot s further along
+ * the walk is ((dz + s)² − dz²) / 2L further from the hip, to first order. Infinity without such legs.
+ */
+function fixedLengthStance(rig: Rig): number {
+  let travel = Infinity;
+  for (const leg of rig.legs) {
+    if (!fixedLengthLeg(leg.chain)) continue;
+    const dz = Math.abs(leg.neutralFoot[1] - leg.hip[2]);
+    // Half the travel, s, solves s² + 2·dz·s = 2·L·drift.
+    const s = -dz + Math.sqrt(dz * dz + 2 * leg.chain.reach * FIXED_LENGTH_DRIFT);
+    travel = Math.min(travel, 2 * s);
+  }
+  return travel;
+}
+
 /**
  * The defaults of a rig, scaled to its own size and proportions. Step height is a share of hip height, speed
  * a Froude number (dynamically similar walking), slowed where a small rig's swings would ask its joints for
@@ -328,9 +349,17 @@ export function defaultLegSetup(rig: Rig): LegSetup {
   setup.solver.orientationWeight = TRIAL_ORIENTATION_WEIGHT * Math.max(1, reach / ORIENTATION_WEIGHT_REACH);
   const g = setup.gait;
   if (g.timing.mode !== 'speed') return setup;
-  const speed = g.timing.speed;
-  const stride = alexanderStride(rig.hipHeight, speed);
+  let speed = g.timing.speed;
+  let stride = alexanderStride(rig.hipHeight, speed);
   const cycle = stride / speed;
+  const fixedStance = fixedLengthStance(rig);
+  if (g.dutyFactor * stride > fixedStance) {
+    // Same cadence, shorter steps: a leg that cannot fold keeps its foot on the ground only near its neutral spot.
+    stride = fixedStance / g.dutyFactor;
+    speed = stride / cycle;
+    setup.gait.stride = stride;
+    setup.gait.timing = { mode: 'speed', speed };
+  }
   const sweep = (g.dutyFactor * stride) / reach;
   const peak = (MIN_JERK_PEAK * sweep * (180 / Math.PI)) / ((1 - g.dutyFactor) * cycle);
   // The peak joint speed goes with the walking speed (stride ∝ v^0.6 and cycle ∝ v^-0.4 under Alexander's relation).

@@ -47,7 +47,7 @@ const { legPhase, wrap01 } = timing;
 const { trackPoint } = walkPath;
 const { bodyTargets, computeBodyTargets, followBodyTargets, placeHips, updateBodyRotation } = bodyPose;
 const { plantAt, restsWhereItStands, startSwing, touchdownPoint, updateTargets } = footPlanner;
-const { aimLeg, findStraightKnee, limitLegMotion, preshapeKnee } = legMotion;
+const { aimLeg, findStraightKnee, kneeNearStraight, limitLegMotion, preshapeKnee } = legMotion;
 const { PACE_SETTLE_SECONDS, terrainPace } = paceRules;
 const { DEG, EXTRAPOLATION_GAIN, SETTLE_ITERATIONS } = trialOptions;
 const { cycleTimeForMotion, cycleTimeForSpeed, STOP_SHARE, strideForSpeed, topTurnRate, topWalkSpeed } = walkSpeed;
@@ -280,9 +280,16 @@ export function createWalk(rig: Rig, setupInput: unknown, ground: Ground, option
     // From rest with the knee already bent to the target's distance: a straight start can settle straight.
     resetPose(solvers[i]);
     preshapeKnee(w, i, w.targetOf[i]);
-    const r = solve(solvers[i], w.targetOf[i], w.orient[i] ? w.targetNormalOf[i] : null, {
+    let r = solve(solvers[i], w.targetOf[i], w.orient[i] ? w.targetNormalOf[i] : null, {
       maxIterations: SETTLE_ITERATIONS,
     });
+    if (kneeNearStraight(w, i)) {
+      // Settled straight (the ankle took the fold at its limit, a pose the first swing snaps out of): bend the
+      // knee from rest to the target's distance, however far the rest knee is from straight, and settle again.
+      resetPose(solvers[i]);
+      preshapeKnee(w, i, w.targetOf[i], true);
+      r = solve(solvers[i], w.targetOf[i], w.orient[i] ? w.targetNormalOf[i] : null, { maxIterations: SETTLE_ITERATIONS });
+    }
     w.prevPose[i].set(r.pose);
     w.olderPose[i].set(r.pose);
     const f = solvers[i].foot;
