@@ -6,11 +6,12 @@ import { quat, vec3 } from 'gl-matrix';
 import * as ik from '../ik';
 import * as bodyFilter from './body-filter';
 import { COMFORT_MAX, STANCE_FOLD_MIN } from './reach';
-import { fixedLengthLeg } from './walk-height';
+import * as walkHeight from './walk-height';
 import { minimumJerk } from './swing-path';
 import type { Walk } from './walk-state';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
+const { fixedLengthLeg } = walkHeight;
 const { setRootTransform } = ik;
 const { stepCritical } = bodyFilter;
 const { setAxisAngle: quatSetAxisAngle, multiply: quatMultiply } = quat;

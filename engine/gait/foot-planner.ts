@@ -13,6 +13,7 @@ import * as walkPath from '../course/walk-path';
 import * as foothold from './foothold';
 import * as reachRules from './reach';
 import * as swingPath from './swing-path';
+import * as walkHeight from './walk-height';
 import * as walkState from './walk-state';
 import type { Walk } from './walk-state';
 
@@ -22,8 +23,11 @@ const { transformQuat } = vec3;
 const { trackPoint } = walkPath;
 const { terrainCost, CANDIDATE_PATTERN, CANDIDATE_COUNT } = foothold;
 const { CANDIDATE_MAX, REACH_COST_START } = reachRules;
+const { fixedLengthLeg } = walkHeight;
 const { DRIVE_PATH } = walkState;
 
+/** Candidates for a fixed-length leg (walk-height.ts) within this share of its length from the hip as it will be. */
+const FIXED_LENGTH_CANDIDATE_MAX = 1.005;
 /** Winter (1992): minimum toe clearance in swing about 1.29 cm; no swing plans less. */
 export const MIN_TOE_CLEARANCE = 0.0129;
 /** A swing keeps the sole this many times the fold limit from the hip (common practice, no source). */
@@ -179,7 +183,10 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
     hxUp = predicted[0] + ct * hipOffset[0] + st * hipOffset[2];
     hzUp = predicted[1] - st * hipOffset[0] + ct * hipOffset[2];
   }
-  const limit = CANDIDATE_MAX * reach;
+  // A leg that cannot fold lands at its full length or nowhere: its spots are judged at that length, with no
+  // reach penalty (every spot it can take would pay the whole of it, and the cheapest were those it cannot reach).
+  const fixedLength = fixedLengthLeg(t.rig.legs[i].chain);
+  const limit = (fixedLength ? FIXED_LENGTH_CANDIDATE_MAX : CANDIDATE_MAX) * reach;
   const soleHalf = t.soleHalf[i];
 
   let best = Infinity;
@@ -216,7 +223,7 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
       const dn = Math.sqrt((cx - landing[0]) * (cx - landing[0]) + (cz - landing[2]) * (cz - landing[2]));
       const over = d / reach - REACH_COST_START;
       let total = cost + (radius0 > 0 ? (w.distanceWeight * dn) / radius0 : 0);
-      if (over > 0) total += w.reachWeight * (over / (CANDIDATE_MAX - REACH_COST_START)) ** 2;
+      if (over > 0 && !fixedLength) total += w.reachWeight * (over / (CANDIDATE_MAX - REACH_COST_START)) ** 2;
       if (total < best) {
         best = total;
         found = true;

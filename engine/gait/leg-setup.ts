@@ -316,7 +316,7 @@ export const PLANNED_SWING_SPEED = 300;
 const MIN_JERK_PEAK = 15 / 8;
 
 /** How far a fixed-length leg's hip may drift from its distance to the planted foot over a stance, m (under the 1 cm sink and reach-miss thresholds). */
-const FIXED_LENGTH_DRIFT = 0.004;
+const FIXED_LENGTH_DRIFT = 0.001;
 
 /**
  * Longest stance travel over which every fixed-length leg (walk-height.ts) keeps its planted foot within

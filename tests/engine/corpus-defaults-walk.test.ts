@@ -34,12 +34,8 @@ beforeAll(async () => {
 const stumblesOf = (r: ReturnType<typeof runTrial>) => Object.fromEntries(STUMBLE_KINDS.map((k) => [k, r.metrics.stumbles[k].count]));
 const none = Object.fromEntries(STUMBLE_KINDS.map((k) => [k, 0]));
 
-// A leg of one segment keeps one distance from its hip; its foot meets flat ground only on a circle, and the swing
-// paths, footholds and reach bands still treat it as a leg that folds (scuffs through most swings). Left open.
-const KNOWN_OPEN = new Set(['two-joint-legs']);
-
 describe.each(corpus.map((c) => [c.id] as const))('%s with its derived defaults', (id) => {
-  (KNOWN_OPEN.has(id) ? it.failing : it)('walks 20 s of flat ground with zero stumbles', () => {
+  it('walks 20 s of flat ground with zero stumbles', () => {
     const rig = rigs.get(id)!;
     const r = runTrial(rig, defaultLegSetup(rig), flatCourse(12), { duration: 20 });
     expect(r.metrics.steps).toBeGreaterThan(4 * rig.legs.length);
