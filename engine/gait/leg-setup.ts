@@ -315,7 +315,7 @@ export const PLANNED_SWING_SPEED = 300;
 /** Peak over mean speed of a minimum-jerk move (Flash & Hogan 1985): 15/8. */
 const MIN_JERK_PEAK = 15 / 8;
 
-/** How far a fixed-length leg's hip may drift from its distance to the planted foot over a stance, m (under the 1 cm sink and reach-miss thresholds). */
+/** How far a fixed-length leg's hip may drift from its length to the planted foot over a stance, m: the sole ends the stance about that far under the ground, and a swinging sole 2 mm under is a scuff. */
 const FIXED_LENGTH_DRIFT = 0.001;
 
 /**
