@@ -8,6 +8,7 @@ import { CourseSpecSchema, flatCourse, generateCourse } from '../../engine/cours
 import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { createTrial, runTrial } from '../../engine/gait/trial';
+import { legSetupProblems, trialStartProblems } from '../../engine/gait/setup-problems';
 import { fixedLengthLeg } from '../../engine/gait/walk-height';
 import type { Rig } from '../../engine/gait/rig';
 import { mappingOf } from '../../engine/rig/leg-mapping';
@@ -40,6 +41,14 @@ describe.each(corpus.map((c) => [c.id] as const))('%s with its derived defaults'
     const r = runTrial(rig, defaultLegSetup(rig), flatCourse(12), { duration: 20 });
     expect(r.metrics.steps).toBeGreaterThan(4 * rig.legs.length);
     expect(stumblesOf(r)).toEqual(none);
+  });
+
+  it('is not refused at submission for any starter course', () => {
+    const rig = rigs.get(id)!;
+    const setup = defaultLegSetup(rig);
+    expect(legSetupProblems(setup, rig)).toEqual([]);
+    const courses = STARTER_COURSES.map((s) => ({ name: s.name, heightfield: generateCourse(CourseSpecSchema.parse(s.recipe)) }));
+    expect(trialStartProblems(rig, setup, courses, { duration: 20 })).toEqual([]);
   });
 
   it.each(STARTER_COURSES.map((s) => [s.name, s] as const))('runs a trial on %s to its end', (_name, s) => {
