@@ -11,6 +11,7 @@
 import { quat, vec3 } from 'gl-matrix';
 import * as walkPath from '../course/walk-path';
 import * as foothold from './foothold';
+import * as paceRules from './pace';
 import * as reachRules from './reach';
 import * as swingPath from './swing-path';
 import * as walkHeight from './walk-height';
@@ -22,7 +23,8 @@ const { createFoldGuard, minimumJerk, planSwing, swingPoint } = swingPath;
 const { transformQuat } = vec3;
 const { trackPoint } = walkPath;
 const { terrainCost, CANDIDATE_PATTERN, CANDIDATE_COUNT } = foothold;
-const { CANDIDATE_MAX, REACH_COST_START } = reachRules;
+const { CANDIDATE_MAX, REACH_COST_START, TARGET_MAX } = reachRules;
+const { terrainPace } = paceRules;
 const { fixedLengthLeg } = walkHeight;
 const { DRIVE_PATH } = walkState;
 
@@ -155,6 +157,11 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
   let hzDown: number;
   let hxUp: number;
   let hzUp: number;
+  // The hip at touchdown should the body have slowed by then to the pace the ground and the planted feet ask
+  // for now (approaching stairs the pace falls after the choice, and a foot chosen at 95 % of reach was set
+  // down past the reach of a hip that had fallen 23 cm behind).
+  let hxSlow: number;
+  let hzSlow: number;
   // The candidate pattern (its line along the walk) turns with the body.
   let c = 1;
   let s = 0;
@@ -165,6 +172,10 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
     hzDown = predicted[1] + hipOffset[2];
     hxUp = hx + m.vx * t.pace.value * beta * t.cycleTime;
     hzUp = hzDown + m.vz * t.pace.value * beta * t.cycleTime;
+    const slower = t.pace.value - terrainPace(t);
+    const lag = (slower > 0 ? slower : 0) * (landTime - t.frame * t.timeStep);
+    hxSlow = hx - m.vx * lag;
+    hzSlow = hzDown - m.vz * lag;
     c = Math.cos(t.heading);
     s = Math.sin(t.heading);
   } else {
@@ -182,6 +193,8 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
     st = Math.sin(turn);
     hxUp = predicted[0] + ct * hipOffset[0] + st * hipOffset[2];
     hzUp = predicted[1] - st * hipOffset[0] + ct * hipOffset[2];
+    hxSlow = hx;
+    hzSlow = hzDown;
   }
   // A leg that cannot fold lands at its full length or nowhere: its spots are judged at that length, with no
   // reach penalty (every spot it can take would pay the whole of it, and the cheapest were those it cannot reach).
@@ -210,7 +223,11 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
       const dy = cy - hy;
       const dDown = Math.sqrt(dx * dx + dy * dy + (cz - hzDown) * (cz - hzDown));
       const dUp = Math.sqrt(dxUp * dxUp + dy * dy + (cz - hzUp) * (cz - hzUp));
-      const d = dDown > dUp ? dDown : dUp;
+      // From the slowed hip the spot need only be reachable at all (TARGET_MAX), not comfortably.
+      const dxSlow = cx - hxSlow;
+      const dSlow = (Math.sqrt(dxSlow * dxSlow + dy * dy + (cz - hzSlow) * (cz - hzSlow)) * CANDIDATE_MAX) / TARGET_MAX;
+      const dMost = dDown > dUp ? dDown : dUp;
+      const d = dMost > dSlow ? dMost : dSlow;
       if (d > limit) {
         if (!found && d < bestOver) {
           bestOver = d;
