@@ -2,8 +2,9 @@
  * Walking on structured ground: where feet are set down on stairs and across gaps, how swings clear
  * nosings, and how a leg recovers after it has lost its target.
  */
-import { CODE_STAIRS, generateCourse, heightAt, type Heightfield } from '../../engine/course';
+import { CODE_STAIRS, generateCourse, heightAt, heightfieldGround, type Heightfield } from '../../engine/course';
 import { createTrial, defaultLegSetup, presetRig, stepTrial, type PresetRigName, type Trial } from '../../engine/gait';
+import { PIT_GRADE, pitDepth } from '../../engine/gait/foothold';
 
 const LEAD = 3;
 const STEPS = 8;
@@ -88,6 +89,18 @@ describe('a trench the legs could reach down into', () => {
   // of the foothold cost must (common practice, no source: a foot is not set down in a trench it can step over).
   const course = generateCourse({ cellSize: 0.02, segments: [{ kind: 'flat', length: LEAD }, { kind: 'trench', length: 1.5, width: 0.2, depth: 0.3 }, { kind: 'flat', length: 1.5 }, { kind: 'trench', length: 1.5, width: 0.2, depth: 0.3 }, { kind: 'flat', length: LEAD }] });
   const trenches = [LEAD + 0.65, LEAD + 3 + 0.65].map((a) => [a, a + 0.2]);
+  it('pit depth: in the middle of a 20 cm trench the sole lies its depth less the grade allowance below the rims; a ramp, a stair run and flat ground are no pit', () => {
+    // Worked by hand: the probe reaches 20 cm; its first sample outside the 10 cm half-width is at 2/3 of that.
+    const ground = heightfieldGround(course);
+    const centre = LEAD + 0.75;
+    expect(pitDepth(ground, 0, centre, ground.height(0, centre), 0.2)).toBeCloseTo(0.3 - PIT_GRADE * (0.2 * 2) / 3, 3);
+    expect(pitDepth(ground, 0, LEAD - 1, 0, 0.2)).toBe(0);
+    const ramp = heightfieldGround(generateCourse({ cellSize: 0.02, segments: [{ kind: 'flat', length: LEAD }, { kind: 'ramp', length: 3, angleDeg: 20 }, { kind: 'flat', length: LEAD }] }));
+    expect(pitDepth(ramp, 0, LEAD + 1.5, ramp.height(0, LEAD + 1.5), 0.2)).toBe(0);
+    const stairs = heightfieldGround(codeStairs('up'));
+    const tread = LEAD + 2.5 * CODE_STAIRS.tread;
+    expect(pitDepth(stairs, 0, tread, stairs.height(0, tread), 0.2)).toBe(0);
+  });
   it.each<PresetRigName>(['biped', 'quadruped', 'hexapod'])('%s: no foothold is chosen inside a trench (common practice, no source)', (name) => {
     const rig = presetRig(name);
     const t = createTrial(rig, defaultLegSetup(rig), course, { duration: 40 });
