@@ -15,10 +15,25 @@ import { ImportReportView } from './ImportReportView';
 import { LegList } from './LegList';
 import { LegMappingForm } from './LegMappingForm';
 import { CharacterActions } from './CharacterActions';
+import type { Mutation } from '../../hooks/mutation';
 import { UnitFix } from './UnitFix';
 
 /** A character: the 3D view, its legs (and the form to correct them), and the import report. */
-export function CharacterPage({ detail, fileUrl, mayEdit, mayDialIn, onSaveLegs }: { detail: CharacterDetail; fileUrl: string; mayEdit: boolean; mayDialIn: boolean; onSaveLegs(legs: LegMapping[]): Promise<void> }) {
+export function CharacterPage({
+  detail,
+  fileUrl,
+  mayEdit,
+  mayDialIn,
+  setUnitScale,
+  onSaveLegs,
+}: {
+  detail: CharacterDetail;
+  fileUrl: string;
+  mayEdit: boolean;
+  mayDialIn: boolean;
+  setUnitScale: Mutation<number>;
+  onSaveLegs(legs: LegMapping[]): Promise<void>;
+}) {
   const wide = useIsWide();
   const [editing, setEditing] = useState(false);
   const { character, skeleton, report, detectedLegs } = detail;
@@ -70,7 +85,7 @@ export function CharacterPage({ detail, fileUrl, mayEdit, mayDialIn, onSaveLegs 
   return (
     <Screen title={character.name} lede={lede} actions={<Link href="/characters" style={styles.back}>All characters</Link>}>
       <CharacterActions characterId={character.id} mayDialIn={mayDialIn} />
-      <UnitFix detail={detail} mayEdit={mayEdit} />
+      <UnitFix detail={detail} mayEdit={mayEdit} set={setUnitScale} />
       {wide ? (
         <View style={styles.columns}>
           <View style={styles.main}>

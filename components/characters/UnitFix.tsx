@@ -3,7 +3,7 @@ import { StyleSheet, Text, View } from 'react-native';
 import type { CharacterDetail } from '../../schemas/characters';
 import { formatLength, isUnitScale } from '../../engine/rig/skeleton-scale';
 import { colors, radius, space, type } from '../../constants/theme';
-import { useSetUnitScale } from '../../hooks/useCharacters';
+import type { Mutation } from '../../hooks/mutation';
 import { Button } from '../ui/Button';
 import { TextField } from '../ui/TextField';
 
@@ -13,9 +13,8 @@ const UNIT_WORD = { metres: 'metres', centimetres: 'centimetres', millimetres: '
  * The character's size in metres and the unit fix: one tap to scale a file authored in centimetres or millimetres,
  * a custom factor, or undo. The uploaded file is never changed; the fix is stored with the character.
  */
-export function UnitFix({ detail, mayEdit }: { detail: CharacterDetail; mayEdit: boolean }) {
+export function UnitFix({ detail, mayEdit, set }: { detail: CharacterDetail; mayEdit: boolean; set: Mutation<number> }) {
   const { character, report } = detail;
-  const set = useSetUnitScale(character.id);
   const [custom, setCustom] = useState('');
   const [customError, setCustomError] = useState<string | null>(null);
   const guess = report.units?.guess ?? null;

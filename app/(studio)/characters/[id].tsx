@@ -2,7 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { CharacterPage } from '../../../components/characters/CharacterPage';
 import { LoadingPage } from '../../../components/layout/LoadingPage';
 import { useCan } from '../../../hooks/useCan';
-import { characterFileUrl, useCharacter, useSaveLegs } from '../../../hooks/useCharacters';
+import { characterFileUrl, useCharacter, useSaveLegs, useSetUnitScale } from '../../../hooks/useCharacters';
 
 export default function CharacterScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
@@ -11,6 +11,7 @@ export default function CharacterScreen() {
   const mayDialIn = useCan('dial-ins.run');
   const detail = useCharacter(characterId);
   const save = useSaveLegs(characterId);
+  const setUnitScale = useSetUnitScale(characterId);
   if (detail.isPending) return <LoadingPage />;
   if (detail.isError) return <LoadingPage problem={detail.error.message} onRetry={() => detail.refetch()} />;
   return (
@@ -19,6 +20,7 @@ export default function CharacterScreen() {
       fileUrl={characterFileUrl(characterId)}
       mayEdit={mayEdit}
       mayDialIn={mayDialIn}
+      setUnitScale={setUnitScale}
       onSaveLegs={async (legs) => {
         await save.mutateAsync(legs);
         await detail.refetch();
