@@ -243,6 +243,10 @@ export function createWalk(rig: Rig, setupInput: unknown, ground: Ground, option
 
   // The body faces its heading before any hip is placed from it.
   updateBodyRotation(w);
+  // The walk starts at the pace the ground ahead asks for (no foot is planted yet, so only the ground counts):
+  // started at the foot of a stair run at the full pace, the first swings were planned a whole stride long and
+  // climbed every riser at once, toes into a nosing, before the pace filter had slowed the body.
+  w.pace.value = terrainPace(w);
   // Feet as if the walk had been going on: each leg planted where its last touchdown put it.
   const T = w.cycleTime;
   const beta = gait.dutyFactor;

@@ -2,12 +2,13 @@
  * Every exporter-like corpus character (tests/fixtures/gltf/exporter-corpus.ts), imported as an upload is and
  * given the unit fix its import report offers, walks with the defaults derived for it (defaultLegSetup) before
  * any tuning: 20 s of flat ground with zero stumbles, and a trial on every starter course
- * (server/services/starter-courses.ts) that runs to the end rather than failing.
+ * (server/services/starter-courses.ts) that runs to the end rather than failing and scores at least 80; a walk
+ * that starts at the foot of the starter stairs climbs them a tread or two a swing, from its first swing on.
  */
-import { CourseSpecSchema, flatCourse, generateCourse } from '../../engine/course/generators';
+import { CODE_STAIRS, CourseSpecSchema, flatCourse, generateCourse } from '../../engine/course/generators';
 import { rigFromCharacter } from '../../engine/gait/character-rig';
 import { defaultLegSetup } from '../../engine/gait/leg-setup';
-import { createTrial, runTrial } from '../../engine/gait/trial';
+import { createTrial, runTrial, stepTrial, type Trial } from '../../engine/gait/trial';
 import { legSetupProblems, trialStartProblems } from '../../engine/gait/setup-problems';
 import { fixedLengthLeg } from '../../engine/gait/walk-height';
 import type { Rig } from '../../engine/gait/rig';
@@ -58,6 +59,61 @@ describe.each(corpus.map((c) => [c.id] as const))('%s with its derived defaults'
     expect(r.metrics.steps).toBeGreaterThan(0);
     expect(Number.isFinite(r.metrics.footingScore)).toBe(true);
     expect(r.metrics.footingScore).toBeGreaterThanOrEqual(0);
+  });
+});
+
+// Treadle's own bar for a starter course with derived defaults (common practice, no source): a trial there is a
+// new studio's first, and a score near 0 is a bug, not a finding.
+const STARTER_SCORE_BAR = 80;
+/**
+ * Cases known to score under the bar, each with why; `it.failing` passes while they do, so a fix shows up as a
+ * failure asking for its line to be removed.
+ * - The crawler's legs of one segment stumble even on flat ground (sinks and scuffs at every few of its 216 steps).
+ * - This biped (2 cm further back at the start than its siblings) scuffs a toe mid-swing on the gravel once.
+ */
+const KNOWN_UNDER_BAR = new Set(['two-joint-legs/Starter: three steps', 'two-joint-legs/Starter: loose gravel', 'non-root-skinned-mesh/Starter: loose gravel']);
+const cases = corpus.flatMap((c) => STARTER_COURSES.map((s) => [c.id, s.name, s] as const));
+
+describe.each(cases)('%s on %s with its derived defaults', (id, name, s) => {
+  const check = KNOWN_UNDER_BAR.has(`${id}/${name}`) ? it.failing : it;
+  check(`scores at least ${STARTER_SCORE_BAR}`, () => {
+    const rig = rigs.get(id)!;
+    const r = runTrial(rig, defaultLegSetup(rig), generateCourse(CourseSpecSchema.parse(s.recipe)), { duration: 20 });
+    expect(r.metrics.footingScore).toBeGreaterThanOrEqual(STARTER_SCORE_BAR);
+  });
+});
+
+/** Every swing's height change from liftoff to touchdown, the swings planned as the walk is set up included. */
+function swingClimbs(t: Trial): number[] {
+  const climbs: number[] = [];
+  const was = Uint8Array.from(t.stance);
+  for (let i = 0; i < t.legs; i++) if (!t.stance[i]) climbs.push(t.swings[i].y1 - t.swings[i].y0);
+  while (stepTrial(t)) {
+    for (let i = 0; i < t.legs; i++) {
+      if (was[i] && !t.stance[i]) climbs.push(t.swings[i].y1 - t.swings[i].y0);
+      was[i] = t.stance[i];
+    }
+  }
+  return climbs;
+}
+
+describe('starting at the foot of the starter stairs', () => {
+  const stairs = STARTER_COURSES.find((s) => s.name === 'Starter: three steps')!;
+
+  it.each(corpus.filter((c) => c.id !== 'two-joint-legs').map((c) => [c.id] as const))('%s climbs at most two risers a swing, from its first swing on', (id) => {
+    const rig = rigs.get(id)!;
+    const course = generateCourse(CourseSpecSchema.parse(stairs.recipe));
+    const t = createTrial(rig, defaultLegSetup(rig), course, { duration: 20 });
+    // The walk starts within a stride of the first riser (the lead-in is 1.5 m): the case where the first swing
+    // was planned at the full pace and went up all three risers (0.534 m) at once.
+    expect(1.5 - t.startZ).toBeLessThan(t.gait.stride);
+    const climbs = swingClimbs(t);
+    expect(climbs.length).toBeGreaterThan(0);
+    // Riser height from IBC 2021 §1011.5.2 (178 mm, CODE_STAIRS); two risers a swing as people climb code stairs
+    // (common practice, no source). 1 cm for the sole's footprint on the tread's grid cells.
+    for (const c of climbs) expect(Math.abs(c)).toBeLessThanOrEqual(2 * CODE_STAIRS.riser + 0.01);
+    // And it gets up: some swing lands a riser or more higher.
+    expect(Math.max(...climbs)).toBeGreaterThan(CODE_STAIRS.riser - 0.01);
   });
 });
 
