@@ -228,7 +228,7 @@ describe('the BullMQ runner with two worker processes', () => {
     const job = await enqueue(runner, 'trial', { ...trialInput, courseIds: [studio.courses.curb], setup: defaultLegSetup(presetRig('biped')) });
     const row = await finished(job.id);
     expect(row.status).toBe('failed');
-    expect(row.error).toMatch(/failed one of its tasks 3 times: .*biped-walk is for 2 legs/);
+    expect(row.error).toMatch(/failed one of its tasks 3 times: .*need 4 phase offsets for rig Burrow/);
     await runner.close();
   });
 
