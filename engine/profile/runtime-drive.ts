@@ -25,7 +25,7 @@ import { createWalkSnapshot, restoreWalk, saveWalk } from '../gait/walk-snapshot
 import * as quatMath from '../math/quat';
 import { StumbleDetector } from '../metrics/stumble-detector';
 import { DEFAULT_STUMBLE_THRESHOLDS } from '../metrics/stumble-thresholds';
-import type { GroundQuery, LegRuntimeError, LegRuntimeOptions } from './runtime';
+import type { GroundQuery, LegRuntime, LegRuntimeError, LegRuntimeOptions } from './runtime';
 
 // Read once: under CommonJS interop each use of an imported name is a getter call.
 const { heightfieldGround, isGround, queryGround, GroundQueryError } = groundQueries;
@@ -34,22 +34,13 @@ const { fromMat3: quatFromMat3 } = quatMath;
 /** Longest stretch of game time one update catches up, s. */
 export const MAX_CATCH_UP_SECONDS = 0.25;
 
-export interface DrivenWalk {
+/** The runtime's state and controls (documented on LegRuntime) over its walk; outputs take their `out` array. */
+export interface DrivenWalk
+  extends Pick<
+    LegRuntime,
+    'timeStep' | 'frame' | 'time' | 'alpha' | 'speed' | 'turnRate' | 'cycleTime' | 'resting' | 'lastError' | 'drive' | 'follow' | 'update' | 'step' | 'inStance'
+  > {
   readonly walk: Walk;
-  readonly timeStep: number;
-  readonly frame: number;
-  readonly time: number;
-  readonly alpha: number;
-  readonly speed: number;
-  readonly turnRate: number;
-  readonly cycleTime: number;
-  readonly resting: boolean;
-  readonly lastError: LegRuntimeError | null;
-  drive(vx: number, vz: number, turnRate: number): void;
-  follow(x: number, z: number, heading: number): void;
-  update(dt: number): void;
-  step(): boolean;
-  inStance(leg: number): boolean;
   footPosition(leg: number, out: Float64Array): Float64Array;
   footTarget(leg: number, out: Float64Array): Float64Array;
   jointWorldMatrix(leg: number, k: number, out: Float64Array): Float64Array;
