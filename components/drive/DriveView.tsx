@@ -1,11 +1,10 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { decodeCourse } from '../../engine/course/encoding';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import type { StumbleKind } from '../../engine/metrics/stumble-thresholds';
 import { colors, fonts, radius, space, type } from '../../constants/theme';
-import { useCourse, useCourses } from '../../hooks/useCourses';
+import type { PreviewCourse } from '../../hooks/usePreviewCourse';
 import { useIsWide } from '../../hooks/useLayout';
 import { createDriveWalk, DRIVE_STUMBLE_KINDS as STUMBLE_KIND_NAMES, type DriveWalk } from './drive-walk';
 import { ChoiceChips } from '../ui/ChoiceChips';
@@ -31,15 +30,9 @@ interface Flash {
  * Drive: the character walks live over a course with the form's setup (saved or not), as far and as long as
  * the stick is pushed (phone) or W / ↑ held (wide screens). Stumbles flash the moment the detector counts them.
  */
-export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: LegSetup; compact?: boolean }) {
+export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; setup: LegSetup; ground: PreviewCourse; compact?: boolean }) {
   const wide = useIsWide();
-  const courses = useCourses();
-  const [courseId, setCourseId] = useState<string | undefined>(undefined);
-  useEffect(() => {
-    if (!courseId && courses.data?.courses.length) setCourseId(String(courses.data.courses[0].id));
-  }, [courseId, courses.data]);
-  const course = useCourse(Number(courseId ?? 0));
-  const heightfield = useMemo(() => (course.data ? decodeCourse(course.data.encoding) : null), [course.data]);
+  const { list, courseId, setCourseId, next: nextCourse, name: shownName, heightfield } = ground;
   const [error, setError] = useState<string | null>(null);
   const [restart, setRestart] = useState(0);
   const walker = useMemo<DriveWalk | null>(() => {
@@ -96,13 +89,7 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
     return () => clearTimeout(timer);
   }, [flash]);
 
-  const list = courses.data?.courses ?? [];
   const viewHeight = compact ? 220 : 320;
-  const nextCourse = () => {
-    const i = list.findIndex((c) => String(c.id) === courseId);
-    if (list.length) setCourseId(String(list[(i + 1) % list.length].id));
-  };
-  const shownName = list.find((c) => String(c.id) === courseId)?.name;
   const finite = Number.isFinite(readout.x) && Number.isFinite(readout.z);
   return (
     <View style={styles.wrap} testID="drive-view">
@@ -125,7 +112,7 @@ export function DriveView({ rig, setup, compact = false }: { rig: Rig; setup: Le
           <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={poseAt} height={viewHeight} label="The character walking live as you drive it" />
         ) : (
           <View style={[styles.placeholder, { height: viewHeight }]}>
-            <Text style={styles.note}>{courses.data && !courses.data.courses.length ? 'Make a course to drive on.' : 'Loading the course…'}</Text>
+            <Text style={styles.note}>{ground.loaded && !list.length ? 'Make a course to drive on.' : 'Loading the course…'}</Text>
           </View>
         )}
         {flash ? (

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
+import type { PreviewCourse } from '../../hooks/usePreviewCourse';
 import { space } from '../../constants/theme';
 import { LivePreview } from '../preview/LivePreview';
 import { ChipGroup } from '../ui/ChoiceChips';
@@ -15,16 +16,16 @@ const MODES = [
 ] as const;
 
 /** The leg setup's preview: watch the walk go by itself, or drive it yourself with the stick or keys. */
-export function PreviewOrDrive({ rig, setup, problem, compact = false }: { rig: Rig; setup: LegSetup | null; problem: string | null; compact?: boolean }) {
+export function PreviewOrDrive({ rig, setup, problem, ground, compact = false }: { rig: Rig; setup: LegSetup | null; problem: string | null; ground: PreviewCourse; compact?: boolean }) {
   const [mode, setMode] = useState<Mode>('watch');
   return (
     <View style={styles.wrap}>
       <ChipGroup<Mode> label="Preview mode" choices={MODES} value={mode} onChange={setMode} compact={compact} />
       {mode === 'watch' ? (
-        <LivePreview rig={rig} setup={setup} problem={problem} compact={compact} />
+        <LivePreview rig={rig} setup={setup} problem={problem} ground={ground} compact={compact} />
       ) : setup ? (
         <>
-          <DriveView rig={rig} setup={setup} compact={compact} />
+          <DriveView rig={rig} setup={setup} ground={ground} compact={compact} />
           {problem ? <Notice tone="info" message={`Driving the last valid settings: ${problem}`} /> : null}
         </>
       ) : (

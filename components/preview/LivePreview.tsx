@@ -1,11 +1,10 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import { decodeCourse } from '../../engine/course/encoding';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import { STUMBLE_KINDS, type StumbleKind } from '../../engine/metrics/stumble-thresholds';
 import { colors, fonts, space, type } from '../../constants/theme';
-import { useCourse, useCourses } from '../../hooks/useCourses';
+import type { PreviewCourse } from '../../hooks/usePreviewCourse';
 import { ChoiceChips } from '../ui/ChoiceChips';
 import { Notice } from '../ui/Notice';
 import { StumbleGlyph } from '../trial/StumbleGlyph';
@@ -18,14 +17,8 @@ import { createLiveWalk, type LiveWalk } from './live-walk';
  * setup over a chosen course; a change in the form restarts it at once. The stored trial stays the number
  * of record: these counts are a preview.
  */
-export function LivePreview({ rig, setup, problem, compact = false }: { rig: Rig; setup: LegSetup | null; problem: string | null; compact?: boolean }) {
-  const courses = useCourses();
-  const [courseId, setCourseId] = useState<string | undefined>(undefined);
-  useEffect(() => {
-    if (!courseId && courses.data?.courses.length) setCourseId(String(courses.data.courses[0].id));
-  }, [courseId, courses.data]);
-  const course = useCourse(Number(courseId ?? 0));
-  const heightfield = useMemo(() => (course.data ? decodeCourse(course.data.encoding) : null), [course.data]);
+export function LivePreview({ rig, setup, problem, ground, compact = false }: { rig: Rig; setup: LegSetup | null; problem: string | null; ground: PreviewCourse; compact?: boolean }) {
+  const { list, courseId, setCourseId, next: nextCourse, name: shownName, heightfield } = ground;
   const [error, setError] = useState<string | null>(null);
   const walk = useMemo<LiveWalk | null>(() => {
     if (!heightfield || !setup) return null;
@@ -45,14 +38,8 @@ export function LivePreview({ rig, setup, problem, compact = false }: { rig: Rig
     return () => clearInterval(timer);
   }, []);
 
-  const list = courses.data?.courses ?? [];
   const viewHeight = compact ? 150 : 260;
   // Compact (the phone's sticky strip): one button steps through the courses instead of a row of chips.
-  const nextCourse = () => {
-    const i = list.findIndex((c) => String(c.id) === courseId);
-    if (list.length) setCourseId(String(list[(i + 1) % list.length].id));
-  };
-  const shownName = list.find((c) => String(c.id) === courseId)?.name;
   return (
     <View style={[styles.wrap, compact && styles.wrapCompact]} testID="live-preview">
       {compact ? (
@@ -73,7 +60,7 @@ export function LivePreview({ rig, setup, problem, compact = false }: { rig: Rig
         <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={() => walkRef.current?.advance(performance.now()) ?? null} height={viewHeight} label="Live preview of the walk with the settings in the form" />
       ) : (
         <View style={[styles.placeholder, { height: viewHeight }]}>
-          <Text style={styles.note}>{courses.data && !courses.data.courses.length ? 'Make a course to preview the walk on.' : 'Loading the course…'}</Text>
+          <Text style={styles.note}>{ground.loaded && !list.length ? 'Make a course to preview the walk on.' : 'Loading the course…'}</Text>
         </View>
       )}
       {problem ? <Notice tone="info" message={`The preview keeps the last valid settings: ${problem}`} /> : null}

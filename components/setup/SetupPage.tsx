@@ -16,6 +16,7 @@ import { SectionHeading } from '../ui/SectionHeading';
 import { TextField } from '../ui/TextField';
 import { StarterCourses } from '../course/StarterCourses';
 import type { Mutation } from '../../hooks/mutation';
+import type { PreviewCourse } from '../../hooks/usePreviewCourse';
 import type { TrialRunner } from '../../hooks/useTrialRunner';
 import type { LegSetupCreate, LegSetupVersion } from '../../schemas/leg-setups';
 import type { StarterCoursesResponse } from '../../schemas/starter-courses';
@@ -25,7 +26,7 @@ import { checkDraft, draftOf, type Draft } from './setup-draft';
 import { VersionList } from './VersionList';
 
 /** The leg setup of one character: the form, the live preview beside it, saved versions, and running a trial. */
-export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn, mayEditCourses = false, addStarters, save, runner }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean; mayEditCourses?: boolean; addStarters: Mutation<void, StarterCoursesResponse>; save: Mutation<LegSetupCreate, { legSetup: LegSetupVersion }>; runner: TrialRunner }) {
+export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn, mayEditCourses = false, addStarters, save, runner, previewCourse }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean; mayEditCourses?: boolean; addStarters: Mutation<void, StarterCoursesResponse>; save: Mutation<LegSetupCreate, { legSetup: LegSetupVersion }>; runner: TrialRunner; previewCourse: PreviewCourse }) {
   const wide = useIsWide();
   const start = list.versions[0]?.setup ?? list.defaults;
   const [draft, setDraft] = useState<Draft>(() => draftOf(start));
@@ -40,7 +41,7 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
   const legs: LimitLeg[] = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => ({ name: j.name, slider: j.kind === 'slider' })) }));
   const { courses, suites } = runner;
   const noGround = courses.isSuccess && suites.isSuccess && courses.data.courses.length === 0 && suites.data.suites.length === 0;
-  const preview = (compact: boolean) => <PreviewOrDrive rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} compact={compact} />;
+  const preview = (compact: boolean) => <PreviewOrDrive rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} ground={previewCourse} compact={compact} />;
 
   const change = (path: string, value: string) => {
     setDraft((d) => ({ ...d, [path]: value }));

@@ -66,8 +66,6 @@ describe('the client asks for permissions by the server table\'s names', () => {
 
 /** UI hooks a component may call: they hold no server data. */
 const UI_HOOKS = new Set(['useIsWide', 'useSchemaForm']);
-/** Components still fetching on their own, being moved to their screens (the walk preview and drive views, the unit fix). */
-const NOT_YET_MOVED = new Set([path.join('components', 'preview', 'LivePreview.tsx'), path.join('components', 'drive', 'DriveView.tsx')]);
 
 /** The hooks a source imports (as values, not types) from hooks/ that are not UI hooks. */
 function dataHooksImported(text: string): string[] {
@@ -82,7 +80,7 @@ function dataHooksImported(text: string): string[] {
 describe('screens own their queries', () => {
   it('no component imports a data hook', () => {
     const offenders = sources
-      .filter(({ file }) => file.startsWith('components') && !NOT_YET_MOVED.has(file))
+      .filter(({ file }) => file.startsWith('components'))
       .flatMap(({ file, text }) => dataHooksImported(text).map((n) => `${file}: ${n}`));
     expect(offenders).toEqual([]);
   });

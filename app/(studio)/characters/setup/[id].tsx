@@ -5,6 +5,7 @@ import { useCharacter } from '../../../../hooks/useCharacters';
 import { useCan } from '../../../../hooks/useCan';
 import { useAddStarterCourses } from '../../../../hooks/useCourses';
 import { useLegSetups, useSaveLegSetup } from '../../../../hooks/useLegSetups';
+import { usePreviewCourse } from '../../../../hooks/usePreviewCourse';
 import { useTrialRunner } from '../../../../hooks/useTrialRunner';
 
 export default function LegSetupScreen() {
@@ -17,6 +18,7 @@ export default function LegSetupScreen() {
   const addStarters = useAddStarterCourses();
   const save = useSaveLegSetup(characterId);
   const runner = useTrialRunner();
+  const previewCourse = usePreviewCourse();
   const character = useCharacter(characterId);
   const list = useLegSetups(characterId);
   if (list.isPending) return <LoadingPage />;
@@ -33,6 +35,7 @@ export default function LegSetupScreen() {
       addStarters={addStarters}
       save={save}
       runner={runner}
+      previewCourse={previewCourse}
     />
   );
 }
