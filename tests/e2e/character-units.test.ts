@@ -81,7 +81,8 @@ describe('characters from real exporters', () => {
     await page.getByLabel('Import report').scrollIntoViewIfNeeded();
     await screenshot(page, 'character-units-report-before-wide');
     await page.setViewportSize(PHONE);
-    await page.getByRole('button', { name: 'Scale by 0.01 (centimetres to metres)' }).scrollIntoViewIfNeeded();
+    // The phone layout replaces the wide one's elements; click() scrolls to the new button and retries while it settles.
+    await fix.waitFor();
 
     await fix.click();
     await page.getByText('Scaled by 0.01 to metres').waitFor();
