@@ -22,13 +22,13 @@ export interface ServerParts {
   mailer: Mailer;
   localInboxUrl?: string;
   logRequests?: boolean;
-  /** The payment service (start/local-payments.ts starts the local stand-in). */
+  /** The payment service (server/launch/local-payments.ts starts the local stand-in). */
   payments: PaymentsDeps;
 }
 
 /**
  * Opens the database, migrates it, and listens. What runs around it (seeding, the local stand-ins for mail and
- * payments) is started by the launchers in start/.
+ * payments) is started by the launchers in server/launch/.
  */
 export async function startServer(config: ServerConfig, parts: ServerParts): Promise<RunningServer> {
   const db = openDatabase(config.databaseFile);

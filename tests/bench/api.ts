@@ -36,7 +36,7 @@ interface Figures {
 }
 
 async function serve(): Promise<void> {
-  const { startWithLocalPayments } = await import('../../start/local-payments');
+  const { startWithLocalPayments } = await import('../../server/launch/local-payments');
   const { seedDemoStudio } = await import('../../seeds/demo-studio');
   const { startMailCatcher } = await import('../../server/fakes/mail-catcher');
   const { smtpMailer } = await import('../../server/services/mail');

@@ -253,7 +253,7 @@ describe('an unreachable Redis', () => {
     const worker = await startWorkerProcess(url, { name: 'nowhere', ready: false });
     expect(await worker.exited).toBe(1);
     expect(worker.output().trim().split('\n')).toEqual([expect.stringMatching(/^Cannot reach Redis at redis:\/\/127\.0\.0\.1:\d+ \(REDIS_URL\): .*ECONNREFUSED/)]);
-    const server = spawnSync(process.execPath, ['--import', 'tsx', path.join(__dirname, '..', '..', 'start', 'index.ts')], { env: { ...process.env, REDIS_URL: url, TREADLE_DB: path.join(dataDir, 'never.sqlite') }, encoding: 'utf8' });
+    const server = spawnSync(process.execPath, ['--import', 'tsx', path.join(__dirname, '..', '..', 'server', 'launch', 'index.ts')], { env: { ...process.env, REDIS_URL: url, TREADLE_DB: path.join(dataDir, 'never.sqlite') }, encoding: 'utf8' });
     expect(server.status).toBe(1);
     expect(`${server.stdout}${server.stderr}`.trim().split('\n')).toEqual([expect.stringMatching(/^Cannot reach Redis at .*ECONNREFUSED/)]);
     expect(fs.existsSync(path.join(dataDir, 'never.sqlite'))).toBe(false);

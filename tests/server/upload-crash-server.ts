@@ -4,7 +4,7 @@
  * `npm start` (TREADLE_DB, TREADLE_DATA_DIR, PORT=0), mail dropped. Prints "listening <url>" once it serves.
  */
 import { readConfig } from '../../server/config';
-import { startWithLocalPayments } from '../../start/local-payments';
+import { startWithLocalPayments } from '../../server/launch/local-payments';
 
 async function main() {
   const config = readConfig({ ...process.env, PORT: '0', HOST: '127.0.0.1' });

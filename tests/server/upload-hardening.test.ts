@@ -9,7 +9,7 @@ import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { testApp, type TestApp } from '../support/test-app';
-import { startWithLocalPayments } from '../../start/local-payments';
+import { startWithLocalPayments } from '../../server/launch/local-payments';
 import { characterFilePath } from '../../server/services/character-files';
 import { closeImportPool } from '../../server/services/gltf-import-pool';
 import { storeCharacterUpload } from '../../server/services/gltf-import-store';

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { startWithLocalPayments, type RunningWithPayments } from '../../start/local-payments';
+import { startWithLocalPayments, type RunningWithPayments } from '../../server/launch/local-payments';
 import { projectRoot } from '../../server/config';
 import { seedDemoStudio } from '../../seeds/demo-studio';
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher';

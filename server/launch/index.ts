@@ -1,14 +1,17 @@
-import { readConfig } from '../server/config';
-import { openDatabase, migrateToLatest } from '../server/db';
-import { ensureWebBuild } from '../server/web-build';
-import { assertRedisReachable, shownUrl } from '../server/jobs/redis';
-import { smtpMailer } from '../server/services/mail';
-import { startMailCatcher } from '../server/fakes/mail-catcher';
-import { startLocalPayments } from '../server/fakes/payments/connect';
-import { databaseIsEmpty, seedDemoStudio, DEMO_PASSWORD, DEMO_USERS } from '../seeds/demo-studio';
+import { readConfig } from '../config';
+import { openDatabase, migrateToLatest } from '../db';
+import { ensureWebBuild } from '../web-build';
+import { assertRedisReachable, shownUrl } from '../jobs/redis';
+import { smtpMailer } from '../services/mail';
+import { startMailCatcher } from '../fakes/mail-catcher';
+import { startLocalPayments } from '../fakes/payments/connect';
+import { databaseIsEmpty, seedDemoStudio, DEMO_PASSWORD, DEMO_USERS } from '../../seeds/demo-studio';
 import { startWithLocalPayments } from './local-payments';
 
-/** `npm start`: migrate, seed an empty database with the demo studio, export the web app if stale, listen. */
+/**
+ * `npm start`: migrate, seed an empty database with the demo studio, export the web app if stale, listen.
+ * The launchers are the only part of server/ that imports seeds/: the server itself (index.ts) never seeds.
+ */
 async function main() {
   const config = readConfig();
   if (process.env.REDIS_URL) {

@@ -2,9 +2,9 @@
  * The server with the local payment stand-in (server/fakes/payments): the fake is started first, Treadle is
  * given its SDK, and once Treadle listens the fake is told where Treadle's webhook is.
  */
-import type { ServerConfig } from '../server/config';
-import { startServer, type RunningServer, type ServerParts } from '../server/index';
-import { startLocalPayments, type LocalPayments } from '../server/fakes/payments/connect';
+import type { ServerConfig } from '../config';
+import { startServer, type RunningServer, type ServerParts } from '../index';
+import { startLocalPayments, type LocalPayments } from '../fakes/payments/connect';
 
 export interface RunningWithPayments extends RunningServer {
   /** The local payment fake's address (its checkout pages live there). */
