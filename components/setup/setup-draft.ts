@@ -5,7 +5,7 @@
 import { LegSetupSchema, type LegSetup } from '../../engine/gait/leg-setup';
 import type { SolverMethod } from '../../engine/ik/options';
 import { fieldMessages } from '../../schemas/errors';
-import { setupIssueSentence, valueAtPath, type IssueLike } from '../../engine/gait/setting-sentences';
+import { SETTING_NAMES, setupIssueSentence, valueAtPath, type IssueLike, type NamedSetting, type SettingName } from '../../engine/gait/setting-sentences';
 
 export interface NumberField {
   path: string;
@@ -24,25 +24,46 @@ export interface NumberField {
   hidden?: boolean;
 }
 
+/** A field as the lists below give it: its label and unit come from the setting's name (SETTING_NAMES). */
+type FieldSpec = Omit<NumberField, 'path' | 'label' | 'unit'> & {
+  path: NamedSetting;
+  /** What the number means, said after the label in brackets. */
+  gloss?: string;
+};
+
+/**
+ * Labelled under its section's heading (Solver, Gait, Body), a field does not repeat the heading: "Body settling
+ * time" is "Settling time" under Body. A setting typed in degrees shows ° instead of its stored radians.
+ */
+function named(spec: FieldSpec): NumberField {
+  const { gloss, ...field } = spec;
+  const name: SettingName = SETTING_NAMES[spec.path];
+  const heading = spec.path.split('.')[0];
+  const short = name.label.replace(new RegExp(`^${heading} `, 'i'), '');
+  const label = short.charAt(0).toUpperCase() + short.slice(1);
+  return { ...field, label: gloss ? `${label} (${gloss})` : label, unit: spec.degrees ? '°' : name.unit };
+}
+const namedFields = (specs: FieldSpec[]) => specs.map(named);
+
 const JACOBIAN: readonly SolverMethod[] = ['dls', 'sdls', 'transpose', 'pseudoinverse', 'adaptive'];
 
 /** Which methods read which setting: engine/ik/solve.ts (methodStep, jacobianIteration) and engine/ik/ccd.ts. */
-export const SOLVER_FIELDS: NumberField[] = [
-  { path: 'solver.maxIterations', label: 'Iteration budget', integer: true },
-  { path: 'solver.tolerance', label: 'Position tolerance', unit: 'm' },
-  { path: 'solver.lambda', label: 'DLS damping λ', unit: 'm', methods: ['dls', 'adaptive'] },
-  { path: 'solver.gammaMax', label: 'SDLS largest joint change γmax', unit: '°', degrees: true, methods: ['sdls'] },
-  { path: 'solver.svdThreshold', label: 'Singular values dropped below', methods: ['pseudoinverse'] },
-  { path: 'solver.manipulabilityThreshold', label: 'Manipulability threshold', methods: ['adaptive'] },
-  { path: 'solver.lmBias', label: 'Levenberg–Marquardt bias', methods: ['adaptive'] },
-  { path: 'solver.maxStepAngle', label: 'Largest joint change per iteration', unit: '°', degrees: true },
-  { path: 'solver.maxStepLength', label: 'Largest slider change per iteration', unit: 'm' },
-  { path: 'solver.clampDistance', label: 'Task error clamp', unit: 'm', nullable: 'blank = off, 0 = automatic', methods: JACOBIAN },
-  { path: 'solver.orientationTolerance', label: 'Orientation tolerance', unit: '°', degrees: true, orientation: true },
-  { path: 'solver.orientationWeight', label: 'Orientation weight', unit: 'm/rad', orientation: true },
+export const SOLVER_FIELDS: NumberField[] = namedFields([
+  { path: 'solver.maxIterations', integer: true },
+  { path: 'solver.tolerance' },
+  { path: 'solver.lambda', methods: ['dls', 'adaptive'] },
+  { path: 'solver.gammaMax', degrees: true, methods: ['sdls'] },
+  { path: 'solver.svdThreshold', methods: ['pseudoinverse'] },
+  { path: 'solver.manipulabilityThreshold', methods: ['adaptive'] },
+  { path: 'solver.lmBias', methods: ['adaptive'] },
+  { path: 'solver.maxStepAngle', degrees: true },
+  { path: 'solver.maxStepLength' },
+  { path: 'solver.clampDistance', nullable: 'blank = off, 0 = automatic', methods: JACOBIAN },
+  { path: 'solver.orientationTolerance', degrees: true, orientation: true },
+  { path: 'solver.orientationWeight', orientation: true },
   // The engine's stall detector (a step this small ends the solve): kept in the setup, not offered in the form.
-  { path: 'solver.minStep', label: 'Smallest useful step', unit: '°', degrees: true, hidden: true },
-];
+  { path: 'solver.minStep', degrees: true, hidden: true },
+]);
 
 /** The fields the chosen method reads (and the orientation ones only when the sole is turned). */
 export function solverFieldsFor(method: string, orientation: boolean): NumberField[] {
@@ -52,20 +73,20 @@ export function solverFieldsFor(method: string, orientation: boolean): NumberFie
 /** Whether the chosen method reads the Jacobian-only switches (null-space bias, re-solve at limits). */
 export const isJacobianMethod = (method: string) => JACOBIAN.includes(method as SolverMethod);
 
-export const GAIT_FIELDS: NumberField[] = [
-  { path: 'gait.dutyFactor', label: 'Duty factor (share of the cycle in stance)' },
-  { path: 'gait.stride', label: 'Stride', unit: 'm', nullable: 'blank = from hip height and speed (Alexander 1976)' },
-  { path: 'gait.stepHeight', label: 'Step height', unit: 'm' },
-];
+export const GAIT_FIELDS: NumberField[] = namedFields([
+  { path: 'gait.dutyFactor', gloss: 'share of the cycle in stance' },
+  { path: 'gait.stride', nullable: 'blank = from hip height and speed (Alexander 1976)' },
+  { path: 'gait.stepHeight' },
+]);
 
-export const BODY_FIELDS: NumberField[] = [
-  { path: 'body.heightOffset', label: 'Height offset', unit: 'm' },
-  { path: 'body.followHeight', label: 'Follows the feet’s height (0–1)' },
-  { path: 'body.followPitch', label: 'Follows pitch (0–1)' },
-  { path: 'body.followRoll', label: 'Follows roll (0–1)' },
-  { path: 'body.settleTime', label: 'Settling time (2 %)', unit: 's' },
-  { path: 'body.slopeCrouch', label: 'Crouch per radian of slope' },
-];
+export const BODY_FIELDS: NumberField[] = namedFields([
+  { path: 'body.heightOffset' },
+  { path: 'body.followHeight', gloss: '0–1' },
+  { path: 'body.followPitch', gloss: '0–1' },
+  { path: 'body.followRoll', gloss: '0–1' },
+  { path: 'body.settleTime', gloss: '2 %' },
+  { path: 'body.slopeCrouch' },
+]);
 
 const ALL_NUMBERS = [...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS];
 

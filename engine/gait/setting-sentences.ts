@@ -5,12 +5,17 @@
 import type { Rig } from './rig';
 
 export interface SettingName {
+  /** The setting's name on its own, as sentences, refusals and failed jobs say it. */
   label: string;
+  /** The unit the leg setup stores it in. */
   unit?: string;
 }
 
-/** Names of the settings as the leg setup form shows them (components/setup/setup-draft.ts). */
-export const SETTING_NAMES: Record<string, SettingName> = {
+/**
+ * Names of the settings: the one list. The leg setup form (components/setup/setup-draft.ts) labels its fields
+ * with these, so a field and a sentence about it always name the same setting.
+ */
+export const SETTING_NAMES = {
   'solver.method': { label: 'Solver method' },
   'solver.maxIterations': { label: 'Iteration budget' },
   'solver.tolerance': { label: 'Position tolerance', unit: 'm' },
@@ -20,6 +25,11 @@ export const SETTING_NAMES: Record<string, SettingName> = {
   'solver.clampDistance': { label: 'Task error clamp', unit: 'm' },
   'solver.orientationWeight': { label: 'Orientation weight', unit: 'm/rad' },
   'solver.lambda': { label: 'DLS damping λ', unit: 'm' },
+  'solver.gammaMax': { label: 'SDLS largest joint change γmax', unit: 'rad' },
+  'solver.svdThreshold': { label: 'Singular values dropped below' },
+  'solver.manipulabilityThreshold': { label: 'Manipulability threshold' },
+  'solver.lmBias': { label: 'Levenberg–Marquardt bias' },
+  'solver.minStep': { label: 'Smallest useful step', unit: 'rad' },
   'solver.maxJointSpeed': { label: 'Joint speed limit', unit: '°/s' },
   'gait.pattern': { label: 'Gait pattern' },
   'gait.phaseOffsets': { label: 'Phase offsets' },
@@ -34,7 +44,10 @@ export const SETTING_NAMES: Record<string, SettingName> = {
   'body.followRoll': { label: 'Body follows roll' },
   'body.settleTime': { label: 'Body settling time', unit: 's' },
   'body.slopeCrouch': { label: 'Crouch per radian of slope' },
-};
+} satisfies Record<string, SettingName>;
+
+/** A setting the list above names. */
+export type NamedSetting = keyof typeof SETTING_NAMES;
 
 /** A rig standing higher than this at the hips is almost surely authored in centimetres (or millimetres). */
 const TALL_HIPS = 5;
@@ -42,7 +55,7 @@ const TALL_HIPS = 5;
 const UNIT_SLIP = 5;
 
 export function nameOf(path: string): SettingName {
-  const known = SETTING_NAMES[path];
+  const known: SettingName | undefined = SETTING_NAMES[path as NamedSetting];
   if (known) return known;
   const last = path.split('.').filter((p) => !/^\d+$/.test(p)).pop() ?? 'setting';
   const words = last.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
