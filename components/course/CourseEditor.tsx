@@ -26,6 +26,7 @@ import { RampLegend } from './RampLegend';
 import { courseFigures } from './figures';
 import type { WalkPath } from '../../engine/course/walk-path';
 import { WalkPathEditor, pathWithPointAdded, straightPath } from './WalkPathEditor';
+import { WalkPathSpeedField } from './WalkPathSpeedField';
 
 export interface CourseEditorProps {
   detail: CourseDetail;
@@ -188,7 +189,7 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
       ) : null}
       {problem ? <Notice message={problem} /> : null}
       {fieldErrors['encoding.heights'] || fieldErrors.encoding ? <Notice message={fieldErrors['encoding.heights'] ?? fieldErrors.encoding} /> : null}
-      {Object.entries(fieldErrors).filter(([k]) => k.startsWith('encoding.walkPath')).slice(0, 1).map(([k, m]) => (
+      {Object.entries(fieldErrors).filter(([k]) => k.startsWith('encoding.walkPath') && k !== 'encoding.walkPath.speed').slice(0, 1).map(([k, m]) => (
         <Notice key={k} message={`Walk path: ${m}`} />
       ))}
     </>
@@ -259,6 +260,17 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
             value={walkPath.closed ? 'loop' : 'end'}
             onChange={(v) => setWalkPath({ ...walkPath, closed: v === 'loop' })}
             error={fieldErrors['encoding.walkPath.points'] ?? fieldErrors['encoding.walkPath']}
+          />
+        ) : null}
+        {walkPath ? (
+          <WalkPathSpeedField
+            speed={walkPath.speed}
+            onChange={(speed) => {
+              setWalkPath((w) => (w ? { ...w, speed } : w));
+              setFieldErrors(({ 'encoding.walkPath.speed': _gone, ...rest }) => rest);
+              setStatus(null);
+            }}
+            error={fieldErrors['encoding.walkPath.speed']}
           />
         ) : null}
       </View>
