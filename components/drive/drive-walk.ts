@@ -4,6 +4,7 @@
  * for a speed along the body's own facing and a turn rate; letting go brings every foot to a planted rest.
  */
 import type { Heightfield } from '../../engine/course/heightfield';
+import { createPathTrack, trackPoint } from '../../engine/course/walk-path';
 import { resolveGait } from '../../engine/gait/gait-params';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
@@ -24,10 +25,24 @@ export interface DriveWalk {
   readonly resting: boolean;
   /** The runtime's first problem (its ground), or null. */
   readonly problem: string | null;
+  /** The body's heading after the last advance (rad about +Y, 0 faces +Z, π/2 faces +X). */
+  readonly heading: number;
+}
+
+/**
+ * Where the driven character stands at first: on a course with a walk path, its first point, facing along the
+ * path there (where the course's trials start); otherwise null, and the runtime starts where a straight trial does.
+ */
+export function driveStart(course: Heightfield): { position: [number, number]; heading: number } | null {
+  if (!course.walkPath) return null;
+  const at = new Float64Array(3);
+  trackPoint(createPathTrack(course.walkPath), 0, at);
+  return { position: [at[0], at[1]], heading: at[2] };
 }
 
 export function createDriveWalk(rig: Rig, setup: LegSetup, course: Heightfield): DriveWalk {
-  const legs: LegRuntime = createRigRuntime(rig, setup, course, { standing: true, watchStumbles: true });
+  const start = driveStart(course);
+  const legs: LegRuntime = createRigRuntime(rig, setup, course, { standing: true, watchStumbles: true, ...(start ?? {}) });
   // Full forward is the setup's own walking speed: the speed its trials are scored at.
   const fullSpeed = resolveGait(setup.gait, rig).speed;
   const L = legs.legNames.length;
@@ -41,23 +56,25 @@ export function createDriveWalk(rig: Rig, setup: LegSetup, course: Heightfield):
   const joints = rig.legs.map((l) => new Float64Array(3 * l.chain.joints.length));
   const pose: WalkPose = { body: [0, 0, 0], pitch: 0, roll: 0, feet, targets, contact, joints, rotation: [0, 0, 0, 1] };
   const clamp = (v: number, lo: number, hi: number) => (Number.isFinite(v) ? Math.max(lo, Math.min(hi, v)) : 0);
+  /** The heading of a body rotation [x, y, z, w]: its +Z turned by it and flattened onto the ground. */
+  const facing = (r: Float64Array) => {
+    const fx = 2 * (r[0] * r[2] + r[3] * r[1]);
+    const fz = 1 - 2 * (r[0] * r[0] + r[1] * r[1]);
+    return Math.atan2(fx, fz);
+  };
+  let heading = start?.heading ?? 0;
 
   return {
     advance(dt, forward, turn) {
       legs.bodyRotation(q);
-      // The body's facing: its +Z turned by the rotation, flattened onto the ground.
-      const [x, y, z, w] = [q[0], q[1], q[2], q[3]];
-      let fx = 2 * (x * z + w * y);
-      let fz = 1 - 2 * (x * x + y * y);
-      const n = Math.hypot(fx, fz) || 1;
-      fx /= n;
-      fz /= n;
+      const before = facing(q);
       const v = clamp(forward, 0, 1) * fullSpeed;
-      legs.drive(fx * v, fz * v, clamp(turn, -1, 1) * DRIVE_TURN_RATE);
+      legs.drive(Math.sin(before) * v, Math.cos(before) * v, clamp(turn, -1, 1) * DRIVE_TURN_RATE);
       if (Number.isFinite(dt) && dt > 0) legs.update(dt);
 
       legs.bodyPosition(body);
       legs.bodyRotation(q);
+      heading = facing(q);
       pose.body = [body[0], body[1], body[2]];
       pose.rotation = [q[0], q[1], q[2], q[3]];
       for (let i = 0; i < L; i++) {
@@ -82,6 +99,9 @@ export function createDriveWalk(rig: Rig, setup: LegSetup, course: Heightfield):
     },
     get problem() {
       return legs.lastError?.message ?? null;
+    },
+    get heading() {
+      return heading;
     },
   };
 }
