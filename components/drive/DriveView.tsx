@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
+import * as THREE from 'three';
 import type { LegSetup } from '../../engine/gait/leg-setup';
 import type { Rig } from '../../engine/gait/rig';
 import type { StumbleKind } from '../../engine/metrics/stumble-thresholds';
@@ -7,7 +8,7 @@ import { colors, fonts, radius, space, type } from '../../constants/theme';
 import type { PreviewCourse } from '../../hooks/usePreviewCourse';
 import { useIsWide } from '../../hooks/useLayout';
 import { createDriveWalk, DRIVE_STUMBLE_KINDS as STUMBLE_KIND_NAMES, type DriveWalk } from './drive-walk';
-import { ChoiceChips } from '../ui/ChoiceChips';
+import { ChipGroup, ChoiceChips } from '../ui/ChoiceChips';
 import { Notice } from '../ui/Notice';
 import { StumbleGlyph } from '../trial/StumbleGlyph';
 import { STUMBLE_LABELS, stumbleColor } from '../trial/stumble-glyphs';
@@ -15,11 +16,21 @@ import { WalkView } from '../trial/WalkView';
 import type { WalkPose } from '../trial/walk-scene';
 import { Thumbstick, type StickValue } from './Thumbstick';
 import { keysToDrive, useDriveKeys } from './useDriveKeys';
+import { behindCamera, createFollowYaw, stepFollowYaw, wrapAngle } from './follow-camera';
 
 /** How long a stumble's flash stays up, ms. */
 const FLASH_MS = 1200;
 /** Longest frame time handed to the walker, s: a tab coming back from the background does not leap. */
 const MAX_FRAME = 0.1;
+
+type CameraMode = 'behind' | 'fixed';
+const CAMERA_MODES = [
+  { value: 'behind', label: 'Follows behind' },
+  { value: 'fixed', label: 'Fixed angle' },
+] as const;
+
+/** Degrees in (−180, 180], one decimal: how the heading and the view's direction read on screen. */
+const degrees = (rad: number) => Math.round((wrapAngle(rad) * 1800) / Math.PI) / 10;
 
 interface Flash {
   kind: StumbleKind;
@@ -51,16 +62,42 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
   const stick = useRef<StickValue>({ x: 0, y: 0 });
   const keys = useDriveKeys(true);
   const [flash, setFlash] = useState<Flash | null>(null);
-  const [readout, setReadout] = useState({ x: 0, z: 0, walked: 0, counts: new Int32Array(STUMBLE_KIND_NAMES.length), resting: true, problem: null as string | null });
+  // The heading reads "—" until the walk has run its first frame.
+  const [readout, setReadout] = useState({ x: 0, z: 0, walked: 0, heading: NaN, view: NaN, counts: new Int32Array(STUMBLE_KIND_NAMES.length), resting: true, problem: null as string | null });
+  const [cameraMode, setCameraMode] = useState<CameraMode>('behind');
 
   // What the draw loop keeps between frames, made once per walk.
-  const frame = useMemo(() => (walker ? { counts: new Int32Array(STUMBLE_KIND_NAMES.length), seen: new Int32Array(STUMBLE_KIND_NAMES.length), px: NaN, pz: NaN, walked: 0, last: -1, told: 0, seq: 0 } : null), [walker]);
+  const frame = useMemo(
+    () =>
+      walker
+        ? {
+            counts: new Int32Array(STUMBLE_KIND_NAMES.length),
+            seen: new Int32Array(STUMBLE_KIND_NAMES.length),
+            px: NaN,
+            pz: NaN,
+            walked: 0,
+            last: -1,
+            told: 0,
+            seq: 0,
+            dt: 0,
+            follow: createFollowYaw(),
+            eye: new Float64Array(3),
+            look: new Float64Array(3),
+            towards: new THREE.Vector3(),
+            /** The drawn camera's direction flattened onto the ground, rad (as the heading). */
+            view: 0,
+          }
+        : null,
+    [walker],
+  );
+  const hipHeight = Math.max(rig.hipHeight, 0.2);
 
   const poseAt = (): WalkPose | null => {
     if (!walker || !frame) return null;
     const now = performance.now();
     const dt = frame.last < 0 ? 0 : Math.min(MAX_FRAME, (now - frame.last) / 1000);
     frame.last = now;
+    frame.dt = dt;
     const fromKeys = keysToDrive(keys.current);
     const pose = walker.advance(dt, Math.max(fromKeys.forward, stick.current.y), fromKeys.turn - stick.current.x);
     const [x, , z] = pose.body;
@@ -78,9 +115,23 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
     // The readout on screen: a few times a second is enough, and keeps React out of most frames.
     if (now - frame.told > 200) {
       frame.told = now;
-      setReadout({ x, z, walked: frame.walked, counts: Int32Array.from(frame.counts), resting: walker.resting, problem: walker.problem });
+      setReadout({ x, z, walked: frame.walked, heading: walker.heading, view: frame.view, counts: Int32Array.from(frame.counts), resting: walker.resting, problem: walker.problem });
     }
     return pose;
+  };
+
+  // After the scene's own camera: behind the heading when asked, and in either mode the view's direction noted.
+  const aim = (camera: THREE.PerspectiveCamera, pose: WalkPose) => {
+    if (!walker || !frame) return;
+    // The spring runs in the fixed view too, so switching back does not swing round from an old heading.
+    const yaw = stepFollowYaw(frame.follow, walker.heading, frame.dt);
+    if (cameraMode === 'behind') {
+      behindCamera(pose.body[0], pose.body[1], pose.body[2], hipHeight, yaw, frame.eye, frame.look);
+      camera.position.set(frame.eye[0], frame.eye[1], frame.eye[2]);
+      camera.lookAt(frame.look[0], frame.look[1], frame.look[2]);
+    }
+    camera.getWorldDirection(frame.towards);
+    frame.view = Math.atan2(frame.towards.x, frame.towards.z);
   };
 
   useEffect(() => {
@@ -92,7 +143,7 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
   const viewHeight = compact ? 220 : 320;
   const finite = Number.isFinite(readout.x) && Number.isFinite(readout.z);
   return (
-    <View style={styles.wrap} testID="drive-view">
+    <View style={styles.wrap} testID="drive-view" {...({ dataSet: { heading: degrees(readout.heading), view: degrees(readout.view) } } as object)}>
       {compact ? (
         <View style={styles.compactHead}>
           <Text style={styles.compactTitle} numberOfLines={1}>
@@ -107,9 +158,10 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
       ) : (
         <ChoiceChips label="Drive on" choices={list.map((c) => ({ value: String(c.id), label: c.name }))} value={courseId} onChange={setCourseId} />
       )}
+      <ChipGroup<CameraMode> label="Drive camera" choices={CAMERA_MODES} value={cameraMode} onChange={setCameraMode} compact={compact} />
       <View>
         {heightfield && walker ? (
-          <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={poseAt} height={viewHeight} label="The character walking live as you drive it" />
+          <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={poseAt} aim={aim} height={viewHeight} label="The character walking live as you drive it" />
         ) : (
           <View style={[styles.placeholder, { height: viewHeight }]}>
             <Text style={styles.note}>{ground.loaded && !list.length ? 'Make a course to drive on.' : 'Loading the course…'}</Text>
@@ -132,7 +184,8 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
       <View style={styles.readout}>
         <Text style={styles.readoutText} testID="drive-position">
           x <Text style={styles.fig}>{finite ? readout.x.toFixed(2) : '—'}</Text> m · z <Text style={styles.fig}>{finite ? readout.z.toFixed(2) : '—'}</Text> m · walked{' '}
-          <Text style={styles.fig}>{finite ? readout.walked.toFixed(2) : '—'}</Text> m{readout.resting ? ' · standing' : ''}
+          <Text style={styles.fig}>{finite ? readout.walked.toFixed(2) : '—'}</Text> m · facing <Text style={styles.fig}>{Number.isFinite(readout.heading) ? Math.round(degrees(readout.heading)) : '—'}</Text>°
+          {readout.resting ? ' · standing' : ''}
         </Text>
         <Pressable onPress={() => setRestart((r) => r + 1)} role="button" style={styles.restart}>
           <Text style={styles.restartText}>Back to the start</Text>

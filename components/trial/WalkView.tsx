@@ -19,18 +19,23 @@ function canvasFor(gl: ExpoWebGLRenderingContext): HTMLCanvasElement {
 
 /**
  * A walk in 3D (expo-gl GLView + three). `poseAt()` is asked for the pose to draw: on every animation frame
- * while `animating`, otherwise whenever `revision` changes.
+ * while `animating`, otherwise whenever `revision` changes. `aim`, when given, places the camera after the scene's own.
  */
-export function WalkView({ course, rig, poseAt, animating, revision, height = 300, label }: { course: Heightfield; rig: Rig; poseAt: () => WalkPose | null; animating: boolean; revision: number; height?: number; label: string }) {
+export function WalkView({ course, rig, poseAt, animating, revision, height = 300, label, aim }: { course: Heightfield; rig: Rig; poseAt: () => WalkPose | null; animating: boolean; revision: number; height?: number; label: string; aim?: (camera: THREE.PerspectiveCamera, pose: WalkPose) => void }) {
   const stage = useRef<{ gl: ExpoWebGLRenderingContext; renderer: THREE.WebGLRenderer; walk: WalkScene } | null>(null);
   const poseRef = useRef(poseAt);
   poseRef.current = poseAt;
+  const aimRef = useRef(aim);
+  aimRef.current = aim;
 
   const draw = useCallback(() => {
     const s = stage.current;
     if (!s) return;
     const pose = poseRef.current();
-    if (pose) s.walk.update(pose);
+    if (pose) {
+      s.walk.update(pose);
+      aimRef.current?.(s.walk.camera, pose);
+    }
     s.renderer.render(s.walk.scene, s.walk.camera);
     s.gl.endFrameEXP();
   }, []);

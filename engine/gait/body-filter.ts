@@ -46,3 +46,20 @@ export function stepCritical(s: DampedState, target: number, f: CriticalFilter):
 export function stepCriticallyDamped(s: DampedState, target: number, omega: number, dt: number): void {
   stepCritical(s, target, { omega, dt, decay: Math.exp(-omega * dt) });
 }
+
+/** The value s will have `tau` seconds on, following a held target with natural frequency omega (the exact response). */
+export function criticalValueAt(s: DampedState, target: number, omega: number, tau: number): number {
+  if (!(tau > 0)) return s.value;
+  const e0 = s.value - target;
+  const k = s.velocity + omega * e0;
+  return target + (e0 + k * tau) * Math.exp(-omega * tau);
+}
+
+/** The integral of s's value over the next `tau` seconds, following a held target with natural frequency omega. */
+export function criticalIntegral(s: DampedState, target: number, omega: number, tau: number): number {
+  if (!(tau > 0)) return s.value * tau;
+  const e0 = s.value - target;
+  const k = s.velocity + omega * e0;
+  const decay = Math.exp(-omega * tau);
+  return target * tau + (e0 * (1 - decay)) / omega + (k * (1 - decay * (1 + omega * tau))) / (omega * omega);
+}

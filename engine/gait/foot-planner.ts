@@ -10,6 +10,7 @@
  */
 import { quat, vec3 } from 'gl-matrix';
 import * as walkPath from '../course/walk-path';
+import * as bodyFilter from './body-filter';
 import * as foothold from './foothold';
 import * as paceRules from './pace';
 import * as reachRules from './reach';
@@ -25,6 +26,7 @@ const { trackPoint } = walkPath;
 const { terrainCost, CANDIDATE_PATTERN, CANDIDATE_COUNT } = foothold;
 const { CANDIDATE_MAX, REACH_COST_START, TARGET_MAX } = reachRules;
 const { terrainPace } = paceRules;
+const { criticalIntegral, criticalValueAt } = bodyFilter;
 const { fixedLengthLeg } = walkHeight;
 const { DRIVE_PATH } = walkState;
 
@@ -52,28 +54,46 @@ function steadyVelocity(t: Walk): boolean {
 }
 
 /**
- * Where the body will be at walk time `time` at its present pace, into out (x, z, heading): along its path,
+ * The pace the walk is heading for: set by the foot planner before it predicts, so that the body is
+ * predicted as its pace filter will carry it (NaN: the pace held as it is). After a slow stretch the pace
+ * rises over the next step; footholds predicted at the present pace were set short, the body then ran
+ * ahead of them, and the following swings were 15 % longer than a stride (the joints at their speed limit).
+ */
+let paceGoal = NaN;
+
+/** The pace `tau` seconds on, and the distance factor (the pace's integral) over them. */
+function paceAfter(t: Walk, tau: number): number {
+  return paceGoal === paceGoal ? criticalValueAt(t.pace, paceGoal, t.paceFilter.omega, tau) : t.pace.value;
+}
+function paceTravel(t: Walk, tau: number): number {
+  return paceGoal === paceGoal ? criticalIntegral(t.pace, paceGoal, t.paceFilter.omega, tau) : t.pace.value * tau;
+}
+
+/**
+ * Where the body will be at walk time `time` as its pace goes, into out (x, z, heading): along its path,
  * or carried on at its velocity and turn rate (the velocity turning with the body: constant turn rate and velocity).
  */
 export function bodyAt(t: Walk, time: number, out: Float64Array): void {
   const tau = time - t.frame * t.timeStep;
   const m = t.motion;
+  const travel = paceTravel(t, tau);
   if (m.mode === DRIVE_PATH && m.track) {
-    trackPoint(m.track, m.s + m.pathSpeed * t.pace.value * tau, out);
+    trackPoint(m.track, m.s + m.pathSpeed * travel, out);
     return;
   }
   const w = m.turnRate;
   if (w === 0) {
-    out[0] = t.bodyPos[0] + m.vx * t.pace.value * tau;
-    out[1] = t.bodyPos[2] + m.vz * t.pace.value * tau;
+    out[0] = t.bodyPos[0] + m.vx * travel;
+    out[1] = t.bodyPos[2] + m.vz * travel;
     out[2] = t.heading;
     return;
   }
   const a = w * tau;
   const A = Math.sin(a) / w;
   const B = (1 - Math.cos(a)) / w;
-  const vx = m.vx * t.pace.value;
-  const vz = m.vz * t.pace.value;
+  const pace = tau !== 0 ? travel / tau : t.pace.value;
+  const vx = m.vx * pace;
+  const vz = m.vz * pace;
   out[0] = t.bodyPos[0] + vx * A + vz * B;
   out[1] = t.bodyPos[2] - vx * B + vz * A;
   out[2] = t.heading + a;
@@ -94,7 +114,7 @@ export function touchdownPoint(t: Walk, i: number, time: number, out: Float64Arr
     const v = Math.sqrt(m.vx * m.vx + m.vz * m.vz);
     const ux = v > 0 ? m.vx / v : 0;
     const uz = v > 0 ? m.vz / v : 0;
-    const half = (t.gait.dutyFactor * t.stride * t.pace.value) / 2;
+    const half = (t.gait.dutyFactor * t.stride * paceAfter(t, time - t.frame * t.timeStep)) / 2;
     x = predicted[0] + (c * nx + s * nz) + ux * half;
     zz = predicted[1] + (c * nz - s * nx) + uz * half;
   } else {
@@ -138,6 +158,7 @@ function nextSupportHeight(t: Walk, j: number): number {
  * search twice when none is; failing that, the one that over-reaches least.
  */
 export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float64Array): void {
+  paceGoal = terrainPace(t);
   touchdownPoint(t, i, landTime, landing, 0);
   const w = t.setup.footholds;
   const leg = t.rig.legs[i];
@@ -170,10 +191,13 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
     const m = t.motion;
     hx = predicted[0] + hipOffset[0];
     hzDown = predicted[1] + hipOffset[2];
-    hxUp = hx + m.vx * t.pace.value * beta * t.cycleTime;
-    hzUp = hzDown + m.vz * t.pace.value * beta * t.cycleTime;
-    const slower = t.pace.value - terrainPace(t);
-    const lag = (slower > 0 ? slower : 0) * (landTime - t.frame * t.timeStep);
+    const tau = landTime - t.frame * t.timeStep;
+    const toTouchdown = paceTravel(t, tau);
+    const overStance = paceTravel(t, tau + beta * t.cycleTime) - toTouchdown;
+    hxUp = hx + m.vx * overStance;
+    hzUp = hzDown + m.vz * overStance;
+    // Slowed at once to the pace asked for, rather than as the filter brings it.
+    const lag = paceGoal < t.pace.value ? toTouchdown - paceGoal * tau : 0;
     hxSlow = hx - m.vx * lag;
     hzSlow = hzDown - m.vz * lag;
     c = Math.cos(t.heading);
@@ -253,6 +277,7 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
   out[0] = bx;
   out[1] = by;
   out[2] = bz;
+  paceGoal = NaN;
   const hipAt = foldGuard.hip1;
   hipAt[0] = hx;
   hipAt[1] = (others + by) / t.legs + lift;

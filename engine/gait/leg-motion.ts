@@ -84,15 +84,29 @@ export function limitLegMotion(t: Walk, i: number, aim: Float64Array): void {
   const limit = t.maxJointStep[i];
   const limited = t.limitedPose[i];
   let changed = lost;
+  let fastest = 0;
   for (let d = 0; d < ws.nDof; d++) {
     let v = pose[d];
     if (lost) v += (rest[d] - v) * t.recoverRate;
-    const change = v - prev[d];
-    if (ws.dKind[d] !== DOF_SLIDE && (change > limit || change < -limit)) {
-      v = prev[d] + (change > 0 ? limit : -limit);
-      changed = true;
-    }
     limited[d] = v;
+    if (ws.dKind[d] === DOF_SLIDE) continue;
+    const change = v > prev[d] ? v - prev[d] : prev[d] - v;
+    if (change > fastest) fastest = change;
+  }
+  if (fastest > limit) {
+    // A planted leg slows every joint by one scale: its limited pose lies on the way from the last pose to
+    // the solved one, both of which hold the foot on its plant (each joint clamped alone, a hip turning
+    // fast while the ankle did not dragged the foot 4 cm: a skid). A swinging leg clamps each joint alone,
+    // so the joints that can keep up still carry the foot toward its target.
+    const scale = limit / fastest;
+    const planted = t.stance[i] === 1;
+    for (let d = 0; d < ws.nDof; d++) {
+      if (ws.dKind[d] === DOF_SLIDE) continue;
+      const change = limited[d] - prev[d];
+      if (planted) limited[d] = prev[d] + change * scale;
+      else if (change > limit || change < -limit) limited[d] = prev[d] + (change > 0 ? limit : -limit);
+    }
+    changed = true;
   }
   if (!changed) return;
   setPose(ws, limited);

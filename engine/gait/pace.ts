@@ -39,6 +39,14 @@ const envelope = new Float64Array(MAX_SAMPLES);
 const edgeAt = new Float64Array(MAX_SAMPLES);
 const edgeRise = new Float64Array(MAX_SAMPLES);
 
+/**
+ * Longest swing the pace may ask for, as a share of the setup's stride: the swing's own speed is what the
+ * joints were set up for. Feet planted short on a slow stretch were left behind a body that sped up again,
+ * and the next swings ran 15 % longer than a stride, the joints at their speed limit and the foot 10–17 cm
+ * behind its target (common practice, no source, for the 5 % allowance).
+ */
+const SWING_MAX = 1.05;
+
 /** Stance time left below this share of the cycle: the foot is about to lift and does not hold the body back. */
 const MIN_STANCE_LEFT = 0.05;
 
@@ -59,6 +67,8 @@ function stancePace(t: Walk): number {
   const sv = m.vx / v;
   const c = Math.cos(t.heading);
   const s = Math.sin(t.heading);
+  const swing = (1 - beta) * T;
+  const halfStance = (beta * t.gait.stride) / 2;
   let pace = 1;
   for (let i = 0; i < t.legs; i++) {
     if (!t.stance[i]) continue;
@@ -75,9 +85,17 @@ function stancePace(t: Walk): number {
     const reach = COMFORT_MAX * leg.chain.reach;
     const room = reach * reach - across * across - dy * dy;
     const ahead = (room > 0 ? Math.sqrt(room) : 0) + along;
-    if (ahead <= 0) continue;
-    const p = ahead / (v * left);
-    if (p < pace) pace = p;
+    if (ahead > 0) {
+      const p = ahead / (v * left);
+      if (p < pace) pace = p;
+    }
+    // The swing after this stance: from the plant to the neutral spot as the body will be half a stance after
+    // touchdown. At pace p the body covers p·v·(left + swing) + p·β·stride/2 past its neutral spot by then.
+    const behind = leg.neutralFoot[1] - leg.hip[2] - along;
+    const room2 = SWING_MAX * t.gait.stride - behind;
+    const per = v * (left + swing) + halfStance;
+    const p2 = room2 > 0 ? room2 / per : 0;
+    if (p2 < pace) pace = p2;
   }
   return pace < SLOWEST_PACE ? SLOWEST_PACE : pace;
 }

@@ -143,21 +143,28 @@ function pathClearance(hf: Ground, p: SwingPlan): number {
 /** Horizontal distance from either end within which the sole may be at the ground (it is lifting off or setting down), m. */
 const END_ZONE = 0.03;
 
-/** Smallest height above the ground of the path's points away from its ends (the sole over nosings, lips and rims). */
+/**
+ * Smallest height above the ground of the path away from its ends (the sole over nosings, lips and rims).
+ * Between two neighbouring samples the sole is taken at the lower of their heights and the ground at its
+ * highest under them: a riser lies between samples, and the sole climbing past it was measured 1–2 cm higher
+ * at the next sample than it was over the nosing (a toe 1 mm into a nosing on code stairs).
+ */
 function interiorClearance(hf: Ground, p: SwingPlan): number {
   let least = Infinity;
   const lower = p.y0 < p.y1 ? p.y0 : p.y1;
+  swingPoint(p, 0, scratchB);
   for (let i = 1; i < INTERIOR_SAMPLES; i++) {
-    swingPoint(p, i / INTERIOR_SAMPLES, scratchA);
-    const x = scratchA[0];
-    const z = scratchA[2];
-    const d0 = Math.hypot(x - p.x0, z - p.z0);
+    scratchA.set(scratchB);
+    swingPoint(p, i / INTERIOR_SAMPLES, scratchB);
+    const x = scratchB[0];
+    const z = scratchB[2];
+    const d0 = Math.hypot(scratchA[0] - p.x0, scratchA[2] - p.z0);
     const d1 = Math.hypot(x - p.x1, z - p.z1);
     if (d0 < END_ZONE || d1 < END_ZONE) continue;
     // Only where the ground stands above the lower end: a nosing, a lip, a bump; not the ground the foot leaves.
-    const g = hf.height(x, z);
+    const g = maxHeightAlong(hf, scratchA[0], scratchA[2], x, z);
     if (g <= lower + OBSTACLE_RISE) continue;
-    const c = scratchA[1] - g;
+    const c = (scratchA[1] < scratchB[1] ? scratchA[1] : scratchB[1]) - g;
     if (c < least) least = c;
   }
   return least;

@@ -24,7 +24,7 @@ export interface WalkSnapshot {
 function stateArrays(w: Walk): Numbers[] {
   const a: Numbers[] = [
     w.phase, w.stance, w.resting, w.plant, w.plantNormal, w.support, w.liftNormal, w.landNormal, w.target, w.targetNormal,
-    w.foot, w.jointSpeed, w.iterations, w.error, w.solveError, w.converged, w.bodyPos, w.bodyRot,
+    w.foot, w.jointSpeed, w.iterations, w.error, w.solveError, w.converged, w.bodyPos, w.bodyRot, w.kneeShaping,
   ];
   for (const p of w.prevPose) a.push(p);
   for (const p of w.olderPose) a.push(p);

@@ -75,6 +75,9 @@ export interface Walk {
   /** Per leg: the knee's DOF index (−1: none), and its straight value and bending sign (2 per leg). */
   readonly kneeDof: Int32Array;
   readonly kneeStraight: Float64Array;
+  /** Per leg: 1 = this swing met a straight knee, and the knee is preshaped until touchdown. */
+  readonly kneeShaping: Uint8Array;
+  readonly ankleFoot: Uint8Array;
   /** Farthest neutral foot spot from the body's centre, m (how fast a turn moves the feet). */
   readonly turnRadius: number;
 

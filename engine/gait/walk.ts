@@ -142,6 +142,12 @@ export function createWalk(rig: Rig, setupInput: unknown, ground: Ground, option
     // Back to rest over about one swing.
     recoverRate: Math.min(1, dt / ((1 - gait.dutyFactor) * gait.cycleTime)),
     kneeStraight,
+    kneeShaping: new Uint8Array(L),
+    ankleFoot: Uint8Array.from(rig.legs, (l) => {
+      const j = l.chain.joints;
+      const last = j[j.length - 1];
+      return l.chain.knee === j.length - 2 && (last.kind === 'universal' || last.kind === 'ball') ? 1 : 0;
+    }),
     kneeDof: Int32Array.from(rig.legs, (l, i) => {
       const ws = solvers[i];
       setRootTransform(ws, ORIGIN, IDENTITY_QUAT);
@@ -527,7 +533,12 @@ export function solveLegs(w: Walk): void {
       older.set(prev);
     }
     const normal = aimLeg(w, i, aim, aimNormal);
-    preshapeKnee(w, i, aim);
+    // A swing that met a straight knee keeps it shaped for the rest of the swing: left to the solver once
+    // it had bent a little, the knee went back toward straight while the preshape bent it again, each
+    // frame in turn, and the joint speed limit held the foot between the two (10–17 cm off its target).
+    if (w.stance[i]) w.kneeShaping[i] = 0;
+    else if (w.ankleFoot[i] || kneeNearStraight(w, i)) w.kneeShaping[i] = 1;
+    preshapeKnee(w, i, aim, w.kneeShaping[i] === 1);
     const r = solve(ws, aim, normal);
     w.iterations[i] = r.iterations;
     w.error[i] = r.positionError;

@@ -69,14 +69,8 @@ const STARTER_SCORE_BAR = 80;
  * Cases known to score under the bar, each with why; `it.failing` passes while they do, so a fix shows up as a
  * failure asking for its line to be removed.
  * - The crawler's legs of one segment stumble even on flat ground (sinks and scuffs at every few of its 216 steps).
- * - The biped with its skinned mesh under an armature node stands turned: the fixture gives that node a 0.2 rad
- *   (11.5°) turn about +Y, which the import keeps as glTF composes it (its joints match three.js's GLTFLoader,
- *   tests/server/characters-corpus.test.ts), so its hips sit at (±0.098, ∓0.020) about the pelvis, and the mirror
- *   plane, taken as the middle of the hips' and soles' x extent, lands 1.5 cm to the side. On the gravel one swing's
- *   solve lags 9 cm behind its target and the toe dips 7 mm once, 25 scuffs per 100 steps over a trial of 4 steps.
- *   The same file with no turn scores 93.2 there, with or without the node's 0.3 m shift.
  */
-const KNOWN_UNDER_BAR = new Set(['two-joint-legs/Starter: three steps', 'two-joint-legs/Starter: loose gravel', 'non-root-skinned-mesh/Starter: loose gravel']);
+const KNOWN_UNDER_BAR = new Set(['two-joint-legs/Starter: three steps', 'two-joint-legs/Starter: loose gravel']);
 const cases = corpus.flatMap((c) => STARTER_COURSES.map((s) => [c.id, s.name, s] as const));
 
 describe.each(cases)('%s on %s with its derived defaults', (id, name, s) => {
