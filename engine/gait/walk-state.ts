@@ -77,6 +77,7 @@ export interface Walk {
   readonly kneeStraight: Float64Array;
   /** Per leg: 1 = this swing met a straight knee, and the knee is preshaped until touchdown. */
   readonly kneeShaping: Uint8Array;
+  /** Per leg: 1 = the leg ends in a knee and an ankle (universal or ball): its knee is preshaped through every swing. */
   readonly ankleFoot: Uint8Array;
   /** Farthest neutral foot spot from the body's centre, m (how fast a turn moves the feet). */
   readonly turnRadius: number;
