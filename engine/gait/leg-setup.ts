@@ -218,6 +218,20 @@ export const ORIENTATION_WEIGHT_REACH = 1.1;
 
 /** Default step height as a fraction of hip height (common practice, no source). */
 export const DEFAULT_STEP_HEIGHT_RATIO = 0.1;
+/**
+ * ...and never less than this fraction of the shortest leg's reach: a sprawled leg (an insect's) stands far
+ * lower than it is long, and a tenth of its hip height (1.8 cm for the hexapod) left a swing climbing a code
+ * riser 1.8 cm over the nosing while the foot lagged its target by 4 cm (scuffs). Our own choice.
+ */
+export const DEFAULT_STEP_HEIGHT_REACH_RATIO = 0.05;
+
+function defaultStepHeight(rig: Rig): number {
+  let reach = Infinity;
+  for (const l of rig.legs) if (l.chain.reach < reach) reach = l.chain.reach;
+  const byHip = DEFAULT_STEP_HEIGHT_RATIO * rig.hipHeight;
+  const byReach = Number.isFinite(reach) ? DEFAULT_STEP_HEIGHT_REACH_RATIO * reach : 0;
+  return byHip > byReach ? byHip : byReach;
+}
 
 export function defaultSolverSettings(footOrientation: boolean): SolverSettings {
   const engine = DEFAULT_OPTIONS;
@@ -249,7 +263,7 @@ function baseLegSetup(rig: Rig): LegSetup {
       dutyFactor: preset ? preset.dutyFactor : 0.75,
       timing: { mode: 'speed', speed: speedForFroude(DEFAULT_FROUDE, rig.hipHeight) },
       stride: null,
-      stepHeight: DEFAULT_STEP_HEIGHT_RATIO * rig.hipHeight,
+      stepHeight: defaultStepHeight(rig),
     },
     body: { ...DEFAULT_BODY },
     footholds: { ...DEFAULT_FOOTHOLDS },

@@ -50,8 +50,10 @@ describe('defaults fitted to the character', () => {
           expect({ name, s, fr }).toEqual({ name, s, fr: expect.closeTo(0.2, 9) });
           expect(peak).toBeLessThanOrEqual(PLANNED_SWING_SPEED + 1e-6);
         }
-        // Step height stays a tenth of hip height at every size (common practice, no source).
-        expect(setup.gait.stepHeight).toBeCloseTo(0.1 * r.hipHeight, 12);
+        // Step height: a tenth of hip height at every size (common practice, no source), or a twentieth of the
+        // shortest reach where that is more (a sprawled leg; our own choice).
+        const shortest = Math.min(...r.legs.map((l) => l.chain.reach));
+        expect(setup.gait.stepHeight).toBeCloseTo(Math.max(0.1 * r.hipHeight, 0.05 * shortest), 12);
       }
     }
     // The small ones are slowed (a fast swing at 0.3× is what dragged their toes); the large ones are not.
