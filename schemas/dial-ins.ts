@@ -4,10 +4,12 @@
  */
 import { z } from 'zod';
 import { LegSetupSchema } from '../engine/gait/leg-setup';
+import { SETTING_NAMES, type NamedSetting, type SettingName } from '../engine/gait/setting-sentences';
 
 /** A setting the tuner may move: where it lives in the leg setup and the range the leg setup schema allows. */
 export interface TunableSetting {
   key: string;
+  /** The setting's name and unit as the leg setup form and the server's sentences say them (SETTING_NAMES). */
   label: string;
   unit: string;
   /** Path inside LegSetupSchema. */
@@ -18,17 +20,25 @@ export interface TunableSetting {
   integer: boolean;
 }
 
-export const TUNABLE_SETTINGS: readonly TunableSetting[] = [
-  { key: 'solver.lambda', label: 'DLS damping λ', unit: 'm', path: ['solver', 'lambda'], range: [0, 10], suggested: [0.005, 0.4], integer: false },
-  { key: 'solver.maxIterations', label: 'Iteration budget', unit: '', path: ['solver', 'maxIterations'], range: [1, 1000], suggested: [4, 60], integer: true },
-  { key: 'solver.maxStepAngle', label: 'Largest joint change per iteration', unit: 'rad', path: ['solver', 'maxStepAngle'], range: [0.001, Math.PI], suggested: [0.05, 1], integer: false },
-  { key: 'gait.dutyFactor', label: 'Duty factor', unit: '', path: ['gait', 'dutyFactor'], range: [0.05, 0.98], suggested: [0.45, 0.85], integer: false },
-  { key: 'gait.stepHeight', label: 'Step height', unit: 'm', path: ['gait', 'stepHeight'], range: [0, 1], suggested: [0.02, 0.3], integer: false },
-  { key: 'body.settleTime', label: 'Body settling time', unit: 's', path: ['body', 'settleTime'], range: [0.02, 5], suggested: [0.08, 1], integer: false },
-  { key: 'body.followHeight', label: 'Body follows height', unit: '', path: ['body', 'followHeight'], range: [0, 1], suggested: [0, 1], integer: false },
-  { key: 'body.slopeCrouch', label: 'Crouch on slopes', unit: '', path: ['body', 'slopeCrouch'], range: [0, 2], suggested: [0, 0.6], integer: false },
-  { key: 'body.heightOffset', label: 'Body height offset', unit: 'm', path: ['body', 'heightOffset'], range: [-2, 2], suggested: [-0.15, 0.05], integer: false },
+/** What each tunable setting holds besides its name; its label and unit are the setting's listed name (SETTING_NAMES). */
+type TunableSpec = Omit<TunableSetting, 'key' | 'label' | 'unit' | 'path'> & { key: NamedSetting };
+
+const TUNABLE_SPECS: readonly TunableSpec[] = [
+  { key: 'solver.lambda', range: [0, 10], suggested: [0.005, 0.4], integer: false },
+  { key: 'solver.maxIterations', range: [1, 1000], suggested: [4, 60], integer: true },
+  { key: 'solver.maxStepAngle', range: [0.001, Math.PI], suggested: [0.05, 1], integer: false },
+  { key: 'gait.dutyFactor', range: [0.05, 0.98], suggested: [0.45, 0.85], integer: false },
+  { key: 'gait.stepHeight', range: [0, 1], suggested: [0.02, 0.3], integer: false },
+  { key: 'body.settleTime', range: [0.02, 5], suggested: [0.08, 1], integer: false },
+  { key: 'body.followHeight', range: [0, 1], suggested: [0, 1], integer: false },
+  { key: 'body.slopeCrouch', range: [0, 2], suggested: [0, 0.6], integer: false },
+  { key: 'body.heightOffset', range: [-2, 2], suggested: [-0.15, 0.05], integer: false },
 ];
+
+export const TUNABLE_SETTINGS: readonly TunableSetting[] = TUNABLE_SPECS.map((t) => {
+  const name: SettingName = SETTING_NAMES[t.key];
+  return { ...t, label: name.label, unit: name.unit ?? '', path: t.key.split('.') };
+});
 
 export const TUNABLE_KEYS = TUNABLE_SETTINGS.map((s) => s.key) as [string, ...string[]];
 export const tunableByKey = (key: string) => TUNABLE_SETTINGS.find((s) => s.key === key);

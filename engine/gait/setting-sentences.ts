@@ -13,7 +13,8 @@ export interface SettingName {
 
 /**
  * Names of the settings: the one list. The leg setup form (components/setup/setup-draft.ts) labels its fields
- * with these, so a field and a sentence about it always name the same setting.
+ * with these and the dial-in's tunable settings (schemas/dial-ins.ts) take their names from here, so a field,
+ * a tuner row and a sentence about a setting always name it the same way.
  */
 export const SETTING_NAMES = {
   'solver.method': { label: 'Solver method' },
@@ -44,6 +45,12 @@ export const SETTING_NAMES = {
   'body.followRoll': { label: 'Body follows roll' },
   'body.settleTime': { label: 'Body settling time', unit: 's' },
   'body.slopeCrouch': { label: 'Crouch per radian of slope' },
+  'footholds.searchRadius': { label: 'Foothold search radius' },
+  'footholds.distanceWeight': { label: 'Foothold distance weight' },
+  'footholds.slopeWeight': { label: 'Foothold slope weight' },
+  'footholds.roughnessWeight': { label: 'Foothold roughness weight' },
+  'footholds.edgeWeight': { label: 'Foothold edge weight' },
+  'footholds.reachWeight': { label: 'Foothold reach weight' },
 } satisfies Record<string, SettingName>;
 
 /** A setting the list above names. */

@@ -36,7 +36,7 @@ async function tuneOnly(page: Page, tuned: string[]) {
   }
 }
 
-const ALL = ['DLS damping λ', 'Iteration budget', 'Largest joint change per iteration', 'Duty factor', 'Step height', 'Body settling time', 'Body follows height', 'Crouch on slopes', 'Body height offset'];
+const ALL = ['DLS damping λ', 'Iteration budget', 'Largest joint change per iteration', 'Duty factor', 'Step height', 'Body settling time', 'Body follows the feet’s height', 'Crouch per radian of slope', 'Body height offset'];
 
 describe('dialling in', () => {
   it('on a phone: cost before, progress in view, and no Accept when nothing was found', async () => {
@@ -67,11 +67,11 @@ describe('dialling in', () => {
     await page.goto(`${studio.server.url}/characters/dial-in/${wicketId}`);
     await page.getByRole('heading', { name: 'Wicket: dial-in' }).waitFor();
     // Each setting says its value now: the start's follow-height, as the leg setup API gives it.
-    await page.getByRole('radiogroup', { name: `Body follows height · now ${parseFloat(current.body.followHeight.toPrecision(3))}` }).waitFor();
+    await page.getByRole('radiogroup', { name: `Body follows the feet’s height · now ${parseFloat(current.body.followHeight.toPrecision(3))}` }).waitFor();
     // Angles in degrees: the schema's radians × 180/π (ISO 80000-3).
     const stepDeg = parseFloat(((current.solver.maxStepAngle * 180) / Math.PI).toPrecision(3));
     await page.getByRole('radiogroup', { name: `Largest joint change per iteration (°) · now ${stepDeg}°` }).waitFor();
-    await tuneOnly(page, ['Body follows height']);
+    await tuneOnly(page, ['Body follows the feet’s height']);
     await page.getByRole('radio', { name: 'Level only' }).click();
     await page.getByLabel('Budget (candidates; each is a trial per course)').fill('6');
 
@@ -101,7 +101,7 @@ describe('dialling in', () => {
     expect(await page.getByTestId('dial-in-best-mean').evaluate((el) => getComputedStyle(el).color)).not.toBe(MOSS);
     await page.getByTestId('dial-in-result').getByText('± 0.0').first().waitFor();
     // The tuned setting shows where it started and what was found.
-    await page.getByLabel(new RegExp(`^Body follows height: start ${parseFloat(current.body.followHeight.toPrecision(3))}, found `)).waitFor();
+    await page.getByLabel(new RegExp(`^Body follows the feet’s height: start ${parseFloat(current.body.followHeight.toPrecision(3))}, found `)).waitFor();
     // Why: the start's stumbles on the course, from that stored trial, each kind a number.
     await noGain.getByRole('link', { name: `From trial ${trialId} of the same leg setup: open it →` }).waitFor();
     for (const kind of ['Sink', 'Skid', 'Reach-miss', 'Scuff', 'Snap']) await noGain.getByLabel(new RegExp(`^${kind} \\d+\\.\\d per 100 steps$`)).waitFor();

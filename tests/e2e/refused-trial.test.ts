@@ -84,7 +84,7 @@ describe('a trial that cannot run', () => {
       await openSetup(page);
       await page.goto(`${studio.server.url}/characters/dial-in/${characterId}`);
       await page.getByRole('heading', { name: 'Burrow (cm): dial-in' }).waitFor();
-      for (const label of ['DLS damping λ', 'Iteration budget', 'Largest joint change per iteration', 'Duty factor', 'Step height', 'Body settling time', 'Body follows height', 'Crouch on slopes', 'Body height offset']) {
+      for (const label of ['DLS damping λ', 'Iteration budget', 'Largest joint change per iteration', 'Duty factor', 'Step height', 'Body settling time', 'Body follows the feet’s height', 'Crouch per radian of slope', 'Body height offset']) {
         const group = page.getByRole('radiogroup', { name: new RegExp(`^${label}( \\(|  ·|$| ·)`) });
         await group.getByRole('radio', { name: label === 'DLS damping λ' ? 'tune' : 'keep' }).click();
       }
