@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { GAIT_PATTERNS } from '../../engine/gait/patterns';
 import { SOLVER_METHODS } from '../../engine/ik/options';
@@ -7,7 +8,8 @@ import { ChoiceChips } from '../ui/ChoiceChips';
 import { SectionHeading } from '../ui/SectionHeading';
 import { TextField } from '../ui/TextField';
 import { Notice } from '../ui/Notice';
-import { BODY_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, isJacobianMethod, solverFieldsFor, type Draft, type NumberField } from './setup-draft';
+import { Button } from '../ui/Button';
+import { BODY_FIELDS, FOOTHOLD_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, isJacobianMethod, settingLabel, solverFieldsFor, type Draft, type NumberField } from './setup-draft';
 import { LegLimitsEditor, type LimitLeg } from './LegLimitsEditor';
 import { SOLVER_METHOD_NAMES, SOLVER_METHOD_NOTES, gaitName } from './names';
 
@@ -20,10 +22,13 @@ const YES_NO = [
 
 /**
  * Every engine setting of a leg setup as a field, those of the chosen solver method only; messages come from
- * the shared LegSetupSchema. Angles are typed in degrees (the form converts to the setup's radians).
+ * the shared LegSetupSchema. Angles are typed in degrees (the form converts to the setup's radians). The
+ * foothold weights are folded away until asked for (or until one of them needs attention).
  */
 export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draft: Draft; errors: Record<string, string>; onChange(path: string, value: string): void; legs: LimitLeg[]; disabled?: boolean }) {
   const wide = useIsWide();
+  const [footholdsOpen, setFootholdsOpen] = useState(false);
+  const footholdProblem = FOOTHOLD_FIELDS.some((f) => errors[f.path]);
   const method = draft['solver.method'];
   const shown = solverFieldsFor(method, draft['solver.footOrientation'] === 'true');
   const jacobian = isJacobianMethod(method);
@@ -50,7 +55,7 @@ export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draf
   return (
     <View style={styles.wrap}>
       <SectionHeading>Solver</SectionHeading>
-      <ChoiceChips label="Method" choices={METHOD_CHOICES} value={method} onChange={(v) => onChange('solver.method', v)} error={errors['solver.method']} disabled={disabled} />
+      <ChoiceChips label={settingLabel('solver.method')} choices={METHOD_CHOICES} value={method} onChange={(v) => onChange('solver.method', v)} error={errors['solver.method']} disabled={disabled} />
       {method in SOLVER_METHOD_NOTES ? <Text style={styles.note}>{SOLVER_METHOD_NOTES[method as keyof typeof SOLVER_METHOD_NOTES]}</Text> : null}
       {method === 'adaptive' ? (
         <ChoiceChips label="Adaptive damping from" choices={[{ value: 'manipulability', label: 'nearness to full stretch' }, { value: 'error', label: 'size of the error' }]} value={draft['solver.adaptiveMode']} onChange={(v) => onChange('solver.adaptiveMode', v)} disabled={disabled} />
@@ -70,9 +75,9 @@ export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draf
       ) : null}
 
       <SectionHeading>Gait</SectionHeading>
-      <ChoiceChips label="Pattern" choices={GAIT_CHOICES} value={draft['gait.pattern']} onChange={(v) => onChange('gait.pattern', v)} error={errors['gait.pattern']} disabled={disabled} />
+      <ChoiceChips label={settingLabel('gait.pattern')} choices={GAIT_CHOICES} value={draft['gait.pattern']} onChange={(v) => onChange('gait.pattern', v)} error={errors['gait.pattern']} disabled={disabled} />
       <TextField
-        label="Phase offsets (touchdown as a share of the cycle, one per leg)"
+        label={settingLabel('gait.phaseOffsets', 'touchdown as a share of the cycle, one per leg')}
         hint={`blank = the pattern's; legs in order: ${legs.map((l) => l.name).join(', ')}`}
         value={draft['gait.phaseOffsets']}
         onChangeText={(v) => onChange('gait.phaseOffsets', v)}
@@ -80,11 +85,22 @@ export function LegSetupForm({ draft, errors, onChange, legs, disabled }: { draf
         editable={!disabled}
       />
       <ChoiceChips label="Timing" choices={[{ value: 'speed', label: 'by speed' }, { value: 'cycle', label: 'by cycle time' }]} value={draft['gait.timing.mode']} onChange={(v) => onChange('gait.timing.mode', v)} disabled={disabled} />
-      <TextField label={draft['gait.timing.mode'] === 'speed' ? 'Speed (m/s)' : 'Cycle time (s)'} value={draft['gait.timing.value']} onChangeText={(v) => onChange('gait.timing.value', v)} error={errors['gait.timing.value']} inputMode="decimal" editable={!disabled} />
+      <TextField label={settingLabel(draft['gait.timing.mode'] === 'speed' ? 'gait.timing.speed' : 'gait.timing.cycleTime')} value={draft['gait.timing.value']} onChangeText={(v) => onChange('gait.timing.value', v)} error={errors['gait.timing.value']} inputMode="decimal" editable={!disabled} />
       {numbers(GAIT_FIELDS)}
 
       <SectionHeading>Body</SectionHeading>
       {numbers(BODY_FIELDS)}
+
+      <SectionHeading>Footholds</SectionHeading>
+      <Text style={styles.note}>How the walk picks where a foot lands: the spots it weighs around the planned one, and what counts against a spot.</Text>
+      {footholdsOpen || footholdProblem ? (
+        <View testID="foothold-fields">{numbers(FOOTHOLD_FIELDS)}</View>
+      ) : null}
+      {footholdProblem ? null : (
+        <View style={styles.toggle}>
+          <Button tone="quiet" label={footholdsOpen ? 'Hide the foothold settings' : 'Show the foothold settings'} aria-expanded={footholdsOpen} onPress={() => setFootholdsOpen((o) => !o)} />
+        </View>
+      )}
 
       <SectionHeading>Limits per leg</SectionHeading>
       <Text style={styles.note}>Joint limits that replace the mapped ones for one leg (degrees; metres for sliders).</Text>
@@ -99,4 +115,5 @@ const styles = StyleSheet.create({
   fieldsWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
   half: { flexBasis: '47%', flexGrow: 1 },
   note: { ...type.small, color: colors.graphite },
+  toggle: { alignItems: 'flex-start' },
 });

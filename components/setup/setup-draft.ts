@@ -32,18 +32,25 @@ type FieldSpec = Omit<NumberField, 'path' | 'label' | 'unit'> & {
 };
 
 /**
- * Labelled under its section's heading (Solver, Gait, Body), a field does not repeat the heading: "Body settling
- * time" is "Settling time" under Body. A setting typed in degrees shows ° instead of its stored radians.
+ * Labelled under its section's heading (Solver, Gait, Body, Footholds), a field does not repeat the heading: "Body
+ * settling time" is "Settling time" under Body, "Foothold edge weight" "Edge weight" under Footholds. A setting
+ * typed in degrees shows ° instead of its stored radians.
  */
 function named(spec: FieldSpec): NumberField {
   const { gloss, ...field } = spec;
   const name: SettingName = SETTING_NAMES[spec.path];
-  const heading = spec.path.split('.')[0];
-  const short = name.label.replace(new RegExp(`^${heading} `, 'i'), '');
+  const heading = spec.path.split('.')[0].replace(/s$/, '');
+  const short = name.label.replace(new RegExp(`^${heading}s? `, 'i'), '');
   const label = short.charAt(0).toUpperCase() + short.slice(1);
   return { ...field, label: gloss ? `${label} (${gloss})` : label, unit: spec.degrees ? '°' : name.unit };
 }
 const namedFields = (specs: FieldSpec[]) => specs.map(named);
+
+/** A form label for a setting that is not a plain number field (a choice, a list, the timing value): its listed name under its heading, with its unit. */
+export function settingLabel(path: NamedSetting, gloss?: string): string {
+  const { label, unit } = named({ path, gloss });
+  return unit ? `${label} (${unit})` : label;
+}
 
 const JACOBIAN: readonly SolverMethod[] = ['dls', 'sdls', 'transpose', 'pseudoinverse', 'adaptive'];
 
@@ -58,6 +65,8 @@ export const SOLVER_FIELDS: NumberField[] = namedFields([
   { path: 'solver.lmBias', methods: ['adaptive'] },
   { path: 'solver.maxStepAngle', degrees: true },
   { path: 'solver.maxStepLength' },
+  // Read by the walk around every method's solve (a flip of the knee is spread over frames).
+  { path: 'solver.maxJointSpeed' },
   { path: 'solver.clampDistance', nullable: 'blank = off, 0 = automatic', methods: JACOBIAN },
   { path: 'solver.orientationTolerance', degrees: true, orientation: true },
   { path: 'solver.orientationWeight', orientation: true },
@@ -88,7 +97,24 @@ export const BODY_FIELDS: NumberField[] = namedFields([
   { path: 'body.slopeCrouch' },
 ]);
 
-const ALL_NUMBERS = [...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS];
+/** The foothold search's radius and the weights of its cost (engine/gait/foothold.ts): shown folded away, as few need them. */
+export const FOOTHOLD_FIELDS: NumberField[] = namedFields([
+  { path: 'footholds.searchRadius', gloss: 'share of the stride' },
+  { path: 'footholds.distanceWeight', gloss: 'cost at the search radius' },
+  { path: 'footholds.slopeWeight', gloss: 'cost per radian of slope' },
+  { path: 'footholds.roughnessWeight', gloss: 'cost per m of height spread' },
+  { path: 'footholds.edgeWeight', gloss: 'cost per m of height jump' },
+  { path: 'footholds.reachWeight', gloss: 'cost at the reach limit' },
+]);
+
+const ALL_NUMBERS = [...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS, ...FOOTHOLD_FIELDS];
+
+/**
+ * Draft key of the setup the form was filled from, as JSON. The candidate starts from it, so a setting the form
+ * has no field for (one added to the schema before the form offers it) is saved as it was, never reset to its
+ * default. (A leg's own solver settings ride in the legs' JSON: limit-rows.ts keeps them.)
+ */
+const LOADED = 'loaded';
 
 export type Draft = Record<string, string>;
 
@@ -145,6 +171,7 @@ export function draftOf(s: LegSetup): Draft {
   d['gait.timing.mode'] = s.gait.timing.mode;
   setNumber(d, 'gait.timing.value', s.gait.timing.mode === 'speed' ? s.gait.timing.speed : s.gait.timing.cycleTime);
   d.legs = JSON.stringify(s.legs);
+  d[LOADED] = JSON.stringify(s);
   return d;
 }
 
@@ -159,7 +186,7 @@ function numberOf(d: Draft, path: string, scale = 1): number {
 
 /** The setup the draft describes (not yet validated). */
 export function candidateOf(d: Draft): unknown {
-  const o: Record<string, unknown> = { version: 1 };
+  const o: Record<string, unknown> = { ...loadedOf(d), version: 1 };
   for (const f of ALL_NUMBERS) put(o, f.path, f.nullable && d[f.path].trim() === '' ? null : numberOf(d, f.path, f.degrees ? DEG_PER_RAD : 1));
   put(o, 'solver.method', d['solver.method']);
   put(o, 'solver.adaptiveMode', d['solver.adaptiveMode']);
@@ -177,6 +204,15 @@ export function candidateOf(d: Draft): unknown {
     o.legs = 'not JSON';
   }
   return o;
+}
+
+function loadedOf(d: Draft): Record<string, unknown> {
+  try {
+    const loaded: unknown = JSON.parse(d[LOADED] ?? '{}');
+    return loaded && typeof loaded === 'object' && !Array.isArray(loaded) ? (loaded as Record<string, unknown>) : {};
+  } catch {
+    return {};
+  }
 }
 
 /** The valid setup, or the field messages (keyed by path, e.g. "gait.dutyFactor"). */

@@ -7,18 +7,18 @@ import { defaultLegSetup } from '../../engine/gait/leg-setup';
 import { bipedRig } from '../../engine/gait/rig-presets';
 import { legSetupProblems } from '../../engine/gait/setup-problems';
 import { SETTING_NAMES, nameOf } from '../../engine/gait/setting-sentences';
-import { BODY_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, checkDraft, draftOf } from '../../components/setup/setup-draft';
+import { BODY_FIELDS, FOOTHOLD_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, checkDraft, draftOf } from '../../components/setup/setup-draft';
 
 const rig = bipedRig();
 const setup = defaultLegSetup(rig);
-const fields = [...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS];
+const fields = [...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS, ...FOOTHOLD_FIELDS];
 
 describe('the form and the sentences share the settings’ names', () => {
   it('labels every field, shown or kept hidden, with its setting’s listed name', () => {
     for (const f of fields) {
       expect(Object.keys(SETTING_NAMES)).toContain(f.path);
-      // Under its section heading the label drops the heading's word ("Body settling time" under Body).
-      const name = nameOf(f.path).label.replace(/^(solver|gait|body) /i, '').toLowerCase();
+      // Under its section heading the label drops the heading's word ("Body settling time" under Body, "Foothold edge weight" under Footholds).
+      const name = nameOf(f.path).label.replace(/^(solver|gait|body|foothold) /i, '').toLowerCase();
       expect(f.label.toLowerCase().startsWith(name)).toBe(true);
     }
   });

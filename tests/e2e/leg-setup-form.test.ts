@@ -1,7 +1,8 @@
 /**
  * The leg setup form as a designer on a phone meets it: the small preview stays in view while the form
  * scrolls; only the chosen solver method's settings show; methods and gaits by name, not code; angles in
- * degrees; figures rounded; dates in the reader's locale. Then the wide layout.
+ * degrees; figures rounded; dates in the reader's locale. Then the wide layout; then a setting of its own (joint
+ * speed limit, a foothold weight) saved and read back after a reload, the other foothold weights untouched.
  */
 import type { Page } from 'playwright-core';
 import { PHONE, WIDE, screenshot } from '../support/browser';
@@ -61,7 +62,7 @@ describe('the leg setup form', () => {
     expect(Number(await step.inputValue())).toBeCloseTo((setup.solver.maxStepAngle * 180) / Math.PI, 1);
     // Rounded figures: no 1.12929 for a speed.
     if (setup.gait.timing.mode === 'speed') {
-      const speed = await field(page, 'Speed (m/s)').inputValue();
+      const speed = await field(page, 'Walking speed (m/s)').inputValue();
       expect(speed).toBe(String(parseFloat(setup.gait.timing.speed.toPrecision(3))));
       expect(speed.replace(/^0\.0*|\./g, '').length).toBeLessThanOrEqual(3);
     }
@@ -97,5 +98,52 @@ describe('the leg setup form', () => {
     await page.getByRole('radiogroup', { name: 'Preview course' }).waitFor();
     await page.waitForTimeout(600);
     await screenshot(page, 'leg-setup-form-wide');
+  });
+
+  it('keeps a joint speed limit and a foothold weight of its own through a save and a reload', async () => {
+    const page = await studio.newPage(PHONE, { locale: 'en-GB', timezoneId: 'Europe/London' });
+    const { id, list } = await openWicketSetup(page);
+    const before = list.versions[0]?.setup ?? list.defaults;
+    // Values no default would give (700 °/s and 0.18 of the stride are the engine's).
+    expect(before.solver.maxJointSpeed).not.toBe(123);
+    expect(before.footholds.searchRadius).not.toBe(0.9);
+
+    await field(page, 'Joint speed limit (°/s)').fill('123');
+    const radius = field(page, 'Search radius (share of the stride)');
+    // Folded away on a phone until asked for.
+    expect(await radius.count()).toBe(0);
+    const show = page.getByRole('button', { name: 'Show the foothold settings' });
+    await show.scrollIntoViewIfNeeded();
+    await screenshot(page, 'leg-setup-footholds-folded-phone');
+    await show.click();
+    await radius.fill('0.9');
+    // Over the schema's 1000 limit: said beside the field in the sentence the server would use.
+    await field(page, 'Edge weight (cost per m of height jump)').fill('5000');
+    await page.getByTestId('foothold-fields').getByRole('alert').filter({ hasText: 'Foothold edge weight 5000 is above the 1000 limit; set it to at most 1000.' }).waitFor();
+    await field(page, 'Edge weight (cost per m of height jump)').fill(String(before.footholds.edgeWeight));
+    await field(page, 'Reach weight (cost at the reach limit)').scrollIntoViewIfNeeded();
+    await screenshot(page, 'leg-setup-footholds-phone');
+
+    await page.getByRole('button', { name: 'Save as a new version' }).click();
+    await page.getByText(/^Saved as version \d+\.$/).waitFor();
+
+    await page.reload();
+    await page.getByRole('heading', { name: 'Wicket: leg setup' }).waitFor();
+    expect(await field(page, 'Joint speed limit (°/s)').inputValue()).toBe('123');
+    await page.getByRole('button', { name: 'Show the foothold settings' }).click();
+    expect(await radius.inputValue()).toBe('0.9');
+    expect(Number(await field(page, 'Reach weight (cost at the reach limit)').inputValue())).toBeCloseTo(before.footholds.reachWeight, 2);
+
+    // What the server stored: the two changed, every other foothold weight as it was.
+    const after = ((await (await page.request.get(`${studio.server.url}/api/characters/${id}/leg-setups`)).json()) as LegSetupList).versions[0].setup;
+    expect(after.solver.maxJointSpeed).toBe(123);
+    expect(after.footholds).toEqual({ ...before.footholds, searchRadius: 0.9 });
+
+    const wide = await studio.newPage(WIDE, { locale: 'en-US' });
+    await openWicketSetup(wide);
+    await wide.getByRole('button', { name: 'Show the foothold settings' }).click();
+    expect(await field(wide, 'Search radius (share of the stride)').inputValue()).toBe('0.9');
+    await wide.getByRole('heading', { name: 'Footholds', exact: true }).scrollIntoViewIfNeeded();
+    await screenshot(wide, 'leg-setup-footholds-wide');
   });
 });
