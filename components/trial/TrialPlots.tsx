@@ -56,7 +56,7 @@ export function TrialPlots({ series, legNames, time, rig, setup, course, duratio
         {problem ? <Notice message={problem} /> : null}
         {solved ? (
           <LinePlot
-            title={`${legNames[solved.leg]} at ${solved.time.toFixed(2)} s: ${solved.errors.length} iterations`}
+            title={`${legNames[solved.leg]} at ${solved.time.toFixed(2)} s: ${solved.errors.length} ${solved.errors.length === 1 ? 'iteration' : 'iterations'}`}
             xLabel="iteration"
             yLabel="position error, m (log scale)"
             yLog
