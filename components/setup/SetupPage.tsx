@@ -22,8 +22,28 @@ import type { LegSetupCreate, LegSetupVersion } from '../../schemas/leg-setups';
 import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { LegSetupForm } from './LegSetupForm';
 import type { LimitLeg } from './LegLimitsEditor';
-import { checkDraft, draftOf, type Draft } from './setup-draft';
+import { BODY_FIELDS, checkDraft, draftOf, GAIT_FIELDS, SOLVER_FIELDS, type Draft } from './setup-draft';
 import { VersionList } from './VersionList';
+
+/** Why "Run trial" waits while the edited form has settings that need attention. */
+const FIX_FIRST = 'The trial runs the settings in the form: first fix the ones marked there.';
+
+const NOT_A_NUMBER = 'Enter a number.';
+const NUMBER_LABELS = new Map([...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS].map((f) => [f.path, f.label]));
+
+/** A box that holds no number says so in words, not as the schema's "expected number, received NaN". */
+function readable(checked: ReturnType<typeof checkDraft>): ReturnType<typeof checkDraft> {
+  if (!checked.errors) return checked;
+  const errors = Object.fromEntries(Object.entries(checked.errors).map(([k, m]) => [k, /expected number, received (NaN|undefined)/.test(m) ? NOT_A_NUMBER : m]));
+  return { setup: null, errors };
+}
+
+/** The first problem, for the preview far from its field: a bare "Enter a number." says which box. */
+function firstProblem(errors: Record<string, string>): string {
+  const [path, message] = Object.entries(errors)[0];
+  const label = NUMBER_LABELS.get(path);
+  return message === NOT_A_NUMBER && label ? `${label} needs a number.` : message;
+}
 
 /** The leg setup of one character: the form, the live preview beside it, saved versions, and running a trial. */
 export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, mayDialIn, mayEditCourses = false, addStarters, save, runner, previewCourse }: { characterId: number; characterName: string; list: LegSetupList; mayEdit: boolean; mayRun: boolean; mayDialIn: boolean; mayEditCourses?: boolean; addStarters: Mutation<void, StarterCoursesResponse>; save: Mutation<LegSetupCreate, { legSetup: LegSetupVersion }>; runner: TrialRunner; previewCourse: PreviewCourse }) {
@@ -33,15 +53,19 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
   const [note, setNote] = useState('');
   const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'info' | 'problem'; text: string } | null>(null);
-  const checked = useMemo(() => checkDraft(draft), [draft]);
+  const checked = useMemo(() => readable(checkDraft(draft)), [draft]);
   const lastValid = useRef<LegSetup>(start);
   if (checked.setup) lastValid.current = checked.setup;
   const previewSetup = checked.setup ?? lastValid.current;
   const errors = { ...(checked.errors ?? {}), ...serverErrors };
+  // Sent without a setup, a trial walks the newest version (else the defaults): the form as loaded. Unchanged, the
+  // server's refusal names the fix with the rig's own figures; edited, it would walk something else, so it waits.
+  const loaded = useMemo(() => draftOf(start), [start]);
+  const edited = Object.keys({ ...draft, ...loaded }).some((k) => draft[k] !== loaded[k]);
   const legs: LimitLeg[] = list.rig.legs.map((l) => ({ name: l.name, joints: l.chain.joints.filter((j) => j.kind !== 'ball').map((j) => ({ name: j.name, slider: j.kind === 'slider' })) }));
   const { courses, suites } = runner;
   const noGround = courses.isSuccess && suites.isSuccess && courses.data.courses.length === 0 && suites.data.suites.length === 0;
-  const preview = (compact: boolean) => <PreviewOrDrive rig={list.rig} setup={previewSetup} problem={checked.errors ? Object.values(checked.errors)[0] : null} ground={previewCourse} compact={compact} />;
+  const preview = (compact: boolean) => <PreviewOrDrive rig={list.rig} setup={previewSetup} problem={checked.errors ? firstProblem(checked.errors) : null} ground={previewCourse} compact={compact} />;
 
   const change = (path: string, value: string) => {
     setDraft((d) => ({ ...d, [path]: value }));
@@ -91,7 +115,7 @@ export function SetupPage({ characterId, characterName, list, mayEdit, mayRun, m
       ) : (
         <>
           <Text style={styles.note}>Runs the settings in the form (saved or not) on the server.</Text>
-          <RunTrialPanel runner={runner} characterId={characterId} legSetup={checked.setup ?? undefined} onFieldErrors={(f) => setServerErrors(Object.fromEntries(Object.entries(f).map(([k, v]) => [k.replace(/^(legSetup|setup)\./, ''), v])))} />
+          <RunTrialPanel runner={runner} characterId={characterId} legSetup={checked.setup ?? undefined} blockedBy={checked.errors && edited ? FIX_FIRST : null} onFieldErrors={(f) => setServerErrors(Object.fromEntries(Object.entries(f).map(([k, v]) => [k.replace(/^(legSetup|setup)\./, ''), v])))} />
         </>
       )}
     </Card>

@@ -21,6 +21,7 @@ export function RunTrialPanel({
   initialCourseId,
   onFieldErrors,
   runner,
+  blockedBy,
 }: {
   runner: TrialRunner;
   characterId: number;
@@ -29,6 +30,8 @@ export function RunTrialPanel({
   initialCourseId?: number | null;
   /** A refusal's field messages (a setting that stops the trial), for the form to show beside its fields. */
   onFieldErrors?: (fields: Record<string, string>) => void;
+  /** Why the trial cannot start yet (the form beside it has settings that need attention); the button waits. */
+  blockedBy?: string | null;
 }) {
   const router = useRouter();
   const [target, setTarget] = useState<string | undefined>(initialCourseId ? `course:${initialCourseId}` : undefined);
@@ -44,7 +47,7 @@ export function RunTrialPanel({
   const result = status === 'done' ? (job.data?.result as TrialJobResult | undefined) : undefined;
 
   async function start() {
-    if (!target) return;
+    if (!target || blockedBy) return;
     const [kind, id] = target.split(':');
     const body = { characterId, ...(kind === 'course' ? { courseId: Number(id) } : { suiteId: Number(id) }), ...(legSetup ? { legSetup } : legSetupId ? { legSetupId } : {}) };
     const accepted = await run.mutateAsync(body).catch((err) => {
@@ -57,7 +60,8 @@ export function RunTrialPanel({
   return (
     <View style={styles.wrap} testID="run-trial">
       <ChoiceChips label="Walk over" choices={choices} value={target} onChange={setTarget} />
-      <Button label={status === 'queued' || status === 'running' ? 'Running…' : 'Run trial'} onPress={start} busy={run.isPending} disabled={!target || status === 'queued' || status === 'running'} />
+      <Button label={status === 'queued' || status === 'running' ? 'Running…' : 'Run trial'} onPress={start} busy={run.isPending} disabled={!target || !!blockedBy || status === 'queued' || status === 'running'} />
+      {blockedBy ? <Notice tone="info" message={blockedBy} /> : null}
       {run.error ? <Notice message={run.error.message} /> : null}
       {job.data ? <ProgressBar progress={job.data.progress} label={status === 'queued' ? 'Waiting for a free worker' : status === 'done' ? 'Trial finished' : 'Walking the course'} /> : null}
       {status === 'failed' ? <Notice message={job.data?.error ?? 'The trial failed.'} /> : null}

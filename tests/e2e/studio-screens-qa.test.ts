@@ -2,7 +2,9 @@
  * Bugs a user met walking the studio screens, each checked the way that user would see it, at 390×844 and
  * 1440×900:
  * - the trial's plots label their axes with plain numbers at one precision, inside the plot (a foot-height axis read a
- *   clipped "-0.00039", the solver's log axis ".000076").
+ *   clipped "-0.00039", the solver's log axis ".000076");
+ * - the leg setup form says "Enter a number." beside a box holding no number, not the schema's "expected number,
+ *   received NaN", and "Run trial" waits while the edited form is not valid (it walked the saved version instead).
  */
 import type { Page } from 'playwright-core';
 import { PHONE, WIDE, screenshot } from '../support/browser';
@@ -86,6 +88,43 @@ describe('studio screens, as their users check them', () => {
       expect(ticks.some((t) => /\.0$/.test(t.text) && Number.isInteger(Number(t.text)))).toBe(false);
       await page.locator(`svg[aria-label^="${title}:"]`).first().scrollIntoViewIfNeeded();
       await screenshot(page, `qa-trial-solver-axes-${name}`);
+      await page.context().close();
+    });
+  }
+
+  for (const [size, name] of SIZES) {
+    it(`says "Enter a number." beside a box with no number, and holds "Run trial" until the form is valid (${name})`, async () => {
+      const page = await studio.newPage(size);
+      await studio.signIn(page, 'designer@brassmoth.test');
+      await page.goto(`${studio.server.url}/characters/setup/${await characterId('Wicket')}`);
+      await page.getByRole('heading', { name: 'Wicket: leg setup' }).waitFor();
+      const budget = page.getByLabel('Iteration budget', { exact: true });
+      await budget.fill('abc');
+      await page.getByText('Enter a number.', { exact: true }).first().waitFor();
+      // The preview, away from the box, names it.
+      await page.getByText('The preview keeps the last valid settings: Iteration budget needs a number.').first().waitFor();
+      expect(await page.getByText(/NaN|expected number/).count()).toBe(0);
+      await budget.scrollIntoViewIfNeeded();
+      await screenshot(page, `qa-setup-not-a-number-${name}`);
+
+      // Not a silent trial of the saved version: the button waits and says why; no job starts.
+      const jobsBefore = Number((await studio.server.db('jobs').count({ n: '*' }).first())?.n);
+      const run = page.getByTestId('run-trial');
+      await run.scrollIntoViewIfNeeded();
+      const button = run.getByRole('button', { name: 'Run trial' });
+      expect(await button.getAttribute('aria-disabled')).toBe('true');
+      await run.getByText('The trial runs the settings in the form: first fix the ones marked there.').waitFor();
+      await button.click({ force: true });
+      await page.waitForTimeout(500);
+      expect(await run.getByText('Walking the course').count()).toBe(0);
+      expect(Number((await studio.server.db('jobs').count({ n: '*' }).first())?.n)).toBe(jobsBefore);
+      await screenshot(page, `qa-setup-run-waits-${name}`);
+
+      // Fixed, it runs again.
+      await budget.fill('24');
+      expect(await page.getByText(/enter a number|needs a number/i).count()).toBe(0);
+      expect(await button.getAttribute('aria-disabled')).not.toBe('true');
+      expect(await run.getByText('The trial runs the settings in the form', { exact: false }).count()).toBe(0);
       await page.context().close();
     });
   }
