@@ -18,6 +18,8 @@ export function InviteForm({ localInboxUrl, invite }: { localInboxUrl?: string; 
   const role = (form.values.role || undefined) as Role | undefined;
 
   function submit() {
+    // A new attempt retires the last one's "Invite sent": it would stand beside this one's refusal.
+    setSentTo(null);
     const input = form.validate();
     if (!input) return;
     invite.mutate(input, {

@@ -4,7 +4,8 @@
  * - the trial's plots label their axes with plain numbers at one precision, inside the plot (a foot-height axis read a
  *   clipped "-0.00039", the solver's log axis ".000076");
  * - the leg setup form says "Enter a number." beside a box holding no number, not the schema's "expected number,
- *   received NaN", and "Run trial" waits while the edited form is not valid (it walked the saved version instead).
+ *   received NaN", and "Run trial" waits while the edited form is not valid (it walked the saved version instead);
+ * - the invite form drops its last "Invite sent" when the next invite is refused (a member already, or no seat left).
  */
 import type { Page } from 'playwright-core';
 import { PHONE, WIDE, screenshot } from '../support/browser';
@@ -125,6 +126,37 @@ describe('studio screens, as their users check them', () => {
       expect(await page.getByText(/enter a number|needs a number/i).count()).toBe(0);
       expect(await button.getAttribute('aria-disabled')).not.toBe('true');
       expect(await run.getByText('The trial runs the settings in the form', { exact: false }).count()).toBe(0);
+      await page.context().close();
+    });
+  }
+
+  for (const [size, name] of SIZES) {
+    it(`drops the last "Invite sent" when the next invite is refused (${name})`, async () => {
+      const page = await studio.newPage(size);
+      await studio.signIn(page, 'owner@brassmoth.test');
+      await page.goto(`${studio.server.url}/team`);
+      await page.getByRole('heading', { name: 'Invite someone' }).waitFor();
+      // Each size starts from the seeded team with no open invite: 4 of the Solo plan's 5 seats taken.
+      await studio.server.db('invites').whereNull('accepted_at').whereNull('revoked_at').update({ revoked_at: Date.now() });
+      const email = `qa-${name}@brassmoth.test`;
+      await page.getByLabel('E-mail to invite').fill(email);
+      await page.getByRole('radio', { name: 'Art lead' }).last().click();
+      await page.getByRole('button', { name: 'Send invite' }).click();
+      await page.getByText(`Invite sent to ${email}`, { exact: false }).waitFor();
+      // The list below has it at once.
+      await page.getByText(email, { exact: true }).waitFor();
+
+      await page.getByLabel('E-mail to invite').fill('designer@brassmoth.test');
+      await page.getByRole('button', { name: 'Send invite' }).click();
+      await page.getByText('designer@brassmoth.test is already in this studio.').waitFor();
+      expect(await page.getByText('Invite sent to', { exact: false }).count()).toBe(0);
+      // The fifth seat is now held by the open invite: the next one is refused in words, and nothing says it went.
+      await page.getByLabel('E-mail to invite').fill(`qa-${name}-2@brassmoth.test`);
+      await page.getByRole('button', { name: 'Send invite' }).click();
+      await page.getByText('The Solo plan allows 5 seats and the team has used 5 (4 members and 1 open invite).', { exact: false }).waitFor();
+      expect(await page.getByText('Invite sent to', { exact: false }).count()).toBe(0);
+      await page.getByRole('button', { name: 'Send invite' }).scrollIntoViewIfNeeded();
+      await screenshot(page, `qa-invite-refused-${name}`);
       await page.context().close();
     });
   }
