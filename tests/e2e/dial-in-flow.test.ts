@@ -114,6 +114,12 @@ describe('dialling in', () => {
     await studio.signIn(page, 'designer@brassmoth.test');
     await oneCourseSuite(page, 'Rubble only', 'Scrap rubble');
     const wicketId = (await studio.server.db('characters').where({ name: 'Wicket' }).first('id')).id as number;
+    // The seeded setup was itself dialled in and leaves nothing to gain: a designer's version with the step
+    // height at the bottom of its suggested range (2 cm, toes low over the rubble) is what this dial-in starts from.
+    const { versions } = await get<LegSetupList>(page, `/characters/${wicketId}/leg-setups`);
+    const low = { ...versions[0].setup, gait: { ...versions[0].setup.gait, stepHeight: 0.02 } };
+    const saved = await page.request.post(`${studio.server.url}/api/characters/${wicketId}/leg-setups`, { data: { setup: low, note: 'Low steps' } });
+    expect(saved.status()).toBe(201);
     await page.goto(`${studio.server.url}/characters/dial-in/${wicketId}`);
     await page.getByRole('heading', { name: 'Wicket: dial-in' }).waitFor();
     await tuneOnly(page, ['Step height', 'Duty factor']);
