@@ -141,6 +141,7 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
   }, [flash]);
 
   const viewHeight = compact ? 220 : 320;
+  const cameraChips = <ChipGroup<CameraMode> label="Drive camera" choices={CAMERA_MODES} value={cameraMode} onChange={setCameraMode} compact={compact} />;
   const finite = Number.isFinite(readout.x) && Number.isFinite(readout.z);
   return (
     <View style={styles.wrap} testID="drive-view" {...({ dataSet: { heading: degrees(readout.heading), view: degrees(readout.view) } } as object)}>
@@ -158,7 +159,7 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
       ) : (
         <ChoiceChips label="Drive on" choices={list.map((c) => ({ value: String(c.id), label: c.name }))} value={courseId} onChange={setCourseId} />
       )}
-      <ChipGroup<CameraMode> label="Drive camera" choices={CAMERA_MODES} value={cameraMode} onChange={setCameraMode} compact={compact} />
+      {compact ? null : cameraChips}
       <View>
         {heightfield && walker ? (
           <WalkView course={heightfield} rig={rig} animating revision={0} poseAt={poseAt} aim={aim} height={viewHeight} label="The character walking live as you drive it" />
@@ -168,11 +169,13 @@ export function DriveView({ rig, setup, ground, compact = false }: { rig: Rig; s
           </View>
         )}
         {flash ? (
-          <View style={[styles.flash, { borderColor: stumbleColor(flash.kind) }]} role="alert" testID="drive-flash">
+          <View style={[styles.flash, compact && styles.flashLow, { borderColor: stumbleColor(flash.kind) }]} role="alert" testID="drive-flash">
             <StumbleGlyph kind={flash.kind} size={18} />
             <Text style={[styles.flashText, { color: stumbleColor(flash.kind) }]}>{STUMBLE_LABELS[flash.kind]}</Text>
           </View>
         ) : null}
+        {/* On a phone the preview sticks above the form: the camera choice sits on the view rather than below it. */}
+        {compact ? <View style={styles.cameraSpot}>{cameraChips}</View> : null}
         {wide ? null : (
           <View style={styles.stickSpot}>
             <Thumbstick value={stick} label="Walk stick: push up to walk, sideways to turn" />
@@ -218,7 +221,9 @@ const styles = StyleSheet.create({
   placeholder: { alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperDeep, borderRadius: radius.lg },
   flash: { position: 'absolute', top: space.sm, left: space.sm, flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.md, minHeight: 44, borderRadius: radius.md, borderWidth: 2, backgroundColor: colors.card },
   flashText: { fontFamily: fonts.bodyStrong, fontSize: 16 },
+  flashLow: { top: undefined, bottom: space.md },
   stickSpot: { position: 'absolute', right: space.md, bottom: space.md },
+  cameraSpot: { position: 'absolute', top: space.sm, right: space.sm },
   readout: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
   restart: { minHeight: 44, justifyContent: 'center', paddingHorizontal: space.sm },
   restartText: { ...type.label, color: colors.ember },

@@ -139,6 +139,21 @@ describe('the drive camera', () => {
     const after = await angles(page);
     expect(Math.abs(gap(after.view, after.heading))).toBeLessThan(1.5);
     await screenshot(page, 'drive-camera-phone-turned');
+
+    // The camera choice sits on the view (the preview sticks above the form), big enough for a thumb (44 px,
+    // product.md), and the fixed angle is one tap away.
+    const fixed = page.getByTestId('sticky-preview').getByRole('radio', { name: 'Fixed angle' });
+    const chip = (await fixed.boundingBox())!;
+    const view = (await page.getByTestId('walk-view').boundingBox())!;
+    expect(chip.height).toBeGreaterThanOrEqual(44);
+    expect(chip.y).toBeGreaterThanOrEqual(view.y);
+    expect(chip.x + chip.width).toBeLessThanOrEqual(view.x + view.width);
+    await fixed.click();
+    expect(await fixed.getAttribute('aria-checked')).toBe('true');
+    await page.waitForFunction(() => {
+      const el = document.querySelector('[data-testid="drive-view"]') as HTMLElement;
+      return Math.abs(Number(el.dataset.view) - Number(el.dataset.heading)) > 5;
+    });
   });
 });
 
