@@ -1,5 +1,5 @@
-import { useCallback, useMemo, useRef, useState } from 'react';
-import { ScrollView, StyleSheet, Text, View, useWindowDimensions } from 'react-native';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { Platform, ScrollView, StyleSheet, Text, View, useWindowDimensions } from 'react-native';
 import { decodeCourse, encodeCourse, type CourseEncoding } from '../../engine/course/encoding';
 import { heightRange } from '../../engine/course/heightfield';
 import { courseUpdateSchema, COURSE_VERSION_CONFLICT, type CourseDetail, type CourseUpdate } from '../../schemas/courses';
@@ -27,6 +27,7 @@ import { courseFigures } from './figures';
 import type { WalkPath } from '../../engine/course/walk-path';
 import { WalkPathEditor, pathWithPointAdded, straightPath } from './WalkPathEditor';
 import { WalkPathSpeedField } from './WalkPathSpeedField';
+import { keepUnsavedCourse, unsavedCourse, type UnsavedCourse } from './unsaved-course';
 
 export interface CourseEditorProps {
   detail: CourseDetail;
@@ -46,8 +47,10 @@ const SIDE_PANEL = 340;
 export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, onDelete }: CourseEditorProps) {
   const wide = useIsWide();
   const window = useWindowDimensions();
-  const [hf, setHf] = useState(() => decodeCourse(detail.encoding));
-  const history = useRef(new SculptHistory()).current;
+  // Edits left unsaved here earlier (another tab, Back) come back with their undo history.
+  const [restored] = useState(() => unsavedCourse(detail.course.id, detail.course.version));
+  const [hf, setHf] = useState(() => restored?.hf ?? decodeCourse(detail.encoding));
+  const history = useRef(restored?.history ?? new SculptHistory()).current;
   const stroke = useRef<SculptStroke | null>(null);
   const [revision, setRevision] = useState(0);
   const frameRequest = useRef<number | null>(null);
@@ -57,13 +60,13 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   const [paint, setPaint] = useState(wide);
   // Path mode: a drag on the map moves the walk path's points instead of sculpting or scrolling.
   const [pathMode, setPathMode] = useState(false);
-  const [walkPath, setWalkPath] = useState<WalkPath | undefined>(() => hf.walkPath);
-  const [savedPath, setSavedPath] = useState(() => JSON.stringify(hf.walkPath ?? null));
+  const [walkPath, setWalkPath] = useState<WalkPath | undefined>(() => (restored ? restored.walkPath : hf.walkPath));
+  const [savedPath, setSavedPath] = useState(() => restored?.savedPath ?? JSON.stringify(hf.walkPath ?? null));
   const [baseVersion, setBaseVersion] = useState(detail.course.version);
-  const [savedPosition, setSavedPosition] = useState(0);
-  const [savedName, setSavedName] = useState(detail.course.name);
-  const [name, setName] = useState(detail.course.name);
-  const [status, setStatus] = useState<string | null>(null);
+  const [savedPosition, setSavedPosition] = useState(restored?.savedPosition ?? 0);
+  const [savedName, setSavedName] = useState(restored?.savedName ?? detail.course.name);
+  const [name, setName] = useState(restored?.name ?? detail.course.name);
+  const [status, setStatus] = useState<string | null>(restored ? 'Unsaved changes from before you left, still here' : null);
   const [problem, setProblem] = useState<string | null>(null);
   const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
   const [conflict, setConflict] = useState<string | null>(null);
@@ -75,6 +78,18 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
   const pathDirty = JSON.stringify(walkPath ?? null) !== savedPath;
   const dirty = history.position !== savedPosition || name.trim() !== savedName || pathDirty;
   const withPath = () => encodeCourse({ ...hf, walkPath });
+
+  // Leaving keeps what is unsaved (read at unmount, so through a ref); closing or reloading the page asks first.
+  const edits = useRef<UnsavedCourse | undefined>(undefined);
+  edits.current = dirty && mayEdit ? { baseVersion, hf, history, savedPosition, savedName, name, walkPath, savedPath } : undefined;
+  const deleted = useRef(false);
+  useEffect(() => () => keepUnsavedCourse(detail.course.id, deleted.current ? undefined : edits.current), [detail.course.id]);
+  useEffect(() => {
+    if (!dirty || !mayEdit || Platform.OS !== 'web' || typeof globalThis.addEventListener !== 'function') return;
+    const ask = (e: BeforeUnloadEvent) => e.preventDefault();
+    globalThis.addEventListener('beforeunload', ask);
+    return () => globalThis.removeEventListener('beforeunload', ask);
+  }, [dirty, mayEdit]);
 
   const redraw = useCallback((now = false) => {
     if (now || typeof requestAnimationFrame === 'undefined') {
@@ -286,7 +301,12 @@ export function CourseEditor({ detail, mayEdit, onSave, onReload, onSaveCopy, on
         setName(v);
         setFieldErrors(({ name: _gone, ...rest }) => rest);
       }}
-      onDelete={onDelete}
+      onDelete={async () => {
+        await onDelete();
+        // A deleted course keeps nothing (its id could come round again for a new one).
+        deleted.current = true;
+        keepUnsavedCourse(detail.course.id, undefined);
+      }}
     />
   );
 

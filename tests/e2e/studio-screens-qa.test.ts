@@ -5,7 +5,9 @@
  *   clipped "-0.00039", the solver's log axis ".000076");
  * - the leg setup form says "Enter a number." beside a box holding no number, not the schema's "expected number,
  *   received NaN", and "Run trial" waits while the edited form is not valid (it walked the saved version instead);
- * - the invite form drops its last "Invite sent" when the next invite is refused (a member already, or no seat left).
+ * - the invite form drops its last "Invite sent" when the next invite is refused (a member already, or no seat left);
+ * - the course editor keeps unsaved sculpting: leaving by a tab and coming Back finds the unsaved heights with
+ *   their undo (they were gone without a word), and closing the page with them unsaved asks first.
  */
 import type { Page } from 'playwright-core';
 import { PHONE, WIDE, screenshot } from '../support/browser';
@@ -37,6 +39,21 @@ async function plotTicks(page: Page, title: string): Promise<{ text: string; ins
         return { text: t.textContent ?? '', inside: b.left >= box.left - 0.5 && b.right <= box.right + 0.5 };
       });
   });
+}
+
+/** Drags the mouse across the map where it shows: inside its scrolling view, below the brush strip that sticks over it. */
+async function sculptStroke(page: Page, across: number): Promise<void> {
+  await page.getByTestId('sculpt-viewport').evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  const box = (await page.getByTestId('sculpt-canvas').boundingBox())!;
+  const view = (await page.getByTestId('sculpt-viewport').boundingBox())!;
+  const tools = await page.getByTestId('sculpt-tools').boundingBox();
+  const top = Math.max(box.y, view.y, 70, tools ? tools.y + tools.height + 4 : 0);
+  const bottom = Math.min(box.y + box.height, view.y + view.height, page.viewportSize()!.height - 90);
+  const y = top + (bottom - top) * across;
+  await page.mouse.move(box.x + box.width * 0.3, y);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.6, y + 12, { steps: 10 });
+  await page.mouse.up();
 }
 
 const PLAIN_NUMBER = /^-?\d+(\.\d+)?(e-?\d+)?$/;
@@ -157,6 +174,60 @@ describe('studio screens, as their users check them', () => {
       expect(await page.getByText('Invite sent to', { exact: false }).count()).toBe(0);
       await page.getByRole('button', { name: 'Send invite' }).scrollIntoViewIfNeeded();
       await screenshot(page, `qa-invite-refused-${name}`);
+      await page.context().close();
+    });
+  }
+
+  for (const [size, name, course] of [
+    [PHONE, 'phone', 'Drainage trench'],
+    [WIDE, 'wide', 'Ramp to the gantry'],
+  ] as const) {
+    it(`keeps unsaved sculpting when the designer leaves the course and comes back (${name})`, async () => {
+      const page = await studio.newPage(size);
+      await studio.signIn(page, 'designer@brassmoth.test');
+      const { id } = await studio.server.db('courses').where({ name: course }).first('id');
+      await page.goto(`${studio.server.url}/courses/${id}`);
+      await page.getByRole('heading', { name: course }).waitFor();
+      await page.getByRole('radio', { name: 'Paint' }).click();
+      await sculptStroke(page, 0.3);
+      const status = page.getByRole('status');
+      await status.filter({ hasText: 'Unsaved changes' }).waitFor();
+
+      // Off to the course list by the tab bar (phone) or side rail (wide), then Back.
+      await page.getByRole('link', { name: 'Courses' }).first().click();
+      await page.getByRole('heading', { name: 'Courses', level: 1 }).waitFor();
+      await page.goBack();
+      await page.getByRole('heading', { name: course }).waitFor();
+      await page.getByText('Unsaved changes from before you left, still here').waitFor();
+      expect(await page.getByRole('button', { name: 'Save' }).getAttribute('aria-disabled')).not.toBe('true');
+      await screenshot(page, `qa-course-kept-${name}`);
+      // Its undo history came back with it.
+      await page.getByRole('button', { name: 'Undo' }).click();
+      await status.filter({ hasText: 'Version 1, nothing to save' }).waitFor();
+      await page.getByRole('button', { name: 'Redo' }).click();
+      await status.filter({ hasText: 'Unsaved changes' }).waitFor();
+
+      // Saved, nothing is kept: after a tab and Back the course reads as saved.
+      await page.getByRole('button', { name: 'Save' }).click();
+      await status.filter({ hasText: 'Saved as version 2.' }).waitFor();
+      await page.getByRole('link', { name: 'Courses' }).first().click();
+      await page.getByRole('heading', { name: 'Courses', level: 1 }).waitFor();
+      await page.goBack();
+      await status.filter({ hasText: 'Version 2, nothing to save' }).waitFor();
+      expect(await page.getByText('Unsaved changes from before you left').count()).toBe(0);
+
+      // Closing the page with something unsaved asks first.
+      await page.getByRole('radio', { name: 'Paint' }).click();
+      await sculptStroke(page, 0.6);
+      await status.filter({ hasText: 'Unsaved changes' }).waitFor();
+      const asked = new Promise<string>((resolve) =>
+        page.once('dialog', (d) => {
+          resolve(d.type());
+          void d.dismiss();
+        }),
+      );
+      await page.close({ runBeforeUnload: true });
+      expect(await asked).toBe('beforeunload');
       await page.context().close();
     });
   }
