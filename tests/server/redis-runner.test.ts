@@ -27,6 +27,9 @@ import { freshDatabase } from '../support/test-db';
 import { manualClock } from '../support/test-app';
 import { freePort, startRedis, startWorkerProcess, type TestRedis, type WorkerProcess } from '../support/redis';
 import { trialStudio, type TrialStudio } from './trials-helpers';
+import { insertCourse } from '../../server/services/courses';
+import { generateCourse } from '../../engine/course/generators';
+import { GAUNTLET } from '../../engine/course/gauntlet';
 import fs from 'node:fs';
 import os from 'node:os';
 
@@ -62,6 +65,8 @@ const finished = (id: number) => waitFor(async () => {
 
 let trialInput: TrialJobInput;
 let dialInInput: DialInJobInput;
+/** A closed walk path: a trial on it walks its whole duration, where one on a straight course ends with the ground. */
+let loopCourse: number;
 const enqueue = (runner: Runner, kind: 'trial' | 'dial-in', input: unknown) => runner.enqueue({ teamId: studio.teamId, userId: studio.members.owner.id, kind, input });
 
 beforeAll(async () => {
@@ -73,6 +78,8 @@ beforeAll(async () => {
   const burrow = await loadCharacterRig(db, studio.teamId, studio.characters.burrow);
   const setup = defaultLegSetup(burrow.rig);
   const courseIds = Object.values(studio.courses);
+  const loop = GAUNTLET.find((c) => c.name.startsWith('turn'))!;
+  loopCourse = await insertCourse(db, { teamId: studio.teamId, userId: studio.members.owner.id, name: 'Test loop', heightfield: generateCourse(loop.recipe), generator: null, now: clock.now() });
   trialInput = { characterId: studio.characters.burrow, courseIds, setup, legSetupId: null, duration: 20 };
   dialInInput = {
     characterId: studio.characters.burrow,
@@ -188,8 +195,10 @@ describe('the BullMQ runner with two worker processes', () => {
   it('ends a cancelled job’s tasks on every worker', async () => {
     const runner = await openJobRunner({ db, clock, redisUrl: redis.url });
     try {
-      // The longest trials allowed, so each task keeps its worker busy well beyond the cancel.
-      const job = await enqueue(runner, 'dial-in', { ...dialInInput, duration: 600, seed: 99 });
+      // The longest trials allowed, on a loop that never runs out of ground, so each task keeps its worker busy
+      // for seconds, well beyond the cancel (the straight courses end after a few seconds of walking, and a task
+      // then finished on its own while the cancel was on its way to a busy machine).
+      const job = await enqueue(runner, 'dial-in', { ...dialInInput, courseIds: [loopCourse], duration: 600, seed: 99 });
       const held = await waitFor(async () => {
         const active = (await queue.getActive()).filter((j) => j.data.jobId === job.id);
         return new Set(active.map((j) => j.processedBy)).size === 2 ? active : null;
