@@ -43,10 +43,13 @@ async function plotTicks(page: Page, title: string): Promise<{ text: string; ins
 
 /** Drags the mouse across the map where it shows: inside its scrolling view, below the brush strip that sticks over it. */
 async function sculptStroke(page: Page, across: number): Promise<void> {
-  await page.getByTestId('sculpt-viewport').evaluate((el) => el.scrollIntoView({ block: 'start' }));
-  const box = (await page.getByTestId('sculpt-canvas').boundingBox())!;
-  const view = (await page.getByTestId('sculpt-viewport').boundingBox())!;
-  const tools = await page.getByTestId('sculpt-tools').boundingBox();
+  // The phone's map scrolls in a view of its own; a wide screen shows it whole.
+  const canvas = page.getByTestId('sculpt-canvas');
+  const viewport = (await page.getByTestId('sculpt-viewport').count()) ? page.getByTestId('sculpt-viewport') : canvas;
+  await viewport.evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  const box = (await canvas.boundingBox())!;
+  const view = (await viewport.boundingBox())!;
+  const tools = (await page.getByTestId('sculpt-tools').count()) ? await page.getByTestId('sculpt-tools').boundingBox() : null;
   const top = Math.max(box.y, view.y, 70, tools ? tools.y + tools.height + 4 : 0);
   const bottom = Math.min(box.y + box.height, view.y + view.height, page.viewportSize()!.height - 90);
   const y = top + (bottom - top) * across;
