@@ -22,14 +22,14 @@ import type { LegSetupCreate, LegSetupVersion } from '../../schemas/leg-setups';
 import type { StarterCoursesResponse } from '../../schemas/starter-courses';
 import { LegSetupForm } from './LegSetupForm';
 import type { LimitLeg } from './LegLimitsEditor';
-import { BODY_FIELDS, checkDraft, draftOf, GAIT_FIELDS, SOLVER_FIELDS, type Draft } from './setup-draft';
+import { BODY_FIELDS, checkDraft, draftOf, FOOTHOLD_FIELDS, GAIT_FIELDS, SOLVER_FIELDS, type Draft } from './setup-draft';
 import { VersionList } from './VersionList';
 
 /** Why "Run trial" waits while the edited form has settings that need attention. */
 const FIX_FIRST = 'The trial runs the settings in the form: first fix the ones marked there.';
 
 const NOT_A_NUMBER = 'Enter a number.';
-const NUMBER_LABELS = new Map([...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS].map((f) => [f.path, f.label]));
+const NUMBER_LABELS = new Map([...SOLVER_FIELDS, ...GAIT_FIELDS, ...BODY_FIELDS, ...FOOTHOLD_FIELDS].map((f) => [f.path, f.label]));
 
 /** A box that holds no number says so in words, not as the schema's "expected number, received NaN". */
 function readable(checked: ReturnType<typeof checkDraft>): ReturnType<typeof checkDraft> {
