@@ -159,6 +159,15 @@ function nextSupportHeight(t: Walk, j: number): number {
  */
 export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float64Array): void {
   paceGoal = terrainPace(t);
+  // Reset however the search ends: a game's ground query may throw inside it.
+  try {
+    searchFoothold(t, i, landTime, out);
+  } finally {
+    paceGoal = NaN;
+  }
+}
+
+function searchFoothold(t: Walk, i: number, landTime: number, out: Float64Array): void {
   touchdownPoint(t, i, landTime, landing, 0);
   const w = t.setup.footholds;
   const leg = t.rig.legs[i];
@@ -277,7 +286,6 @@ export function chooseFoothold(t: Walk, i: number, landTime: number, out: Float6
   out[0] = bx;
   out[1] = by;
   out[2] = bz;
-  paceGoal = NaN;
   const hipAt = foldGuard.hip1;
   hipAt[0] = hx;
   hipAt[1] = (others + by) / t.legs + lift;

@@ -43,7 +43,7 @@ const edgeRise = new Float64Array(MAX_SAMPLES);
  * Longest swing the pace may ask for, as a share of the setup's stride: the swing's own speed is what the
  * joints were set up for. Feet planted short on a slow stretch were left behind a body that sped up again,
  * and the next swings ran 15 % longer than a stride, the joints at their speed limit and the foot 10–17 cm
- * behind its target (common practice, no source, for the 5 % allowance).
+ * behind its target. The 5 % allowance is our own choice.
  */
 const SWING_MAX = 1.05;
 

@@ -536,6 +536,8 @@ export function solveLegs(w: Walk): void {
     // A swing that met a straight knee keeps it shaped for the rest of the swing: left to the solver once
     // it had bent a little, the knee went back toward straight while the preshape bent it again, each
     // frame in turn, and the joint speed limit held the foot between the two (10–17 cm off its target).
+    // A leg ending in a knee and an ankle is shaped from liftoff: otherwise a trailing straight leg lifted
+    // its sole with the ankle alone until the ankle met its limit, then had to bend the knee all at once.
     if (w.stance[i]) w.kneeShaping[i] = 0;
     else if (w.ankleFoot[i] || kneeNearStraight(w, i)) w.kneeShaping[i] = 1;
     preshapeKnee(w, i, aim, w.kneeShaping[i] === 1);
