@@ -38,8 +38,8 @@
  * relative to the body (|v| + |turn rate| × the farthest foot's distance from the body's centre), so turning in
  * place steps too. The cycle is kept within [0.6, 2] × T0 (common practice, no source), and short enough on a
  * turn that one stance turns the body by at most 20°. The speed is at most the walk-to-run transition, Froude
- * number 0.5 (Kram, Domingo & Ferris 1997), or v0 if that is faster; speed and turn rate ramp over a few cycles
- * and brake twice as fast. Below 2 % of v0 the walk stops: every foot already within a tenth of a stride of
+ * number 0.5 (Kram, Domingo & Ferris 1997), or v0 if that is faster; speed ramps over two cycles, turn rate
+ * over one, and both brake twice as fast. Below 2 % of v0 the walk stops: every foot already within a tenth of a stride of
  * where a step would put it stays planted, the others take one more step (engine/gait/walk-speed.ts).
  *
  * Each step runs the walk Treadle measures with (engine/gait/walk.ts: gait clock, foot planner, body, and the
